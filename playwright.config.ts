@@ -1,0 +1,36 @@
+import { defineConfig, devices } from '@playwright/test';
+
+/** Browser tests run in Debian's chromium against the built app started by scripts/test.sh. */
+export default defineConfig({
+	testDir: 'tests/e2e',
+	timeout: 60_000,
+	expect: { timeout: 10_000 },
+	fullyParallel: false,
+	workers: 2,
+	retries: 0,
+	reporter: [['list']],
+	use: {
+		baseURL: process.env.E2E_BASE_URL ?? 'http://127.0.0.1:4173',
+		trace: 'off',
+		screenshot: 'only-on-failure',
+		launchOptions: {
+			executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+			args: [
+				'--headless',
+				'--no-sandbox',
+				'--disable-gpu',
+				'--disable-quic',
+				'--no-first-run',
+				'--disable-background-networking',
+				'--disable-component-update',
+				'--disable-sync'
+			]
+		}
+	},
+	projects: [
+		{
+			name: 'laptop',
+			use: { ...devices['Desktop Chrome'], viewport: { width: 1280, height: 800 } }
+		}
+	]
+});

@@ -1,0 +1,61 @@
+/**
+ * Database chores from the command line:
+ *   tsx scripts/db.ts migrate | rollback | seed | reset | status
+ * reset drops every table, migrates and seeds: the demo's fresh start.
+ */
+import {
+	createSequelize,
+	databaseUrl,
+	isDatabaseDown,
+	DATABASE_DOWN_MESSAGE
+} from '../src/lib/server/db/connection';
+import { createMigrator, createSeeder } from '../src/lib/server/db/migrator';
+
+const command = process.argv[2] ?? 'status';
+const sequelize = createSequelize();
+const migrator = createMigrator(sequelize);
+const seeder = createSeeder(sequelize);
+
+async function main(): Promise<void> {
+	switch (command) {
+		case 'migrate': {
+			const done = await migrator.up();
+			console.log(`migrated: ${done.length} migration(s) applied`);
+			break;
+		}
+		case 'rollback': {
+			await seeder.down({ to: 0 });
+			const undone = await migrator.down({ to: 0 });
+			console.log(`rolled back: ${undone.length} migration(s) undone`);
+			break;
+		}
+		case 'seed': {
+			const done = await seeder.up();
+			console.log(`seeded: ${done.length} seeder(s) run`);
+			break;
+		}
+		case 'reset': {
+			await sequelize.query('DROP SCHEMA public CASCADE; CREATE SCHEMA public;');
+			const m = await migrator.up();
+			const s = await seeder.up();
+			console.log(`reset: ${m.length} migration(s), ${s.length} seeder(s)`);
+			break;
+		}
+		case 'status': {
+			const pending = await migrator.pending();
+			const executed = await migrator.executed();
+			console.log(`${databaseUrl()}: ${executed.length} applied, ${pending.length} pending`);
+			break;
+		}
+		default:
+			console.error('usage: tsx scripts/db.ts migrate | rollback | seed | reset | status');
+			process.exitCode = 2;
+	}
+}
+
+main()
+	.catch((error: unknown) => {
+		console.error(isDatabaseDown(error) ? DATABASE_DOWN_MESSAGE : error);
+		process.exitCode = 1;
+	})
+	.finally(() => sequelize.close());

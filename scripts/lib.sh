@@ -1,0 +1,43 @@
+# Shared pieces of the demo and test scripts (sourced, not run).
+
+background_pids=()
+
+# npm ci when node_modules is missing or older than the lock file.
+ensure_node_modules() {
+	if [ ! -f node_modules/.package-lock.json ] || [ package-lock.json -nt node_modules/.package-lock.json ]; then
+		echo "setup: installing npm packages"
+		npm ci --no-audit --no-fund
+	fi
+}
+
+# A random secret for Auth.js, kept in .data so sessions survive a restart of the demo.
+auth_secret() {
+	mkdir -p .data
+	[ -s .data/auth-secret ] || node -e 'process.stdout.write(require("crypto").randomBytes(32).toString("hex"))' >.data/auth-secret
+	cat .data/auth-secret
+}
+
+# Waits until a URL answers, or fails after $2 seconds.
+wait_for_url() {
+	local url="$1" limit="${2:-30}" i
+	for ((i = 0; i < limit * 5; i++)); do
+		curl -s -o /dev/null "$url" && return 0
+		sleep 0.2
+	done
+	echo "no answer from $url after $limit s" >&2
+	return 1
+}
+
+start_smtp_fake() {
+	mkdir -p .data
+	node scripts/smtp-fake.js >".data/smtp-fake-$SMTP_FAKE_PORT.log" 2>&1 &
+	background_pids+=($!)
+	wait_for_url "http://127.0.0.1:$SMTP_FAKE_HTTP_PORT/health" 15
+}
+
+stop_background() {
+	local pid
+	for pid in "${background_pids[@]}"; do kill "$pid" 2>/dev/null || true; done
+	for pid in "${background_pids[@]}"; do wait "$pid" 2>/dev/null || true; done
+	background_pids=()
+}

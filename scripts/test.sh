@@ -1,0 +1,83 @@
+#!/usr/bin/env bash
+# The whole test suite, from a fresh machine: installs what is missing (npm packages, Debian's
+# chromium, PostgreSQL), starts its own database and SMTP fake, and runs format and lint checks,
+# type checks, unit tests, integration tests against PostgreSQL and browser tests against the
+# built app. Exits non-zero when anything fails.
+set -uo pipefail
+cd "$(dirname "$0")/.."
+source scripts/lib.sh
+set -e
+
+ensure_node_modules
+if ! command -v chromium >/dev/null 2>&1; then
+	echo "setup: installing Debian's chromium for the browser tests"
+	if [ "$(id -u)" -ne 0 ]; then
+		echo "run as root, or install it first: sudo apt-get install -y chromium" >&2
+		exit 1
+	fi
+	export DEBIAN_FRONTEND=noninteractive
+	apt-get update -qq >/dev/null
+	apt-get install -y -qq chromium >/dev/null
+fi
+
+./docker-less-db.sh start crownbench_test crownbench_e2e
+
+export SMTP_FAKE_PORT="${TEST_SMTP_PORT:-2535}" SMTP_FAKE_HTTP_PORT="${TEST_SMTP_HTTP_PORT:-2536}"
+export SMTP_URL="smtp://127.0.0.1:$SMTP_FAKE_PORT"
+export CB_DEV_MAIL_URL="http://127.0.0.1:$SMTP_FAKE_HTTP_PORT"
+export AUTH_SECRET="test-secret-$(date +%s)-$RANDOM"
+start_smtp_fake
+trap stop_background EXIT INT TERM
+set +e
+
+passed=0
+failed=0
+failures=()
+step() {
+	local name="$1"
+	shift
+	echo
+	echo "=== $name"
+	local started=$SECONDS
+	if "$@"; then
+		passed=$((passed + 1))
+		echo "=== $name: passed ($((SECONDS - started)) s)"
+	else
+		failed=$((failed + 1))
+		failures+=("$name")
+		echo "=== $name: FAILED ($((SECONDS - started)) s)"
+	fi
+}
+
+e2e() {
+	local port="${TEST_APP_PORT:-4173}"
+	export DATABASE_URL
+	DATABASE_URL="$(./docker-less-db.sh url crownbench_e2e)"
+	npx tsx scripts/db.ts reset || return 1
+	PORT="$port" HOST=127.0.0.1 ORIGIN="http://127.0.0.1:$port" node build >.data/e2e-app.log 2>&1 &
+	local app=$!
+	background_pids+=("$app")
+	wait_for_url "http://127.0.0.1:$port/" 30 || { cat .data/e2e-app.log; return 1; }
+	E2E_BASE_URL="http://127.0.0.1:$port" npx playwright test
+	local rc=$?
+	kill "$app" 2>/dev/null
+	wait "$app" 2>/dev/null
+	[ $rc -eq 0 ] || { echo "--- app log"; tail -50 .data/e2e-app.log; }
+	return $rc
+}
+
+step "format (prettier)" npx prettier --check .
+step "lint (eslint)" npx eslint . --max-warnings 0
+step "types (svelte-check)" npm run --silent check
+step "unit tests (vitest)" npx vitest run
+step "integration tests (vitest + PostgreSQL)" env DATABASE_URL="$(./docker-less-db.sh url crownbench_test)" \
+	npx vitest run --config vitest.integration.config.ts
+step "build (vite)" npx vite build --logLevel warn
+step "browser tests (playwright + chromium)" e2e
+
+echo
+if [ $failed -gt 0 ]; then
+	echo "failed steps: ${failures[*]}"
+fi
+echo "steps: $passed passed, $failed failed"
+[ $failed -eq 0 ]

@@ -1,0 +1,21 @@
+import type { Role } from '$lib/roles';
+
+declare global {
+	namespace App {
+		interface Error {
+			message: string;
+		}
+		interface Locals {
+			/** The signed-in person, or null; filled by hooks.server.ts. */
+			user: SignedInUser | null;
+		}
+		interface SignedInUser {
+			id: string;
+			email: string;
+			name: string | null;
+			memberships: { societyId: string; societySlug: string; societyName: string; roles: Role[] }[];
+		}
+	}
+}
+
+export {};

@@ -1,0 +1,63 @@
+import { error, type Handle, type HandleServerError } from '@sveltejs/kit';
+import { sequence } from '@sveltejs/kit/hooks';
+import { authHandle } from '$lib/server/auth';
+import { DATABASE_DOWN_MESSAGE, isDatabaseDown } from '$lib/server/db/connection';
+import { AREA_ROLES, areaOf, requireRole, requireUser } from '$lib/server/policies';
+import { loadSignedInUser } from '$lib/server/services/people';
+
+const SESSION_COOKIES = ['authjs.session-token', '__Secure-authjs.session-token'];
+
+/** Fills locals.user from the database session; visitors without a session cookie cost nothing. */
+const userHandle: Handle = async ({ event, resolve }) => {
+	event.locals.user = null;
+	if (SESSION_COOKIES.some((name) => event.cookies.get(name))) {
+		const session = await event.locals.auth();
+		const id = session?.user?.id;
+		if (id) event.locals.user = await loadSignedInUser(id);
+	}
+	return resolve(event);
+};
+
+/** Refuses every page and API of a role's area to people without that role, before any load runs. */
+const guardHandle: Handle = async ({ event, resolve }) => {
+	const area = areaOf(event.url.pathname);
+	if (area) {
+		const rule = AREA_ROLES[area];
+		if (rule === 'signed-in') requireUser(event);
+		else requireRole(event, rule);
+	}
+	if (event.url.pathname.startsWith('/dev/') && !process.env.CB_DEV_MAIL_URL) {
+		error(404, 'Not found');
+	}
+	return resolve(event);
+};
+
+const SECURITY_HEADERS: Record<string, string> = {
+	'X-Content-Type-Options': 'nosniff',
+	'Referrer-Policy': 'same-origin',
+	'X-Frame-Options': 'DENY',
+	'Permissions-Policy': 'camera=(self), geolocation=(), microphone=()'
+};
+
+/** Security headers on every answer; the content security policy is set in svelte.config.js. */
+const headersHandle: Handle = async ({ event, resolve }) => {
+	let response = await resolve(event);
+	try {
+		for (const [name, value] of Object.entries(SECURITY_HEADERS)) response.headers.set(name, value);
+	} catch {
+		// Redirects made with Response.redirect() have immutable headers: copy them first.
+		response = new Response(response.body, response);
+		for (const [name, value] of Object.entries(SECURITY_HEADERS)) response.headers.set(name, value);
+	}
+	return response;
+};
+
+export const handle = sequence(headersHandle, authHandle, userHandle, guardHandle);
+
+/** Unexpected errors: a plain message, and the command to run when the database is down. */
+export const handleError: HandleServerError = ({ error: err, status }) => {
+	if (isDatabaseDown(err)) return { message: DATABASE_DOWN_MESSAGE };
+	if (status === 404) return { message: 'This page does not exist.' };
+	console.error(err);
+	return { message: 'Something went wrong on our side. Please try again.' };
+};

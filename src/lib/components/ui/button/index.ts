@@ -1,0 +1,2 @@
+export { default as Button } from './button.svelte';
+export { buttonClass } from './variants';

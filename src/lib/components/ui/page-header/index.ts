@@ -1,0 +1,1 @@
+export { default as PageHeader } from './page-header.svelte';

@@ -1,0 +1,1 @@
+export { default as Table } from './table.svelte';

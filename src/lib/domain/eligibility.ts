@@ -1,0 +1,496 @@
+/**
+ * Whether a plant can be entered in a show class, and if not, why.
+ *
+ * One module for the entry form, the API and the clerks' entry desk, so that
+ * all three say the same thing. Every rule that fails is reported (not only the
+ * first), each with a stable code for programs and one plain sentence for the
+ * grower. Lengths here are inches; convert measurements with `units.ts` first.
+ */
+
+import {
+	compareIsoDates,
+	formatDateLong,
+	hasPossessionPeriod,
+	possessionReachedOn,
+	type IsoDate
+} from './dates';
+
+/** How a variety grows: a single rosette, or several crowns from one main stem. */
+export type Habit = 'single_crown' | 'trailer';
+
+/** Size class of a variety, by the diameter of a mature single crown. */
+export type SizeClass = 'miniature' | 'semiminiature' | 'standard' | 'large';
+
+/** Leaf colouring of a variety. */
+export type Foliage = 'plain' | 'variegated';
+
+/**
+ * When the check runs: 'entry' when an exhibitor enters a plant before the show
+ * (the entry window applies, measurements are not yet trusted), 'desk' when a
+ * clerk checks the plant in (the window no longer applies, measurements count).
+ */
+export type CheckPhase = 'entry' | 'desk';
+
+/** What a show class accepts, in structured form. An empty list or null means "any". */
+export interface ClassRules {
+	habit: Habit | 'any';
+	/** Empty = any size class. */
+	sizeClasses: SizeClass[];
+	/** Empty = any, e.g. 'single', 'semidouble', 'double', 'star', 'wasp', 'bell', 'fringed'. */
+	blossomTypes: string[];
+	/** Empty = any; a variety fits when any one of its colours is listed. */
+	blossomColours: string[];
+	foliage: Foliage | 'any';
+	/** Null = no minimum, except that a trailer needs `TRAILER_MIN_CROWNS`. */
+	minCrowns: number | null;
+	/** Null = no maximum, except that a single-crown hybrid needs exactly one crown. */
+	maxCrowns: number | null;
+	/** A collection class: this many different named varieties of the same type. Null = one plant. */
+	collectionSize: number | null;
+	speciesOnly: boolean;
+	/** Explicit diameter limit in inches; the plant's own size-class limit applies as well. */
+	maxDiameterIn: number | null;
+}
+
+/** What is known about the plant (or collection) being entered. */
+export interface PlantFacts {
+	varietyId: string;
+	varietyName: string;
+	isSpecies: boolean;
+	habit: Habit;
+	sizeClass: SizeClass;
+	blossomType: string;
+	blossomColours: string[];
+	foliage: Foliage;
+	/** The day the exhibitor got the plant; null when not known. */
+	acquiredOn: IsoDate | null;
+	/**
+	 * What the clerks measured at the desk (used in phase 'desk' only).
+	 * For a collection, give the largest diameter and crown count among its plants.
+	 */
+	measured?: { diameterIn?: number; crowns?: number };
+	/** For a collection entry: the variety of every plant in it, one id per plant. */
+	collectionVarietyIds?: string[];
+}
+
+/** The show's dates and limits, as the show chair set them. */
+export interface ShowContext {
+	showDate: IsoDate;
+	today: IsoDate;
+	/** First day entries are taken (included). */
+	entriesOpen: IsoDate;
+	/** Last day entries are taken (included). */
+	entriesClose: IsoDate;
+	/** Months the exhibitor must have grown the plant by the show date; 0 = no such rule. */
+	possessionMonths: number;
+	/** Entries one exhibitor may have in one class; null = no limit. */
+	maxEntriesPerClass: number | null;
+	/** Entries one exhibitor may have of one variety in the whole show; null = no limit. */
+	maxEntriesPerVariety: number | null;
+	requireGoodStanding: boolean;
+}
+
+/** The exhibitor's standing and existing entries, not counting the entry being checked. */
+export interface ExhibitorContext {
+	inGoodStanding: boolean;
+	/** The exhibitor's other entries in this class. */
+	entriesInClass: number;
+	/** The exhibitor's other entries of this variety in the whole show. */
+	entriesOfVariety: number;
+	/** The exhibitor already has another entry of this variety in this class. */
+	varietyAlreadyInClass: boolean;
+}
+
+/** Every failure code, in the order failures are reported. */
+export const FAILURE_CODES = [
+	'entries_not_yet_open',
+	'entries_closed',
+	'not_in_good_standing',
+	'habit_not_allowed',
+	'size_class_not_allowed',
+	'diameter_over_limit',
+	'too_many_crowns',
+	'too_few_crowns',
+	'blossom_type_not_allowed',
+	'blossom_colour_not_allowed',
+	'foliage_not_allowed',
+	'not_a_species',
+	'collection_wrong_count',
+	'collection_repeats_variety',
+	'collection_in_single_plant_class',
+	'acquired_date_missing',
+	'possession_period_not_reached',
+	'class_entry_limit_reached',
+	'variety_entry_limit_reached',
+	'variety_already_in_class'
+] as const;
+
+/** A stable identifier of one eligibility rule that failed. */
+export type FailureCode = (typeof FAILURE_CODES)[number];
+
+/** One failed rule: a stable code, and one plain sentence naming the numbers involved. */
+export interface RuleFailure {
+	code: FailureCode;
+	message: string;
+}
+
+/** Everything `checkEligibility` needs. */
+export interface EligibilityInput {
+	rules: ClassRules;
+	plant: PlantFacts;
+	show: ShowContext;
+	exhibitor: ExhibitorContext;
+	phase: CheckPhase;
+}
+
+/** The verdict: `fits` is true exactly when `failures` is empty. */
+export interface EligibilityResult {
+	fits: boolean;
+	failures: RuleFailure[];
+}
+
+/** A class of the schedule, as `classesThatFit` needs it. */
+export interface ClassToTry {
+	id: string;
+	rules: ClassRules;
+}
+
+/** Optional context for `classesThatFit`; what is left out is not checked. */
+export interface ClassesThatFitOptions {
+	/** Defaults to 'desk', where moves are proposed. */
+	phase?: CheckPhase;
+	/** When given, the show rules (entry window, possession, limits) are checked too. */
+	show?: ShowContext;
+	/** When given, the exhibitor rules are checked too, with the exhibitor's entries in that class. */
+	exhibitorIn?: (classId: string) => ExhibitorContext;
+}
+
+/** Largest diameter, in inches, of a mature single crown of each size class; null = no upper limit. */
+export const SIZE_LIMITS_IN: Readonly<Record<SizeClass, number | null>> = {
+	miniature: 6,
+	semiminiature: 8,
+	standard: null,
+	large: null
+};
+
+/** Fewest crowns a plant must have to be shown as a trailer. */
+export const TRAILER_MIN_CROWNS = 3;
+
+/** Crowns allowed on an entry shown as a single crown (a sucker is a second crown). */
+export const SINGLE_CROWN_MAX_CROWNS = 1;
+
+/** Measurements are rounded off in conversion; a difference this small is not "over". */
+const LENGTH_TOLERANCE_IN = 1e-9;
+
+const SIZE_CLASS_NAMES: Readonly<Record<SizeClass, string>> = {
+	miniature: 'miniature',
+	semiminiature: 'semiminiature',
+	standard: 'standard',
+	large: 'large'
+};
+
+/**
+ * The largest diameter, in inches, at which a plant of a size class may still
+ * be judged in its class (miniature 6, semiminiature 8); null when the size
+ * class has no upper limit.
+ */
+export function sizeLimitIn(sizeClass: SizeClass): number | null {
+	if (!Object.hasOwn(SIZE_LIMITS_IN, sizeClass)) {
+		throw new RangeError(`Unknown size class '${String(sizeClass)}'.`);
+	}
+	return SIZE_LIMITS_IN[sizeClass];
+}
+
+/**
+ * Decides whether a plant (or collection) may be entered in a show class, and
+ * returns every rule it fails, in the order of `FAILURE_CODES`. In phase
+ * 'entry' the entry window is checked and measurements are ignored; in phase
+ * 'desk' the window is skipped and the clerks' measurements are checked.
+ * Throws a RangeError for input no form should let through (a bad date, a
+ * negative measurement).
+ */
+export function checkEligibility(input: EligibilityInput): EligibilityResult {
+	const { rules, plant, show, exhibitor, phase } = input;
+	return toResult(collectFailures(rules, plant, phase, show, exhibitor));
+}
+
+/**
+ * Lists the ids of the classes a plant fits, in the order given, so the desk
+ * can propose where to move a misclassified entry. Show and exhibitor rules
+ * are checked only when their context is given.
+ */
+export function classesThatFit(
+	plant: PlantFacts,
+	classes: readonly ClassToTry[],
+	options: ClassesThatFitOptions = {}
+): string[] {
+	const phase = options.phase ?? 'desk';
+	return classes
+		.filter(
+			(showClass) =>
+				collectFailures(
+					showClass.rules,
+					plant,
+					phase,
+					options.show,
+					options.exhibitorIn?.(showClass.id)
+				).length === 0
+		)
+		.map((showClass) => showClass.id);
+}
+
+function toResult(failures: RuleFailure[]): EligibilityResult {
+	const order = (code: FailureCode) => FAILURE_CODES.indexOf(code);
+	const sorted = [...failures].sort((a, b) => order(a.code) - order(b.code));
+	return { fits: sorted.length === 0, failures: sorted };
+}
+
+function collectFailures(
+	rules: ClassRules,
+	plant: PlantFacts,
+	phase: CheckPhase,
+	show: ShowContext | undefined,
+	exhibitor: ExhibitorContext | undefined
+): RuleFailure[] {
+	const failures: RuleFailure[] = [];
+	const fail = (code: FailureCode, message: string) => failures.push({ code, message });
+	const name = quoted(plant.varietyName);
+
+	// The show and the exhibitor
+	if (show && phase === 'entry') {
+		if (compareIsoDates(show.today, show.entriesOpen) < 0) {
+			fail(
+				'entries_not_yet_open',
+				`Entries for this show open on ${formatDateLong(show.entriesOpen)}; today is ${formatDateLong(show.today)}.`
+			);
+		} else if (compareIsoDates(show.today, show.entriesClose) > 0) {
+			fail(
+				'entries_closed',
+				`Entries for this show closed on ${formatDateLong(show.entriesClose)}; today is ${formatDateLong(show.today)}.`
+			);
+		}
+	}
+	if (show?.requireGoodStanding && exhibitor && !exhibitor.inGoodStanding) {
+		fail(
+			'not_in_good_standing',
+			'This show is open only to members in good standing, so please renew your membership with the society before entering.'
+		);
+	}
+
+	// The plant against the class
+	if (rules.habit !== 'any' && rules.habit !== plant.habit) {
+		fail(
+			'habit_not_allowed',
+			rules.habit === 'trailer'
+				? `This class is for trailers, and ${name} is a single-crown variety.`
+				: `This class is for single-crown plants, and ${name} is a trailer.`
+		);
+	}
+	if (rules.sizeClasses.length > 0 && !rules.sizeClasses.includes(plant.sizeClass)) {
+		fail(
+			'size_class_not_allowed',
+			`This class is for ${listOf(
+				rules.sizeClasses.map((s) => SIZE_CLASS_NAMES[s]),
+				'or'
+			)} plants, and ${name} is a ${SIZE_CLASS_NAMES[plant.sizeClass]}.`
+		);
+	}
+	if (phase === 'desk') {
+		checkMeasurements(rules, plant, fail);
+	}
+	if (
+		rules.blossomTypes.length > 0 &&
+		!rules.blossomTypes.some((t) => sameWord(t, plant.blossomType))
+	) {
+		fail(
+			'blossom_type_not_allowed',
+			plant.blossomType.trim()
+				? `This class is for ${listOf(rules.blossomTypes, 'or')} blossoms, and ${name} has ${plant.blossomType.trim()} blossoms.`
+				: `This class is for ${listOf(rules.blossomTypes, 'or')} blossoms, and no blossom type is recorded for ${name}.`
+		);
+	}
+	if (
+		rules.blossomColours.length > 0 &&
+		!plant.blossomColours.some((c) => rules.blossomColours.some((allowed) => sameWord(allowed, c)))
+	) {
+		fail(
+			'blossom_colour_not_allowed',
+			plant.blossomColours.length > 0
+				? `This class is for ${listOf(rules.blossomColours, 'or')} blossoms, and ${name} has ${listOf(plant.blossomColours, 'and')} blossoms.`
+				: `This class is for ${listOf(rules.blossomColours, 'or')} blossoms, and no blossom colour is recorded for ${name}.`
+		);
+	}
+	if (rules.foliage !== 'any' && rules.foliage !== plant.foliage) {
+		fail(
+			'foliage_not_allowed',
+			`This class is for ${rules.foliage} foliage, and ${name} has ${plant.foliage} foliage.`
+		);
+	}
+	if (rules.speciesOnly && !plant.isSpecies) {
+		fail('not_a_species', `This class is for species only, and ${name} is a hybrid.`);
+	}
+	checkCollection(rules, plant, fail);
+
+	// How long the exhibitor has grown it
+	if (show && show.possessionMonths > 0) {
+		const months = count(show.possessionMonths, 'month', 'months');
+		if (plant.acquiredOn === null) {
+			fail(
+				'acquired_date_missing',
+				`Please give the date you got ${name}, because this show asks that you have grown a plant for at least ${months}.`
+			);
+		} else if (!hasPossessionPeriod(plant.acquiredOn, show.showDate, show.possessionMonths)) {
+			const reached = possessionReachedOn(plant.acquiredOn, show.possessionMonths);
+			fail(
+				'possession_period_not_reached',
+				`This show asks that you have grown a plant for at least ${months}; you got ${name} on ${formatDateLong(plant.acquiredOn)}, so it qualifies from ${formatDateLong(reached)}, after the show on ${formatDateLong(show.showDate)}.`
+			);
+		}
+	}
+
+	// The exhibitor's other entries
+	if (show && exhibitor) {
+		if (show.maxEntriesPerClass !== null && exhibitor.entriesInClass >= show.maxEntriesPerClass) {
+			fail(
+				'class_entry_limit_reached',
+				`You already have ${count(exhibitor.entriesInClass, 'entry', 'entries')} in this class, and the show allows ${show.maxEntriesPerClass} per exhibitor in a class.`
+			);
+		}
+		if (
+			show.maxEntriesPerVariety !== null &&
+			exhibitor.entriesOfVariety >= show.maxEntriesPerVariety
+		) {
+			fail(
+				'variety_entry_limit_reached',
+				`You already have ${count(exhibitor.entriesOfVariety, 'entry', 'entries')} of ${name} in this show, and the show allows ${show.maxEntriesPerVariety} of each variety per exhibitor.`
+			);
+		}
+	}
+	if (exhibitor?.varietyAlreadyInClass) {
+		fail(
+			'variety_already_in_class',
+			`You already have ${name} in this class, and each variety may be entered only once in a class.`
+		);
+	}
+
+	return failures;
+}
+
+function checkMeasurements(
+	rules: ClassRules,
+	plant: PlantFacts,
+	fail: (code: FailureCode, message: string) => void
+): void {
+	const diameter = plant.measured?.diameterIn;
+	if (diameter !== undefined) {
+		assertMeasure('diameter', diameter);
+		const kind = SIZE_CLASS_NAMES[plant.sizeClass];
+		const ownLimit = sizeLimitIn(plant.sizeClass);
+		const limits: { limit: number; message: string }[] = [];
+		if (ownLimit !== null) {
+			limits.push({
+				limit: ownLimit,
+				message: `At ${inches(diameter)} across, this ${kind} is over the ${inches(ownLimit)} limit for a ${kind}, so it cannot be judged in this class.`
+			});
+		}
+		if (rules.maxDiameterIn !== null) {
+			limits.push({
+				limit: rules.maxDiameterIn,
+				message: `This class takes plants up to ${inches(rules.maxDiameterIn)} across, and this plant measures ${inches(diameter)}.`
+			});
+		}
+		const exceeded = limits
+			.filter(({ limit }) => diameter > limit + LENGTH_TOLERANCE_IN)
+			.sort((a, b) => a.limit - b.limit)[0];
+		if (exceeded) fail('diameter_over_limit', exceeded.message);
+	}
+
+	const crowns = plant.measured?.crowns;
+	if (crowns !== undefined) {
+		assertMeasure('crown count', crowns);
+		if (!Number.isInteger(crowns)) {
+			throw new RangeError(`A crown count must be a whole number, not ${crowns}.`);
+		}
+		const singleCrown = plant.habit === 'single_crown' && !plant.isSpecies;
+		const maxCrowns = rules.maxCrowns ?? (singleCrown ? SINGLE_CROWN_MAX_CROWNS : null);
+		const minCrowns = rules.minCrowns ?? (plant.habit === 'trailer' ? TRAILER_MIN_CROWNS : null);
+		if (maxCrowns !== null && crowns > maxCrowns) {
+			fail(
+				'too_many_crowns',
+				rules.maxCrowns === null
+					? `A single-crown entry must have only one crown, and this plant has ${crowns}, so the ${count(crowns - 1, 'sucker', 'suckers')} must come off before it can be shown in this class.`
+					: `This class allows at most ${count(maxCrowns, 'crown', 'crowns')}, and this plant has ${crowns}.`
+			);
+		}
+		if (minCrowns !== null && crowns < minCrowns) {
+			fail(
+				'too_few_crowns',
+				rules.minCrowns === null
+					? `A trailer needs at least ${count(minCrowns, 'crown', 'crowns')} to be shown as a trailer, and this plant has ${crowns}.`
+					: `This class needs at least ${count(minCrowns, 'crown', 'crowns')}, and this plant has ${crowns}.`
+			);
+		}
+	}
+}
+
+function checkCollection(
+	rules: ClassRules,
+	plant: PlantFacts,
+	fail: (code: FailureCode, message: string) => void
+): void {
+	const ids = plant.collectionVarietyIds ?? [];
+	if (rules.collectionSize === null) {
+		if (ids.length > 1) {
+			fail(
+				'collection_in_single_plant_class',
+				`This class takes a single plant, and this entry is a collection of ${ids.length} plants.`
+			);
+		}
+		return;
+	}
+	const size = rules.collectionSize;
+	const different = new Set(ids).size;
+	if (ids.length !== size) {
+		fail(
+			'collection_wrong_count',
+			`This collection class takes ${size} different named varieties, and this entry has ${count(ids.length, 'plant', 'plants')}.`
+		);
+	}
+	if (different < ids.length) {
+		fail(
+			'collection_repeats_variety',
+			`A collection must be made of different named varieties, and this entry has ${count(ids.length, 'plant', 'plants')} of only ${count(different, 'variety', 'varieties')}.`
+		);
+	}
+}
+
+function assertMeasure(what: string, value: number): void {
+	if (!Number.isFinite(value) || value < 0) {
+		throw new RangeError(
+			`A measured ${what} must be a finite number of zero or more, not ${value}.`
+		);
+	}
+}
+
+function sameWord(a: string, b: string): boolean {
+	const plain = (s: string) => s.toLowerCase().replace(/[\s_-]+/g, '');
+	return plain(a) === plain(b);
+}
+
+function quoted(varietyName: string): string {
+	const trimmed = varietyName.trim();
+	return trimmed ? `"${trimmed}"` : 'this variety';
+}
+
+function inches(value: number): string {
+	return `${Number(value.toFixed(2))} in`;
+}
+
+function count(n: number, one: string, many: string): string {
+	return `${n} ${n === 1 ? one : many}`;
+}
+
+function listOf(items: readonly string[], joiner: 'and' | 'or'): string {
+	if (items.length <= 1) return items.join('');
+	return `${items.slice(0, -1).join(', ')} ${joiner} ${items[items.length - 1]}`;
+}

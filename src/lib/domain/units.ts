@@ -1,0 +1,64 @@
+/** A unit of length that a grower may measure a plant or a pot in. */
+export type LengthUnit = 'in' | 'cm';
+
+/** Centimetres in one inch, exact by definition (NIST SP 811). */
+export const CM_PER_INCH = 2.54;
+
+/** The units in the order the forms list them. */
+export const LENGTH_UNITS: readonly LengthUnit[] = ['in', 'cm'];
+
+/**
+ * Tells whether a value is one of our length units, so that untyped input
+ * (a form field, a query string) can be narrowed before it is converted.
+ */
+export function isLengthUnit(value: unknown): value is LengthUnit {
+	return value === 'in' || value === 'cm';
+}
+
+function assertLength(value: number): void {
+	if (!Number.isFinite(value)) {
+		throw new RangeError(`A length must be a finite number, not ${value}.`);
+	}
+	if (value < 0) {
+		throw new RangeError(`A length cannot be negative, not ${value}.`);
+	}
+}
+
+function assertUnit(unit: LengthUnit): void {
+	if (!isLengthUnit(unit)) {
+		throw new RangeError(`Unknown length unit '${String(unit)}'; use 'in' or 'cm'.`);
+	}
+}
+
+/**
+ * Converts a length to inches. The trade rules (size classes, show limits)
+ * are stated in inches, so every measurement is compared in inches.
+ * Throws a RangeError for a negative or non-finite length.
+ */
+export function toInches(value: number, unit: LengthUnit): number {
+	assertLength(value);
+	assertUnit(unit);
+	return unit === 'in' ? value : value / CM_PER_INCH;
+}
+
+/**
+ * Converts a length to centimetres, for growers who measure in metric.
+ * Throws a RangeError for a negative or non-finite length.
+ */
+export function toCentimetres(value: number, unit: LengthUnit): number {
+	assertLength(value);
+	assertUnit(unit);
+	return unit === 'cm' ? value : value * CM_PER_INCH;
+}
+
+/**
+ * Formats a length held in inches for display in the reader's unit,
+ * with a fixed number of decimals (default 1), e.g. `6.0 in` or `15.2 cm`.
+ */
+export function formatLength(inches: number, unit: LengthUnit, digits = 1): string {
+	if (!Number.isInteger(digits) || digits < 0 || digits > 20) {
+		throw new RangeError(`digits must be a whole number from 0 to 20, not ${digits}.`);
+	}
+	const value = unit === 'in' ? toInches(inches, 'in') : toCentimetres(inches, 'in');
+	return `${value.toFixed(digits)} ${unit}`;
+}

@@ -1,0 +1,19 @@
+import { z } from 'zod';
+
+/** Only paths inside Crownbench may follow a sign-in (no open redirects). */
+export const safeNextPath = z
+	.string()
+	.regex(/^\/(?![/\\])[^\s]*$/, 'Not a path inside Crownbench.')
+	.max(500)
+	.catch('/home');
+
+/** The sign-in form: an e-mail address, and where to go afterwards. */
+export const signInSchema = z.object({
+	email: z
+		.string({ error: 'Enter your e-mail address.' })
+		.trim()
+		.min(1, 'Enter your e-mail address.')
+		.max(254, 'That address is too long.')
+		.pipe(z.email('Enter a complete e-mail address, like name@example.org.')),
+	redirectTo: safeNextPath
+});

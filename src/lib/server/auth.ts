@@ -1,0 +1,54 @@
+import SequelizeAdapter, { type SequelizeAdapterOptions } from '@auth/sequelize-adapter';
+import { SvelteKitAuth } from '@auth/sveltekit';
+import Nodemailer from '@auth/sveltekit/providers/nodemailer';
+import { Account, Session, User, VerificationToken, sequelize } from './db';
+import { buildSignInMessage } from './mail/sign-in-message';
+import { mailFrom, sendMail, smtpUrl } from './mail/transport';
+
+/** How long a sign-in link works. */
+export const SIGN_IN_LINK_MINUTES = 30;
+
+function authSecret(): string | undefined {
+	if (process.env.AUTH_SECRET) return process.env.AUTH_SECRET;
+	// Development only: production refuses to start without AUTH_SECRET (Auth.js checks).
+	return process.env.NODE_ENV === 'production' ? undefined : 'crownbench-development-only-secret';
+}
+
+/** Auth.js set-up: e-mail link sign-in, sessions kept in PostgreSQL. */
+export const {
+	handle: authHandle,
+	signIn,
+	signOut
+} = SvelteKitAuth({
+	adapter: SequelizeAdapter(sequelize, {
+		// Our models carry the same columns as the adapter's own; their TypeScript shapes differ.
+		models: {
+			User,
+			Account,
+			Session,
+			VerificationToken
+		} as unknown as SequelizeAdapterOptions['models'],
+		synchronize: false
+	}),
+	providers: [
+		Nodemailer({
+			server: smtpUrl(),
+			from: mailFrom(),
+			maxAge: SIGN_IN_LINK_MINUTES * 60,
+			async sendVerificationRequest({ identifier, url }) {
+				const { host } = new URL(url);
+				await sendMail({ to: identifier, ...buildSignInMessage(url, host, SIGN_IN_LINK_MINUTES) });
+			}
+		})
+	],
+	session: { strategy: 'database', maxAge: 30 * 24 * 60 * 60, updateAge: 24 * 60 * 60 },
+	secret: authSecret(),
+	trustHost: true,
+	pages: { signIn: '/signin', verifyRequest: '/signin/check-mail', error: '/signin/problem' },
+	callbacks: {
+		session({ session, user }) {
+			session.user.id = user.id;
+			return session;
+		}
+	}
+});

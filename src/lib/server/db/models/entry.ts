@@ -1,0 +1,57 @@
+import {
+	DataTypes,
+	Model,
+	type CreationOptional,
+	type ForeignKey,
+	type InferAttributes,
+	type InferCreationAttributes,
+	type Sequelize
+} from 'sequelize';
+
+export type EntryStatus = 'entered' | 'checked_in' | 'scratched' | 'withdrawn';
+
+/** A plant (or collection, or design) entered by an exhibitor in a class; known to judges only by number. */
+export class Entry extends Model<InferAttributes<Entry>, InferCreationAttributes<Entry>> {
+	declare id: CreationOptional<string>;
+	declare showId: ForeignKey<string>;
+	declare classId: ForeignKey<string>;
+	declare exhibitorId: ForeignKey<string>;
+	declare varietyId: ForeignKey<string> | null;
+	declare collectionVarietyIds: CreationOptional<string[]>;
+	declare title: string | null;
+	declare number: number;
+	declare acquiredOn: string | null;
+	declare status: CreationOptional<EntryStatus>;
+	declare measuredDiameterIn: string | null;
+	declare measuredCrowns: number | null;
+	declare potSizeIn: string | null;
+	declare checkedInAt: Date | null;
+	declare checkedInBy: string | null;
+	declare createdAt: CreationOptional<Date>;
+	declare updatedAt: CreationOptional<Date>;
+
+	static initModel(sequelize: Sequelize): typeof Entry {
+		return Entry.init(
+			{
+				id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+				collectionVarietyIds: {
+					type: DataTypes.ARRAY(DataTypes.UUID),
+					allowNull: false,
+					defaultValue: []
+				},
+				title: { type: DataTypes.STRING(160) },
+				number: { type: DataTypes.INTEGER, allowNull: false },
+				acquiredOn: { type: DataTypes.DATEONLY },
+				status: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'entered' },
+				measuredDiameterIn: { type: DataTypes.DECIMAL(5, 2) },
+				measuredCrowns: { type: DataTypes.INTEGER },
+				potSizeIn: { type: DataTypes.DECIMAL(4, 2) },
+				checkedInAt: { type: DataTypes.DATE },
+				checkedInBy: { type: DataTypes.UUID },
+				createdAt: { type: DataTypes.DATE, defaultValue: DataTypes.NOW },
+				updatedAt: { type: DataTypes.DATE, defaultValue: DataTypes.NOW }
+			},
+			{ sequelize, tableName: 'entries', underscored: true, timestamps: true }
+		);
+	}
+}

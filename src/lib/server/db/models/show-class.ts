@@ -1,0 +1,68 @@
+import {
+	DataTypes,
+	Model,
+	type CreationOptional,
+	type ForeignKey,
+	type InferAttributes,
+	type InferCreationAttributes,
+	type Sequelize
+} from 'sequelize';
+
+/** A class of a show schedule with its structured eligibility rules. */
+export class ShowClass extends Model<
+	InferAttributes<ShowClass>,
+	InferCreationAttributes<ShowClass>
+> {
+	declare id: CreationOptional<string>;
+	declare showId: ForeignKey<string>;
+	declare divisionId: ForeignKey<string>;
+	declare scaleId: ForeignKey<string> | null;
+	declare code: string;
+	declare name: string;
+	declare description: string | null;
+	declare position: CreationOptional<number>;
+	declare habit: CreationOptional<'single_crown' | 'trailer' | 'any'>;
+	declare sizeClasses: CreationOptional<string[]>;
+	declare blossomTypes: CreationOptional<string[]>;
+	declare blossomColours: CreationOptional<string[]>;
+	declare foliage: CreationOptional<'plain' | 'variegated' | 'any'>;
+	declare minCrowns: number | null;
+	declare maxCrowns: number | null;
+	declare collectionSize: number | null;
+	declare speciesOnly: CreationOptional<boolean>;
+	declare maxDiameterIn: string | null;
+
+	static initModel(sequelize: Sequelize): typeof ShowClass {
+		const texts = () => ({
+			type: DataTypes.ARRAY(DataTypes.STRING(40)),
+			allowNull: false,
+			defaultValue: []
+		});
+		return ShowClass.init(
+			{
+				id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+				code: { type: DataTypes.STRING(8), allowNull: false },
+				name: { type: DataTypes.STRING(160), allowNull: false },
+				description: { type: DataTypes.TEXT },
+				position: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+				habit: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'any' },
+				sizeClasses: texts(),
+				blossomTypes: texts(),
+				blossomColours: texts(),
+				foliage: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'any' },
+				minCrowns: { type: DataTypes.INTEGER },
+				maxCrowns: { type: DataTypes.INTEGER },
+				collectionSize: { type: DataTypes.INTEGER },
+				speciesOnly: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+				maxDiameterIn: { type: DataTypes.DECIMAL(5, 2) }
+			},
+			{
+				sequelize,
+				tableName: 'classes',
+				modelName: 'showClass',
+				underscored: true,
+				timestamps: false
+			}
+		);
+	}
+}

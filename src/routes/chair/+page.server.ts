@@ -1,0 +1,8 @@
+import { requireRole, societiesWithRole } from '$lib/server/policies';
+import { listShowsOfSocieties } from '$lib/server/services/shows';
+import type { PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	const user = requireRole(event, ['chair']);
+	return { shows: await listShowsOfSocieties(societiesWithRole(user, ['chair'])) };
+};

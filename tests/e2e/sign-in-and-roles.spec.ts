@@ -1,0 +1,114 @@
+import { expect, test } from '@playwright/test';
+import { expectAccessible } from './support/axe';
+import { requestSignInLink, signIn } from './support/session';
+
+// Each demo role signs in by e-mail link, lands on its own page, and is refused another role's page.
+const roles = [
+	{
+		email: 'admin@crownbench.test',
+		home: '/admin',
+		link: 'Society admin',
+		heading: 'Society admin',
+		refused: '/judging'
+	},
+	{
+		email: 'chair@crownbench.test',
+		home: '/chair',
+		link: 'Show chair',
+		heading: 'Show chair',
+		refused: '/admin'
+	},
+	{
+		email: 'clerk@crownbench.test',
+		home: '/desk',
+		link: 'Clerk',
+		heading: 'Entry desk',
+		refused: '/chair'
+	},
+	{
+		email: 'judge1@crownbench.test',
+		home: '/judging',
+		link: 'Judge',
+		heading: 'Judging',
+		refused: '/desk'
+	},
+	{
+		email: 'member@crownbench.test',
+		home: '/my',
+		link: 'Member',
+		heading: 'My entries',
+		refused: '/chair'
+	}
+];
+
+for (const role of roles) {
+	test(`${role.heading}: signs in by e-mail link and is refused ${role.refused}`, async ({
+		page
+	}) => {
+		await signIn(page, role.email);
+		if (!page.url().endsWith(role.home)) {
+			await expect(page).toHaveURL(/\/home$/);
+			await page.getByRole('main').getByRole('link', { name: role.link, exact: true }).click();
+		}
+		await expect(page).toHaveURL(new RegExp(`${role.home}$`));
+		await expect(page.getByRole('heading', { level: 1, name: role.heading })).toBeVisible();
+		await expectAccessible(page);
+
+		const refused = await page.goto(role.refused);
+		expect(refused?.status()).toBe(403);
+		await expect(
+			page.getByText('Your account does not have the role this page needs.')
+		).toBeVisible();
+		await expect(page.getByRole('link', { name: 'Go to the start page' })).toBeVisible();
+	});
+}
+
+test('a signed-out visitor is sent to sign in, and an API answers 401', async ({
+	page,
+	request
+}) => {
+	await page.goto('/chair');
+	await expect(page).toHaveURL(/\/signin\?next=%2Fchair$/);
+	await expectAccessible(page);
+	const api = await request.get('/api/chair/shows');
+	expect(api.status()).toBe(401);
+});
+
+test('a new address gets an account that sees only public pages', async ({ page }) => {
+	const email = `newcomer-${Date.now()}@crownbench.test`;
+	await signIn(page, email);
+	await expect(page.getByText('Your account is ready')).toBeVisible();
+	await expectAccessible(page);
+	const refused = await page.goto('/my');
+	expect(refused?.status()).toBe(403);
+	await page.goto('/');
+	await expect(page.getByRole('heading', { level: 1, name: 'Plant society shows' })).toBeVisible();
+	await expectAccessible(page);
+});
+
+test('a malformed address gets a clear message and sends nothing', async ({ page }) => {
+	await page.goto('/signin');
+	await page.getByLabel('E-mail address').fill('not-an-address');
+	await page.getByRole('button', { name: 'Send me a sign-in link' }).click();
+	await expect(page.getByText('Enter a complete e-mail address')).toBeVisible();
+	await expect(page.getByLabel('E-mail address')).toHaveAttribute('aria-invalid', 'true');
+	await expectAccessible(page);
+});
+
+test('a sign-in link works once', async ({ page, context }) => {
+	const link = await requestSignInLink(page, 'judge2@crownbench.test');
+	await page.goto(link);
+	await expect(page.getByRole('heading', { level: 1, name: 'Judging' })).toBeVisible();
+	await context.clearCookies();
+	await page.goto(link);
+	await expect(page).toHaveURL(/\/signin\/problem/);
+	await expect(page.getByText('expired or has already been used')).toBeVisible();
+});
+
+test('signing out ends the session', async ({ page }) => {
+	await signIn(page, 'clerk@crownbench.test');
+	await page.getByRole('button', { name: 'Sign out' }).click();
+	await expect(page.getByRole('link', { name: 'Sign in' })).toBeVisible();
+	await page.goto('/desk');
+	await expect(page).toHaveURL(/\/signin/);
+});
