@@ -20,7 +20,9 @@ if ! command -v chromium >/dev/null 2>&1; then
 	apt-get install -y -qq chromium >/dev/null
 fi
 
-./docker-less-db.sh start crownbench_test crownbench_e2e
+test_db="${CB_TEST_DB:-crownbench_test}"
+e2e_db="${CB_E2E_DB:-crownbench_e2e}"
+./docker-less-db.sh start "$test_db" "$e2e_db"
 
 export SMTP_FAKE_PORT="${TEST_SMTP_PORT:-2535}" SMTP_FAKE_HTTP_PORT="${TEST_SMTP_HTTP_PORT:-2536}"
 export SMTP_URL="smtp://127.0.0.1:$SMTP_FAKE_PORT"
@@ -52,7 +54,7 @@ step() {
 e2e() {
 	local port="${TEST_APP_PORT:-4173}"
 	export DATABASE_URL
-	DATABASE_URL="$(./docker-less-db.sh url crownbench_e2e)"
+	DATABASE_URL="$(./docker-less-db.sh url "$e2e_db")"
 	npx tsx scripts/db.ts reset || return 1
 	PORT="$port" HOST=127.0.0.1 ORIGIN="http://127.0.0.1:$port" node build >.data/e2e-app.log 2>&1 &
 	local app=$!
@@ -70,7 +72,7 @@ step "format (prettier)" npx prettier --check .
 step "lint (eslint)" npx eslint . --max-warnings 0
 step "types (svelte-check)" npm run --silent check
 step "unit tests (vitest)" npx vitest run
-step "integration tests (vitest + PostgreSQL)" env DATABASE_URL="$(./docker-less-db.sh url crownbench_test)" \
+step "integration tests (vitest + PostgreSQL)" env DATABASE_URL="$(./docker-less-db.sh url "$test_db")" \
 	npx vitest run --config vitest.integration.config.ts
 step "build (vite)" npx vite build --logLevel warn
 step "browser tests (playwright + chromium)" e2e
