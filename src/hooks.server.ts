@@ -1,8 +1,9 @@
-import { error, type Handle, type HandleServerError } from '@sveltejs/kit';
+import { error, type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { authHandle } from '$lib/server/auth';
 import { DATABASE_DOWN_MESSAGE, isDatabaseDown } from '$lib/server/db/connection';
 import { AREA_ROLES, areaOf, requireRole, requireUser } from '$lib/server/policies';
+import { startOutboxWorker } from '$lib/server/mail/outbox';
 import { loadSignedInUser } from '$lib/server/services/people';
 
 const SESSION_COOKIES = ['authjs.session-token', '__Secure-authjs.session-token'];
@@ -60,4 +61,12 @@ export const handleError: HandleServerError = ({ error: err, status }) => {
 	if (status === 404) return { message: 'This page does not exist.' };
 	console.error(err);
 	return { message: 'Something went wrong on our side. Please try again.' };
+};
+
+/**
+ * Each app process also sends the outbox unless CB_OUTBOX_WORKER=off (then run
+ * `npm run worker` as its own process). Several senders are safe: rows are claimed with SKIP LOCKED.
+ */
+export const init: ServerInit = () => {
+	if (process.env.CB_OUTBOX_WORKER !== 'off') startOutboxWorker();
 };
