@@ -5,6 +5,8 @@ import { DATABASE_DOWN_MESSAGE, isDatabaseDown } from '$lib/server/db/connection
 import { AREA_ROLES, areaOf, requireRole, requireUser } from '$lib/server/policies';
 import { startOutboxWorker } from '$lib/server/mail/outbox';
 import { loadSignedInUser } from '$lib/server/services/people';
+import { startReminderSchedule } from '$lib/server/services/reminders';
+import { todayIso } from '$lib/schemas/plants';
 
 const SESSION_COOKIES = ['authjs.session-token', '__Secure-authjs.session-token'];
 
@@ -69,4 +71,6 @@ export const handleError: HandleServerError = ({ error: err, status }) => {
  */
 export const init: ServerInit = () => {
 	if (process.env.CB_OUTBOX_WORKER !== 'off') startOutboxWorker();
+	// Entry reminders: an hourly check queues them once per show and member (CB_REMINDERS=off stops it).
+	if (process.env.CB_REMINDERS !== 'off') startReminderSchedule(todayIso);
 };

@@ -147,7 +147,7 @@ export function currentMeasurements(
 	habit: PlantFacts['habit'],
 	events: readonly LoggedEvent[]
 ): PlantReadiness['lastMeasured'] {
-	let result: PlantReadiness['lastMeasured'] = null;
+	let result = null as PlantReadiness['lastMeasured'];
 	for (const event of inDateOrder(events)) {
 		if (event.kind === 'measured') {
 			result = {
