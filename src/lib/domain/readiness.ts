@@ -285,7 +285,7 @@ function suckerNeed(
 	const what = suckers === 1 ? 'the sucker' : `the ${suckers} suckers`;
 	return {
 		code: 'remove_suckers',
-		message: `The last log (${formatDateLong(measured.on)}) shows ${measured.crowns} crowns: remove ${what} before entry day, ${formatDateLong(show.entryDay)}. The sooner they come off, the longer the rosette has to fill the gap.`,
+		message: `The last log (${formatDateLong(measured.on)}) shows ${measured.crowns} crowns: remove ${what} before entry day, ${formatDateLong(show.entryDay)}. Taking suckers off early gives the rosette longer to fill the gap.`,
 		by: show.entryDay
 	};
 }
