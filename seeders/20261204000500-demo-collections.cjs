@@ -145,9 +145,11 @@ module.exports = {
 	},
 
 	async down(queryInterface) {
+		// Every plant grown from the demo registries (also those added while trying the demo).
 		await queryInterface.sequelize.query(
-			`DELETE FROM plants WHERE owner_id IN (SELECT id FROM users WHERE email IN (:emails))`,
-			{ replacements: { emails: OWNERS } }
+			`DELETE FROM plants WHERE variety_id IN (
+			   SELECT v.id FROM varieties v JOIN societies s ON s.id = v.society_id
+			    WHERE s.slug IN ('larkspur-valley', 'cedar-ridge'))`
 		);
 	}
 };
