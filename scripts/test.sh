@@ -28,6 +28,9 @@ export SMTP_FAKE_PORT="${TEST_SMTP_PORT:-2535}" SMTP_FAKE_HTTP_PORT="${TEST_SMTP
 export SMTP_URL="smtp://127.0.0.1:$SMTP_FAKE_PORT"
 export CB_DEV_MAIL_URL="http://127.0.0.1:$SMTP_FAKE_HTTP_PORT"
 export AUTH_SECRET="test-secret-$(date +%s)-$RANDOM"
+# Browser tests sign the same demo people in many times: a roomier limit per address, and all
+# of them come from 127.0.0.1. A test checks that the limit per address still bites.
+export CB_SIGNIN_LIMIT_PER_ADDRESS="${CB_SIGNIN_LIMIT_PER_ADDRESS:-30}" CB_SIGNIN_LIMIT_PER_IP="${CB_SIGNIN_LIMIT_PER_IP:-100000}"
 start_smtp_fake
 trap stop_background EXIT INT TERM
 set +e
@@ -62,8 +65,7 @@ e2e() {
 	wait_for_url "http://127.0.0.1:$port/" 30 || { cat .data/e2e-app.log; return 1; }
 	E2E_BASE_URL="http://127.0.0.1:$port" npx playwright test
 	local rc=$?
-	kill "$app" 2>/dev/null
-	wait "$app" 2>/dev/null
+	stop_pid "$app"
 	[ $rc -eq 0 ] || { echo "--- app log"; tail -50 .data/e2e-app.log; }
 	return $rc
 }
