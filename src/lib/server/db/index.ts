@@ -3,7 +3,11 @@ import { Account, Session, VerificationToken } from './models/auth-records';
 import { Division } from './models/division';
 import { Entry } from './models/entry';
 import { Membership } from './models/membership';
+import { Panel } from './models/panel';
+import { PanelClass } from './models/panel-class';
+import { PanelJudge } from './models/panel-judge';
 import { Scale } from './models/scale';
+import { ScoreSheet } from './models/score-sheet';
 import { Show } from './models/show';
 import { ShowClass } from './models/show-class';
 import { Society } from './models/society';
@@ -25,6 +29,10 @@ Show.initModel(sequelize);
 Division.initModel(sequelize);
 ShowClass.initModel(sequelize);
 Entry.initModel(sequelize);
+Panel.initModel(sequelize);
+PanelJudge.initModel(sequelize);
+PanelClass.initModel(sequelize);
+ScoreSheet.initModel(sequelize);
 
 Membership.belongsTo(Society, { foreignKey: 'societyId', as: 'society' });
 Membership.belongsTo(User, { foreignKey: 'userId', as: 'user' });
@@ -49,12 +57,19 @@ Entry.belongsTo(User, { foreignKey: 'exhibitorId', as: 'exhibitor' });
 Entry.belongsTo(Variety, { foreignKey: 'varietyId', as: 'variety' });
 ShowClass.hasMany(Entry, { foreignKey: 'classId', as: 'entries' });
 
+Panel.belongsTo(Show, { foreignKey: 'showId', as: 'show' });
+Show.hasMany(Panel, { foreignKey: 'showId', as: 'panels' });
+
 export {
 	Account,
 	Division,
 	Entry,
 	Membership,
+	Panel,
+	PanelClass,
+	PanelJudge,
 	Scale,
+	ScoreSheet,
 	Session,
 	Show,
 	ShowClass,
