@@ -439,7 +439,7 @@ export async function saveSheet(
 			: blankSheet(access.scale, entry.id, kind);
 		if (change.baseVersion !== before.version) {
 			throw new Refusal(
-				'Someone else on your panel changed this sheet meanwhile. Their version is shown.',
+				'This sheet was changed meanwhile by another member of your panel (or on another device). Their version is shown.',
 				409,
 				undefined,
 				before

@@ -5,6 +5,7 @@
 import { QueryTypes, type Transaction } from 'sequelize';
 import {
 	computeAwards,
+	validateAwardRules,
 	type AwardResult,
 	type AwardRules,
 	type Award,
@@ -19,6 +20,9 @@ import {
 	type ScaleOfPoints
 } from '$lib/domain/scoring';
 import { readAwardRules } from '$lib/schemas/award-rules';
+import type { AwardLine, Board, BoardClass } from '$lib/judging/types';
+
+export type { AwardLine, Board, BoardClass };
 import { sequelize } from '../db';
 import { Refusal } from './refusal';
 
@@ -179,33 +183,6 @@ export async function loadShowJudging(
 	};
 }
 
-/** One row of the progress board. */
-export interface BoardClass {
-	id: string;
-	code: string;
-	name: string;
-	division: string;
-	panel: string | null;
-	entries: number;
-	scored: number;
-	notJudged: number;
-	left: number;
-	missingSheets: number;
-	state: 'no_entries' | 'no_panel' | 'waiting' | 'in_progress' | 'judged';
-}
-
-/** The progress board: per class and in total. */
-export interface Board {
-	published: boolean;
-	method: PanelMethod;
-	classesJudged: number;
-	classesWithEntries: number;
-	entriesLeft: number;
-	sheetsMissing: number;
-	classes: BoardClass[];
-	checkedAt: string;
-}
-
 /** Summarises where judging stands, for the chair's live board. */
 export async function loadBoard(showId: string): Promise<Board> {
 	const judging = await loadShowJudging(showId);
@@ -277,17 +254,6 @@ export function awardsOf(judging: ShowJudging): AwardResult {
 		rules: judging.rules,
 		scale
 	});
-}
-
-/** An award as the chair reads it. */
-export interface AwardLine {
-	kind: Award['kind'];
-	title: string;
-	classCode: string | null;
-	entryNumber: number | null;
-	exhibitor: string | null;
-	score: number | null;
-	reason: string;
 }
 
 const LEVEL_TITLES: Record<string, string> = {
@@ -523,4 +489,60 @@ export async function listScoreAudit(showId: string, limit = 100) {
 		after: r.after.total,
 		notJudged: r.after.notJudged !== null
 	}));
+}
+
+/** The award rules page: the show's rules, its classes and the criteria a tie-break may name. */
+export async function loadAwardRulesPage(showId: string) {
+	const judging = await loadShowJudging(showId);
+	const criteria = new Map<string, string>();
+	for (const c of judging.classes) for (const k of c.scale.criteria) criteria.set(k.key, k.label);
+	return {
+		rules: judging.rules,
+		method: judging.show.method,
+		published: judging.show.published,
+		classes: judging.classes.map((c) => ({
+			id: c.id,
+			code: c.code,
+			name: c.name,
+			division: c.division
+		})),
+		criteria: [...criteria.entries()].map(([key, label]) => ({ key, label }))
+	};
+}
+
+/**
+ * Stores a show's award rules and panel score method after checking them (validateAwardRules,
+ * classes of this show only); refused once results are published.
+ */
+export async function saveAwardRules(
+	show: { id: string; resultsPublishedAt: Date | null },
+	rules: AwardRules,
+	method: PanelMethod,
+	options: { transaction: Transaction }
+): Promise<void> {
+	const { transaction } = options;
+	if (show.resultsPublishedAt) {
+		throw new Refusal('Results are published: the award rules can no longer change.', 423);
+	}
+	const problems = validateAwardRules(rules);
+	if (problems.length > 0) throw new Refusal(problems[0].message, 400, problems[0].field);
+	const classIds = [...new Set(rules.topAwards.flatMap((t) => t.classIds))];
+	if (classIds.length > 0) {
+		const found = await sequelize.query<{ n: string }>(
+			'SELECT count(*) AS n FROM classes WHERE show_id = :showId AND id IN (:classIds)',
+			{ replacements: { showId: show.id, classIds }, type: QueryTypes.SELECT, transaction }
+		);
+		if (Number(found[0].n) !== classIds.length) {
+			throw new Refusal(
+				'A top award names a class that is not part of this show.',
+				400,
+				'topAwards'
+			);
+		}
+	}
+	await sequelize.query(
+		`UPDATE shows SET award_rules = CAST(:rules AS jsonb), panel_score_method = :method, updated_at = now()
+		  WHERE id = :showId`,
+		{ replacements: { rules: JSON.stringify(rules), method, showId: show.id }, transaction }
+	);
 }
