@@ -27,7 +27,7 @@ export class SheetSync {
 	/** The server's version of each sheet as last confirmed; changes are made on it. */
 	private known: Record<string, number> = {};
 	/** Versions this tablet's own changes moved each sheet through (base → new), to send later changes on. */
-	private moved: Record<string, Map<number, number>> = {};
+	private moved: Record<string, Record<number, number>> = {};
 	private flushing: Promise<void> | null = null;
 
 	constructor(
@@ -112,7 +112,7 @@ export class SheetSync {
 				}
 				if (outcome.kind === 'saved') {
 					if (outcome.sheet.version !== baseVersion) {
-						(this.moved[next.entryId] ??= new Map()).set(baseVersion, outcome.sheet.version);
+						(this.moved[next.entryId] ??= {})[baseVersion] = outcome.sheet.version;
 					}
 					await acknowledge({ ...next, baseVersion }, outcome.sheet.version);
 					this.known[next.entryId] = outcome.sheet.version;
@@ -146,8 +146,7 @@ export class SheetSync {
 	private rebased(change: QueuedChange): number {
 		let base = change.baseVersion;
 		const moves = this.moved[change.entryId];
-		for (let guard = 0; moves?.has(base) && guard < 10_000; guard++)
-			base = moves.get(base) as number;
+		for (let guard = 0; moves && base in moves && guard < 10_000; guard++) base = moves[base];
 		return base;
 	}
 
