@@ -40,6 +40,9 @@ async function score(page: Page, deduct: number[]) {
 
 const sum = (xs: number[]) => xs.reduce((a, b) => a + b, 0);
 
+/** Changes one entry takes in `score`: four typed criteria and one click per half point. */
+const changesOf = (s: { deduct: number[] }) => CRITERIA.length - 1 + s.deduct[4] * 2;
+
 /** Keeps the body of every page and data answer the judge's browser receives. */
 function recordAnswers(page: Page): Promise<string>[] {
 	const bodies: Promise<string>[] = [];
@@ -75,8 +78,11 @@ test('a judge scores a class on a tablet, offline for part of it, and the board 
 	).toBeVisible();
 	await expectAccessible(page);
 
-	// Touch targets of at least 44 px on the scoresheet.
-	for (const target of await page.locator('main button, main input, main select').all()) {
+	// Touch targets of at least 44 px on the scoresheet (a radio button's target is its label).
+	const targets = page.locator(
+		'main button, main input:not([type=radio]), main select, main label:has(input[type=radio])'
+	);
+	for (const target of await targets.all()) {
 		const box = await target.boundingBox();
 		if (box) expect(box.height).toBeGreaterThanOrEqual(44);
 	}
@@ -94,7 +100,8 @@ test('a judge scores a class on a tablet, offline for part of it, and the board 
 	const chair = await chairContext.newPage();
 	await signIn(chair, 'chair@crownbench.test');
 	await chair.goto(`/chair/shows/${show.slug}/board`);
-	await expect(chair.getByTestId('entries-left')).toHaveText('2');
+	// Two entries of class 1 left, and the entry of class 2, which has no panel yet.
+	await expect(chair.getByTestId('entries-left')).toHaveText('3');
 	await expectAccessible(chair);
 
 	// The network goes; the judge keeps scoring, moving between entries without the server.
@@ -107,7 +114,9 @@ test('a judge scores a class on a tablet, offline for part of it, and the board 
 	await page.getByRole('button', { name: 'Next entry' }).click();
 	await score(page, SHEETS[3].deduct);
 	await expect(sync).toHaveAttribute('data-sync', 'waiting');
-	await expect(sync).toContainText('Waiting to send 10 changes');
+	await expect(sync).toContainText(
+		`Waiting to send ${changesOf(SHEETS[2]) + changesOf(SHEETS[3])} changes`
+	);
 	const whileOffline = await withDb(
 		async (db) =>
 			(
@@ -135,14 +144,15 @@ test('a judge scores a class on a tablet, offline for part of it, and the board 
 	);
 	// Five criteria per entry, the last by half points: one version and one audit row per change.
 	expect(stored).toEqual(
-		SHEETS.map((s, i) => {
-			const changes = 4 + s.deduct[4] * 2;
-			return { number: show.entries[i].number, version: changes, audits: changes };
-		})
+		SHEETS.map((s, i) => ({
+			number: show.entries[i].number,
+			version: changesOf(s),
+			audits: changesOf(s)
+		}))
 	);
 
 	// The board follows without a reload; the awards match the scores.
-	await expect(chair.getByTestId('entries-left')).toHaveText('0', { timeout: 15_000 });
+	await expect(chair.getByTestId('entries-left')).toHaveText('1', { timeout: 15_000 });
 	await expect(chair.getByTestId('classes-judged')).toHaveText('1 of 2');
 	await chair.goto(`/chair/shows/${show.slug}/awards`);
 	await expectAccessible(chair);
@@ -153,7 +163,10 @@ test('a judge scores a class on a tablet, offline for part of it, and the board 
 		await expect(row).toContainText(String(show.entries[i].number));
 	}
 	await expect(chair.locator('tr', { hasText: 'Best in class' })).toContainText(
-		`the highest score (95) among the 2 blue-ribbon entries in class 1`
+		String(show.entries[0].number)
+	);
+	await expect(chair.locator('tr', { hasText: 'Best in class' })).toContainText(
+		`The highest score (95) among the 2 blue-ribbon entries in class 1`
 	);
 	await chair.getByLabel('Publish anyway').check();
 	await chair.getByRole('button', { name: 'Publish results' }).click();

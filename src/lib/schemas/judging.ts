@@ -1,15 +1,6 @@
 import { z } from 'zod';
 import { NOT_JUDGED_REASONS } from '$lib/domain/scoring';
 
-/** Plain words for the reasons a plant is left unjudged. */
-export const NOT_JUDGED_LABELS: Record<(typeof NOT_JUDGED_REASONS)[number], string> = {
-	wrong_class: 'Wrong class',
-	suckers: 'Suckers on a single-crown plant',
-	pests: 'Pests',
-	not_in_bloom: 'Not in bloom',
-	other: 'Other reason'
-};
-
 /**
  * One change to a score sheet, as a tablet sends it: the whole sheet as the judge left it, the
  * version it was made on, and an id that makes a replay harmless. Deductions are checked against
