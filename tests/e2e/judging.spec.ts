@@ -263,3 +263,43 @@ test('the chair sets up a panel and is refused a class where a judge’s househo
 	await page.goto(`/chair/shows/${show.slug}/audit`);
 	await expectAccessible(page);
 });
+
+test('two judges on one consensus sheet: the later change is shown as a conflict, never lost', async ({
+	page,
+	browser
+}) => {
+	const show = await createJudgingShow(1, { method: 'consensus', judges: ['judge1', 'judge2'] });
+	const entry = show.entries[0];
+	const otherContext = await browser.newContext({ viewport: { width: 768, height: 1024 } });
+	const other = await otherContext.newPage();
+	await signIn(page, 'judge1@crownbench.test');
+	await signIn(other, 'judge2@crownbench.test');
+	await page.goto(`/judging/entry/${entry.id}`);
+	await other.goto(`/judging/entry/${entry.id}`);
+	await expect(page.getByText('This is the panel’s one agreed sheet.')).toBeVisible();
+
+	// judge1 saves first; judge2's tablet still holds the empty sheet.
+	const condition = page.getByLabel('Condition', { exact: true });
+	await condition.fill('2');
+	await condition.press('Tab');
+	await expect(page.locator('[data-sync]')).toHaveAttribute('data-sync', 'saved');
+	const symmetry = other.getByLabel('Symmetry or leaf pattern', { exact: true });
+	await symmetry.fill('1');
+	await symmetry.press('Tab');
+
+	await expect(
+		other.getByRole('heading', { name: 'Another panel member saved this sheet first' })
+	).toBeVisible();
+	await expect(other.locator('[data-sync]')).toHaveAttribute('data-sync', 'conflict');
+	await expect(other.getByTestId('running-total')).toHaveText('98');
+	await expectAccessible(other);
+	await other.getByRole('button', { name: 'Put my scores back' }).click();
+	await expect(other.locator('[data-sync]')).toHaveAttribute('data-sync', 'saved');
+	await expect(other.getByTestId('running-total')).toHaveText('99');
+	const versions = await withDb(
+		async (db) =>
+			(await db.query('SELECT version FROM score_sheets WHERE entry_id = $1', [entry.id])).rows
+	);
+	expect(versions).toEqual([{ version: 2 }]);
+	await otherContext.close();
+});

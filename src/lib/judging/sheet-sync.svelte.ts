@@ -152,7 +152,7 @@ export class SheetSync {
 
 	/** Settles a conflict: keep the other person's sheet, or put this judge's scores on top of it. */
 	async resolve(entryId: string, keep: 'theirs' | 'mine'): Promise<void> {
-		const conflict = this.conflicts[entryId];
+		const conflict = $state.snapshot(this.conflicts[entryId]);
 		if (!conflict) return;
 		delete this.conflicts[entryId];
 		if (keep === 'mine') {

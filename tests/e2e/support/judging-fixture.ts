@@ -26,10 +26,14 @@ export async function withDb<T>(work: (client: pg.Client) => Promise<T>): Promis
 
 /**
  * Creates a show of Larkspur Valley with class 1 (entries by exhibitor1..4, `count` of them)
- * judged by a panel of judge1 alone, and class 2 (one entry by exhibitor5, of judge3's
+ * judged by a panel of judge1 alone (or the judges given), and class 2 (one entry by exhibitor5, of judge3's
  * household) with no panel. Scores are the judge's to enter: nothing is pre-scored.
  */
-export async function createJudgingShow(count = 4): Promise<JudgingShow> {
+export async function createJudgingShow(
+	count = 4,
+	options: { method?: 'mean' | 'consensus'; judges?: string[] } = {}
+): Promise<JudgingShow> {
+	const judges = options.judges ?? ['judge1'];
 	return withDb(async (db) => {
 		const one = async (sql: string, params: unknown[] = []) =>
 			(await db.query(sql, params)).rows[0];
@@ -42,6 +46,7 @@ export async function createJudgingShow(count = 4): Promise<JudgingShow> {
 			await db.query(`SELECT id, email, name FROM users WHERE email = ANY($1::text[])`, [
 				[
 					'judge1@crownbench.test',
+					'judge2@crownbench.test',
 					'exhibitor1@crownbench.test',
 					'exhibitor2@crownbench.test',
 					'exhibitor3@crownbench.test',
@@ -58,7 +63,7 @@ export async function createJudgingShow(count = 4): Promise<JudgingShow> {
 			`INSERT INTO shows (id, society_id, name, slug, entries_open, entries_close, entry_day, judging_day,
 			                    panel_score_method, award_rules, schedule_published_at, next_entry_number)
 			 VALUES ($1, $2, $3, $4, current_date - 30, current_date - 5, current_date - 1, current_date,
-			         'mean', $5::jsonb, now(), 200)`,
+			         $6, $5::jsonb, now(), 200)`,
 			[
 				showId,
 				society.id,
@@ -71,7 +76,8 @@ export async function createJudgingShow(count = 4): Promise<JudgingShow> {
 					tieBreak: { criterionKey: 'condition', useJudgesChoice: true },
 					sweepstakesTieBreak: 'none',
 					topAwards: []
-				})
+				}),
+				options.method ?? 'mean'
 			]
 		);
 		const division = randomUUID();
@@ -119,10 +125,12 @@ export async function createJudgingShow(count = 4): Promise<JudgingShow> {
 			panel,
 			showId
 		]);
-		await db.query(`INSERT INTO panel_judges (panel_id, user_id) VALUES ($1, $2)`, [
-			panel,
-			user('judge1').id
-		]);
+		for (const judge of judges) {
+			await db.query(`INSERT INTO panel_judges (panel_id, user_id) VALUES ($1, $2)`, [
+				panel,
+				user(judge).id
+			]);
+		}
 		await db.query(`INSERT INTO panel_classes (class_id, panel_id) VALUES ($1, $2)`, [
 			classId,
 			panel

@@ -90,10 +90,9 @@ export async function conflictsFor(
 	classIds: string[],
 	transaction?: Transaction
 ): Promise<JudgingConflict[]> {
-	const [people, entries] = await Promise.all([
-		households(show.societyId, userIds, transaction),
-		conflictEntries(show.id, classIds, transaction)
-	]);
+	// One after the other: queries inside a transaction share one connection.
+	const people = await households(show.societyId, userIds, transaction);
+	const entries = await conflictEntries(show.id, classIds, transaction);
 	const known = new Set(people.map((p) => p.userId));
 	const all = [
 		...people,

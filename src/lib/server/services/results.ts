@@ -94,37 +94,36 @@ export async function loadShowJudging(
 		   FROM shows WHERE id = :showId`
 	);
 	if (!show) throw new Refusal('This show does not exist.', 404);
-	const [classes, judges, entries, sheets] = await Promise.all([
-		q<ClassRow>(
-			`SELECT c.id, c.code, c.name, d.id AS division_id, d.code || ' ' || d.name AS division,
+	// Inside a transaction the queries share one connection, so they run one after the other.
+	const classes = await q<ClassRow>(
+		`SELECT c.id, c.code, c.name, d.id AS division_id, d.code || ' ' || d.name AS division,
 			        p.id AS panel_id, p.name AS panel_name, sc.id AS scale_id, sc.name AS scale_name, sc.criteria
 			   FROM classes c JOIN divisions d ON d.id = c.division_id
 			   LEFT JOIN panel_classes pc ON pc.class_id = c.id
 			   LEFT JOIN panels p ON p.id = pc.panel_id
 			   LEFT JOIN scales sc ON sc.id = c.scale_id
 			  WHERE c.show_id = :showId ORDER BY d.position, c.position`
-		),
-		q<{ panel_id: string; user_id: string }>(
-			`SELECT pj.panel_id, pj.user_id FROM panel_judges pj JOIN panels p ON p.id = pj.panel_id
+	);
+	const judges = await q<{ panel_id: string; user_id: string }>(
+		`SELECT pj.panel_id, pj.user_id FROM panel_judges pj JOIN panels p ON p.id = pj.panel_id
 			  WHERE p.show_id = :showId`
-		),
-		q<EntryRow>(
-			`SELECT e.id, e.number, e.class_id, e.exhibitor_id, coalesce(u.name, u.email) AS exhibitor
+	);
+	const entries = await q<EntryRow>(
+		`SELECT e.id, e.number, e.class_id, e.exhibitor_id, coalesce(u.name, u.email) AS exhibitor
 			   FROM entries e JOIN users u ON u.id = e.exhibitor_id
 			  WHERE e.show_id = :showId AND e.status NOT IN ('withdrawn', 'scratched')
 			  ORDER BY e.number`
-		),
-		q<{
-			entry_id: string;
-			judge_id: string | null;
-			deductions: Record<string, number>;
-			not_judged_reason: NotJudgedReason | null;
-			judges_choice_rank: number | null;
-		}>(
-			`SELECT entry_id, judge_id, deductions, not_judged_reason, judges_choice_rank
+	);
+	const sheets = await q<{
+		entry_id: string;
+		judge_id: string | null;
+		deductions: Record<string, number>;
+		not_judged_reason: NotJudgedReason | null;
+		judges_choice_rank: number | null;
+	}>(
+		`SELECT entry_id, judge_id, deductions, not_judged_reason, judges_choice_rank
 			   FROM score_sheets WHERE show_id = :showId`
-		)
-	]);
+	);
 	const judgesOf = new Map<string, string[]>();
 	for (const j of judges)
 		judgesOf.set(j.panel_id, [...(judgesOf.get(j.panel_id) ?? []), j.user_id]);
