@@ -1,20 +1,33 @@
 import { error, type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
-import { authHandle } from '$lib/server/auth';
+import { authHandle, SESSION_MAX_AGE_SECONDS, SESSION_UPDATE_AGE_SECONDS } from '$lib/server/auth';
 import { sequelize } from '$lib/server/db';
 import { DATABASE_DOWN_MESSAGE, isDatabaseDown } from '$lib/server/db/connection';
 import { AREA_ROLES, areaOf, requireRole, requireUser } from '$lib/server/policies';
 import { startOutboxWorker } from '$lib/server/mail/outbox';
-import { loadSignedInUser } from '$lib/server/services/people';
+import { loadSessionUser, loadSignedInUser } from '$lib/server/services/people';
 import { startReminderSchedule } from '$lib/server/services/reminders';
 import { todayIso } from '$lib/schemas/plants';
 
 const SESSION_COOKIES = ['authjs.session-token', '__Secure-authjs.session-token'];
 
-/** Fills locals.user from the database session; visitors without a session cookie cost nothing. */
+/**
+ * Fills locals.user from the database session; visitors without a session cookie cost nothing.
+ * A valid session that is not yet due for its rolling extension is read in one query; anything
+ * else (unknown, expired, due) goes through Auth.js, which extends or clears it.
+ */
 const userHandle: Handle = async ({ event, resolve }) => {
 	event.locals.user = null;
-	if (SESSION_COOKIES.some((name) => event.cookies.get(name))) {
+	const token = SESSION_COOKIES.map((name) => event.cookies.get(name)).find(Boolean);
+	if (token) {
+		const found = await loadSessionUser(token, {
+			maxAgeSeconds: SESSION_MAX_AGE_SECONDS,
+			updateAgeSeconds: SESSION_UPDATE_AGE_SECONDS
+		});
+		if (found && !found.due) {
+			event.locals.user = found.user;
+			return resolve(event);
+		}
 		const session = await event.locals.auth();
 		const id = session?.user?.id;
 		if (id) event.locals.user = await loadSignedInUser(id);
