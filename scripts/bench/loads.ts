@@ -22,36 +22,29 @@ interface Request {
 	setupRequest?: (req: Request, context: Context) => Request;
 	onResponse?: (status: number, body: string, context: Context) => void;
 }
+/** autocannon's result without aggregation: the latencies come as an encoded histogram. */
 interface Result {
+	latencies: string;
+	totalCompletedRequests: number;
 	duration: number;
-	requests: { total: number };
-	latency: { p50: number; p99: number; max: number };
 	non2xx: number;
 	errors: number;
 	timeouts: number;
 }
 type Autocannon = (options: object, done: (err: Error | null, result: Result) => void) => void;
 interface Histogram {
+	add(other: Histogram): void;
 	getValueAtPercentile(p: number): number;
+	maxValue: number;
+	totalCount: number;
 }
 
 const requireHere = createRequire(import.meta.url);
 const autocannon = requireHere('autocannon') as Autocannon;
-// autocannon's own histogram library, so our p95 comes from the very latencies it recorded.
-const hdr = createRequire(requireHere.resolve('autocannon'))('hdr-histogram-js') as {
-	build(options: object): Histogram;
+// autocannon's own histogram helpers, so the percentiles come from the latencies it recorded.
+const { decodeHist } = requireHere('autocannon/lib/histUtil.js') as {
+	decodeHist(encoded: string): Histogram;
 };
-
-export interface LoadFigures {
-	requests: number;
-	requestsPerSecond: number;
-	latencyMs: { p50: number; p95: number; p99: number; max: number };
-	non2xx: number;
-	errors: number;
-	timeouts: number;
-	/** Saves only: how many answers said the change was stored. */
-	saved?: number;
-}
 
 /** The current version of every judge's sheet, keyed judge:entry. */
 async function sheetVersions(dbUrl: string): Promise<Map<string, number>> {
@@ -71,6 +64,9 @@ interface Context {
 	key?: string;
 }
 
+/** Counts saves across every load of the run, so no two changes of a run are the same. */
+let n = 0;
+
 /** The requests of one load: a function that makes each request fresh. */
 async function requestsFor(
 	kind: 'saves' | 'results',
@@ -81,7 +77,6 @@ async function requestsFor(
 	if (kind === 'results') return [{ method: 'GET', path: `/shows/${show.slug}/results` }];
 	const versions = await sheetVersions(dbUrl);
 	const position = show.judges.map(() => 0);
-	let n = 0;
 	return [
 		{
 			method: 'PUT',
@@ -124,53 +119,86 @@ async function requestsFor(
 
 function once(options: object): Promise<Result> {
 	return new Promise((resolve, reject) => {
-		autocannon(options, (err, result) => (err ? reject(err) : resolve(result)));
+		autocannon({ ...options, skipAggregateResult: true }, (err, result) =>
+			err ? reject(err) : resolve(result)
+		);
 	});
 }
 
-/** One load: 2 s of warm-up (not counted), then `seconds` measured. */
-export async function measureLoad(input: {
+/** Lets requests still in flight when a load stops land before the next load begins. */
+export const settle = () => new Promise((r) => setTimeout(r, 1500));
+
+/**
+ * The same load against several servers, taken in turns so that a noisy machine weighs on each
+ * alike: 2 s of warm-up each (not counted), then `rounds` turns of `seconds / rounds` each.
+ * Latency percentiles come from every measured request of a server, across its turns.
+ */
+export async function compareLoads(input: {
 	kind: 'saves' | 'results';
-	url: string;
+	targets: { name: string; url: string }[];
 	show: BenchShow;
 	seconds: number;
+	rounds: number;
 	connections: number;
 	dbUrl: string;
-}): Promise<LoadFigures> {
-	const { kind, url, show, seconds, connections, dbUrl } = input;
-	const base = { url, connections, pipelining: 1, timeout: 10 };
-	const warmCounter = { saved: 0 };
-	await once({ ...base, duration: 2, requests: await requestsFor(kind, show, dbUrl, warmCounter) });
-	// Saves still in flight when the warm-up stops must land before the versions are read again.
-	await new Promise((r) => setTimeout(r, 1500));
-	const counter = { saved: 0 };
-	const latencies = hdr.build({
-		bitBucketSize: 64,
-		autoResize: true,
-		lowestDiscernibleValue: 1,
-		highestTrackableValue: 10000,
-		numberOfSignificantValueDigits: 5
-	});
-	const result = await once({
-		...base,
-		duration: seconds,
-		requests: await requestsFor(kind, show, dbUrl, counter),
-		histograms: { latencies }
-	});
-	const figures: LoadFigures = {
-		requests: result.requests.total,
-		requestsPerSecond: Math.round((result.requests.total / result.duration) * 10) / 10,
-		latencyMs: {
-			p50: result.latency.p50,
-			p95: latencies.getValueAtPercentile(95),
-			p99: result.latency.p99,
-			max: result.latency.max
-		},
-		non2xx: result.non2xx,
-		errors: result.errors,
-		timeouts: result.timeouts
-	};
-	if (kind === 'saves') figures.saved = counter.saved;
+}): Promise<Record<string, LoadFigures>> {
+	const { kind, targets, show, seconds, rounds, connections, dbUrl } = input;
+	const options = (url: string) => ({ url, connections, pipelining: 1, timeout: 10 });
+	for (const t of targets) {
+		const requests = await requestsFor(kind, show, dbUrl, { saved: 0 });
+		await once({ ...options(t.url), duration: 2, requests });
+		await settle();
+	}
+	const totals = new Map(
+		targets.map((t) => [
+			t.name,
+			{
+				requests: 0,
+				duration: 0,
+				non2xx: 0,
+				errors: 0,
+				timeouts: 0,
+				saved: 0,
+				latencies: null as Histogram | null
+			}
+		])
+	);
+	for (let round = 0; round < rounds; round++) {
+		for (const t of targets) {
+			const total = totals.get(t.name)!;
+			const counter = { saved: 0 };
+			const requests = await requestsFor(kind, show, dbUrl, counter);
+			const result = await once({ ...options(t.url), duration: seconds / rounds, requests });
+			await settle();
+			total.requests += result.totalCompletedRequests;
+			total.duration += result.duration;
+			total.non2xx += result.non2xx;
+			total.errors += result.errors;
+			total.timeouts += result.timeouts;
+			total.saved += counter.saved;
+			const latencies = decodeHist(result.latencies);
+			if (total.latencies) total.latencies.add(latencies);
+			else total.latencies = latencies;
+		}
+	}
+	const figures: Record<string, LoadFigures> = {};
+	for (const [name, t] of totals) {
+		const h = t.latencies!;
+		figures[name] = {
+			requests: t.requests,
+			requestsPerSecond: Math.round((t.requests / t.duration) * 10) / 10,
+			latencyMs: {
+				p50: h.getValueAtPercentile(50),
+				p95: h.getValueAtPercentile(95),
+				p99: h.getValueAtPercentile(99),
+				max: h.maxValue
+			},
+			non2xx: t.non2xx,
+			errors: t.errors,
+			timeouts: t.timeouts,
+			...(kind === 'saves' ? { saved: t.saved } : {})
+		};
+	}
 	return figures;
 }
 

@@ -5,18 +5,20 @@
  * test: timings belong to this command only.
  *
  * Settings: CB_BENCH_DB_URL, CB_BENCH_APP_PORT (4890), CB_BENCH_BASELINE_PORT (4891),
- * CB_BENCH_SECONDS (10 per load), CB_BENCH_CONNECTIONS (30), SMTP_URL.
+ * CB_BENCH_SECONDS (10 per load and server), CB_BENCH_ROUNDS (2 turns), CB_BENCH_CONNECTIONS (30).
  */
 import { spawn, type ChildProcess } from 'node:child_process';
+import { mkdirSync, writeFileSync } from 'node:fs';
 import { cpus, totalmem } from 'node:os';
 import { generateShow, type BenchShow } from './generate';
-import { measureLoad, pageAssetBytes, type LoadFigures } from './loads';
+import { compareLoads, pageAssetBytes, settle, type LoadFigures } from './loads';
 
 const dbUrl = process.env.CB_BENCH_DB_URL ?? 'postgres://postgres@127.0.0.1:54329/crownbench_bench';
 const appPort = Number(process.env.CB_BENCH_APP_PORT ?? 4890);
 const basePort = Number(process.env.CB_BENCH_BASELINE_PORT ?? 4891);
 const seconds = Number(process.env.CB_BENCH_SECONDS ?? 10);
 const connections = Number(process.env.CB_BENCH_CONNECTIONS ?? 30);
+const rounds = Number(process.env.CB_BENCH_ROUNDS ?? 2);
 const app = `http://127.0.0.1:${appPort}`;
 const base = `http://127.0.0.1:${basePort}`;
 const children: ChildProcess[] = [];
@@ -53,9 +55,6 @@ function median(values: number[]): number {
 	const m = Math.floor(s.length / 2);
 	return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
 }
-
-/** Lets requests still in flight when a load stops finish before the next step. */
-const settle = () => new Promise((r) => setTimeout(r, 1500));
 
 const round = (n: number, digits = 2) => Math.round(n * 10 ** digits) / 10 ** digits;
 
@@ -163,28 +162,35 @@ async function main(): Promise<void> {
 		`authjs.session-token=${judge.sessionToken}`
 	);
 
-	const saves = {} as Record<'app' | 'baseline', LoadFigures>;
-	for (const [name, url] of [
-		['app', app],
-		['baseline', base]
-	] as const) {
-		log(`scoresheet saves against the ${name}: ${connections} judges, ${seconds} s`);
-		saves[name] = await measureLoad({ kind: 'saves', url, show, seconds, connections, dbUrl });
-		await settle();
-	}
+	const targets = [
+		{ name: 'app', url: app },
+		{ name: 'baseline', url: base }
+	];
+	log(`scoresheet saves: ${connections} judges, ${seconds} s each for the app and the baseline`);
+	const saves = await compareLoads({
+		kind: 'saves',
+		targets,
+		show,
+		seconds,
+		rounds,
+		connections,
+		dbUrl
+	});
 
 	log('publishing the results');
 	const publishMs = await publish(show);
 
-	const page = {} as Record<'app' | 'baseline', LoadFigures>;
-	for (const [name, url] of [
-		['app', app],
-		['baseline', base]
-	] as const) {
-		log(`results page against the ${name}: ${connections} visitors, ${seconds} s`);
-		page[name] = await measureLoad({ kind: 'results', url, show, seconds, connections, dbUrl });
-		await settle();
-	}
+	log(`results page: ${connections} visitors, ${seconds} s each for the app and the baseline`);
+	const page = await compareLoads({
+		kind: 'results',
+		targets,
+		show,
+		seconds,
+		rounds,
+		connections,
+		dbUrl
+	});
+	await settle();
 
 	log('award sheets PDF in a process of its own');
 	const pdf = await measurePdf(show);
@@ -197,7 +203,7 @@ async function main(): Promise<void> {
 			node: process.version
 		},
 		show: show.counts,
-		settings: { loadSeconds: seconds, connections, loopback: true },
+		settings: { loadSeconds: seconds, rounds, connections, loopback: true },
 		awardsEngine: { ...awards, targetMs: 50, met: awards.engineMedianMs < 50 },
 		scoresheetSaves: {
 			...comparison(saves.app, saves.baseline),
@@ -228,7 +234,10 @@ async function main(): Promise<void> {
 		},
 		totalSeconds: round((Date.now() - started) / 1000, 0)
 	};
-	process.stdout.write(`${JSON.stringify(report, null, 2)}\n`);
+	const text = `${JSON.stringify(report, null, 2)}\n`;
+	mkdirSync('.data', { recursive: true });
+	writeFileSync('.data/bench-last.json', text);
+	process.stdout.write(text);
 }
 
 function stopChildren(): Promise<void> {

@@ -1,0 +1,126 @@
+/**
+ * No N+1 queries on lists: the services behind each list page and list API run the same number
+ * of SQL statements for a show of 20 entries as for one of 200. Statements are counted through
+ * the shared Sequelize instance's logging hook while the service runs.
+ */
+import { randomUUID } from 'node:crypto';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { sequelize } from '../../src/lib/server/db';
+import {
+	listJudgeAssignments,
+	loadJudgeClass,
+	saveSheet
+} from '../../src/lib/server/services/judging';
+import {
+	awardsOf,
+	loadBoard,
+	loadPublishedAwards,
+	loadShowJudging,
+	publishResults
+} from '../../src/lib/server/services/results';
+import { buildFixture, deductions, removeFixtures, type Fixture } from './judging-fixture';
+
+/** Runs `work` and returns how many SQL statements it sent. */
+async function countQueries(work: () => Promise<unknown>): Promise<number> {
+	const before = sequelize.options.logging;
+	let count = 0;
+	sequelize.options.logging = () => {
+		count++;
+	};
+	try {
+		await work();
+	} finally {
+		sequelize.options.logging = before;
+	}
+	return count;
+}
+
+/** Every entry gets a complete sheet from both judges of the panel (bulk, outside the count). */
+async function scoreAll(f: Fixture): Promise<void> {
+	await sequelize.query(
+		`INSERT INTO score_sheets (show_id, entry_id, kind, judge_id, deductions, updated_by)
+		 SELECT :showId, e.id, 'judge', j.id, CAST(:d AS jsonb), j.id
+		   FROM entries e CROSS JOIN unnest(CAST(:judges AS uuid[])) AS j(id)
+		  WHERE e.class_id = :classId`,
+		{
+			replacements: {
+				showId: f.showId,
+				classId: f.classId,
+				judges: `{${f.judges[0].id},${f.judges[1].id}}`,
+				d: JSON.stringify(deductions([1, 1, 0.5, 0, 0]))
+			}
+		}
+	);
+}
+
+interface Counts {
+	judgeClass: number;
+	judgeAssignments: number;
+	board: number;
+	save: number;
+	showJudging: number;
+	publish: number;
+	publishedAwards: number;
+}
+
+async function measure(entryCount: number): Promise<{ fixture: Fixture; counts: Counts }> {
+	const f = await buildFixture({ entryCount });
+	await scoreAll(f);
+	const judge = f.judges[0];
+	const counts = {
+		judgeClass: await countQueries(() => loadJudgeClass(judge.id, f.classId)),
+		judgeAssignments: await countQueries(() => listJudgeAssignments(judge.id)),
+		board: await countQueries(() => loadBoard(f.showId)),
+		save: await countQueries(() =>
+			saveSheet(f.judges[1], {
+				changeId: randomUUID(),
+				entryId: f.entries[0].id,
+				baseVersion: 1,
+				deductions: deductions([0, 0, 0, 0, 0]),
+				comment: 'Recounted',
+				notJudged: null,
+				judgesChoiceRank: null
+			})
+		),
+		showJudging: await countQueries(async () => awardsOf(await loadShowJudging(f.showId))),
+		publish: await countQueries(() =>
+			sequelize.transaction((transaction) =>
+				publishResults({ id: judge.id }, f.showId, { transaction, allowIncomplete: true })
+			)
+		),
+		publishedAwards: await countQueries(() => loadPublishedAwards(f.showId))
+	};
+	return { fixture: f, counts };
+}
+
+describe('statements per list do not grow with the show (no N+1)', () => {
+	let small: { fixture: Fixture; counts: Counts };
+	let large: { fixture: Fixture; counts: Counts };
+
+	beforeAll(async () => {
+		small = await measure(20);
+		large = await measure(200);
+	});
+	afterAll(removeFixtures);
+
+	it('built the shows it compares: 20 and 200 entries in the judged class', async () => {
+		const small20 = await loadJudgeClass(small.fixture.judges[0].id, small.fixture.classId);
+		const large200 = await loadJudgeClass(large.fixture.judges[0].id, large.fixture.classId);
+		expect(small20.entries).toHaveLength(20);
+		expect(large200.entries).toHaveLength(200);
+		expect(Object.values(large200.sheets).every((s) => s.version === 1)).toBe(true);
+	});
+
+	it.each([
+		['the judge’s class (page and API)', 'judgeClass'],
+		['the judge’s list of classes', 'judgeAssignments'],
+		['the chair’s progress board', 'board'],
+		['a score sheet save', 'save'],
+		['the awards of the whole show', 'showJudging'],
+		['publishing the results', 'publish'],
+		['the published awards', 'publishedAwards']
+	] as const)('%s', (_label, key) => {
+		expect(small.counts[key]).toBeGreaterThan(0);
+		expect(large.counts[key]).toBe(small.counts[key]);
+	});
+});
