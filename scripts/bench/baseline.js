@@ -267,19 +267,117 @@ routes.set('PUT /api/judging/sheets', async (req, res) => {
 	}
 });
 
-export const results = { handler: null };
+/**
+ * The public results of a published show: the queries the app's results loader runs when its
+ * cache is cold (show by address; classes, judges, entries and sheets; divisions, plants and
+ * comments, awards, ties), on every request, grouped into division, class and entry as JSON.
+ */
+routes.set('GET /shows/:slug/results', async (_req, res, match) => {
+	const { rows: shows } = await pool.query(
+		`SELECT s.id, s.society_id, s.slug, s.name, so.name AS society_name, s.venue, s.judging_day,
+		        s.schedule_published_at, s.results_published_at
+		   FROM shows s JOIN societies so ON so.id = s.society_id WHERE s.slug = $1`,
+		[match[1]]
+	);
+	const show = shows[0];
+	if (!show || !show.results_published_at) return send(res, 404, { message: 'Not found' });
+	const q = (/** @type {string} */ sql) => pool.query(sql, [show.id]).then((r) => r.rows);
+	const [rules, classes, judges, entries, sheets, divisions, extras, awards, ties] =
+		await Promise.all([
+			q(`SELECT id, name, slug, panel_score_method AS method, award_rules, results_published_at AS published
+			     FROM shows WHERE id = $1`),
+			q(`SELECT c.id, c.code, c.name, d.id AS division_id, d.code || ' ' || d.name AS division,
+			          p.id AS panel_id, p.name AS panel_name, sc.id AS scale_id, sc.name AS scale_name, sc.criteria
+			     FROM classes c JOIN divisions d ON d.id = c.division_id
+			     LEFT JOIN panel_classes pc ON pc.class_id = c.id
+			     LEFT JOIN panels p ON p.id = pc.panel_id
+			     LEFT JOIN scales sc ON sc.id = c.scale_id
+			    WHERE c.show_id = $1 ORDER BY d.position, c.position`),
+			q(`SELECT pj.panel_id, pj.user_id FROM panel_judges pj JOIN panels p ON p.id = pj.panel_id
+			    WHERE p.show_id = $1`),
+			q(`SELECT e.id, e.number, e.class_id, e.exhibitor_id, coalesce(u.name, u.email) AS exhibitor
+			     FROM entries e JOIN users u ON u.id = e.exhibitor_id
+			    WHERE e.show_id = $1 AND ${ACTIVE} ORDER BY e.number`),
+			q(`SELECT entry_id, judge_id, deductions, not_judged_reason, judges_choice_rank
+			     FROM score_sheets WHERE show_id = $1`),
+			q('SELECT id, code, name FROM divisions WHERE show_id = $1 ORDER BY position, code'),
+			q(`SELECT e.id, coalesce(v.name, e.title, '') AS plant, u.name AS exhibitor,
+			          coalesce(array_agg(ss.comment ORDER BY ss.created_at, ss.id)
+			                   FILTER (WHERE ss.comment <> '' AND ss.kind = (CASE WHEN sh.panel_score_method = 'consensus' THEN 'consensus' ELSE 'judge' END)),
+			                   '{}') AS comments
+			     FROM entries e
+			     JOIN shows sh ON sh.id = e.show_id
+			     JOIN users u ON u.id = e.exhibitor_id
+			     LEFT JOIN varieties v ON v.id = e.variety_id
+			     LEFT JOIN score_sheets ss ON ss.entry_id = e.id
+			    WHERE e.show_id = $1 AND ${ACTIVE}
+			    GROUP BY e.id, v.name, u.name`),
+			q(`SELECT kind, entry_id, exhibitor_id, class_id, division_id, top_award_id, top_award_name,
+			          level, score
+			     FROM awards WHERE show_id = $1 ORDER BY position`),
+			q('SELECT reason FROM award_ties WHERE show_id = $1 ORDER BY position')
+		]);
+	// The panel score: the mean of the judges' totals, as the app combines them.
+	const criteriaOf = new Map(classes.map((c) => [c.id, scaleOf(c.criteria)]));
+	/** @type {Map<string, any[]>} */
+	const sheetsOf = new Map();
+	for (const s of sheets) sheetsOf.set(s.entry_id, [...(sheetsOf.get(s.entry_id) ?? []), s]);
+	const extra = new Map(extras.map((x) => [x.id, x]));
+	/** @type {Map<string, any[]>} */
+	const awardsOf = new Map();
+	for (const a of awards) {
+		if (a.entry_id) awardsOf.set(a.entry_id, [...(awardsOf.get(a.entry_id) ?? []), a]);
+	}
+	/** @type {Map<string, any[]>} */
+	const entriesOf = new Map();
+	for (const e of entries) {
+		const criteria = criteriaOf.get(e.class_id) ?? DEFAULT_CRITERIA;
+		const mine = sheetsOf.get(e.id) ?? [];
+		const sum = mine.reduce(
+			(n, s) => n + criteria.reduce((t, c) => t + c.maxPoints - (s.deductions[c.key] ?? 0), 0),
+			0
+		);
+		const x = extra.get(e.id);
+		const list = entriesOf.get(e.class_id) ?? [];
+		list.push({
+			number: e.number,
+			plant: x?.plant ?? '',
+			exhibitor: x?.exhibitor ?? e.exhibitor,
+			score: mine.length ? Math.round((sum / mine.length) * 10) / 10 : null,
+			awards: (awardsOf.get(e.id) ?? []).map((a) => a.level ?? a.kind),
+			comments: x?.comments ?? []
+		});
+		entriesOf.set(e.class_id, list);
+	}
+	send(res, 200, {
+		show: {
+			slug: show.slug,
+			name: show.name,
+			societyName: show.society_name,
+			rules: rules[0].award_rules
+		},
+		judges: judges.length,
+		divisions: divisions.map((d) => ({
+			code: d.code,
+			name: d.name,
+			classes: classes
+				.filter((c) => c.division_id === d.id)
+				.map((c) => ({ code: c.code, name: c.name, entries: entriesOf.get(c.id) ?? [] }))
+		})),
+		topAwards: awards.filter((a) => !a.entry_id || a.kind === 'top_award'),
+		undecided: ties.map((t) => t.reason)
+	});
+});
 
 const server = http.createServer((req, res) => {
 	const url = new URL(req.url ?? '/', 'http://127.0.0.1');
-	const key = `${req.method} ${url.pathname}`;
+	const results = /^\/shows\/([a-z0-9-]+)\/results$/.exec(url.pathname);
+	const key = results ? `${req.method} /shows/:slug/results` : `${req.method} ${url.pathname}`;
 	const route = routes.get(key);
-	const resultsMatch = /^\/shows\/([a-z0-9-]+)\/results$/.exec(url.pathname);
 	/** @type {Promise<void>} */
 	let done;
-	if (route) done = route(req, res, /** @type {RegExpExecArray} */ (/./.exec('.')));
-	else if (req.method === 'GET' && resultsMatch && results.handler) {
-		done = /** @type {any} */ (results.handler)(req, res, resultsMatch);
-	} else if (req.method === 'GET' && url.pathname === '/health') {
+	if (route) done = route(req, res, results ?? /** @type {RegExpExecArray} */ (/./.exec('.')));
+	else if (req.method === 'GET' && url.pathname === '/health') {
 		done = Promise.resolve(send(res, 200, { ok: true }));
 	} else done = Promise.resolve(send(res, 404, { message: 'Not found' }));
 	done.catch((err) => {

@@ -5,6 +5,28 @@
  */
 const showId = process.argv[2];
 
+/** The award sheets as the chair downloads them: the published results, then the PDF. */
+async function buildAwardSheets(id: string): Promise<Buffer> {
+	// Loaded by name at run time: the award-sheet PDF comes with the results work (issue 5).
+	const services = '../../src/lib/server/services/show-results';
+	const pdfs = '../../src/lib/server/pdf/award-sheets';
+	let loadShowResults: (showId: string) => Promise<unknown>;
+	let renderAwardSheets: (results: unknown) => Promise<Buffer>;
+	try {
+		({ loadShowResults } = (await import(services)) as {
+			loadShowResults: typeof loadShowResults;
+		});
+		({ renderAwardSheets } = (await import(pdfs)) as {
+			renderAwardSheets: typeof renderAwardSheets;
+		});
+	} catch {
+		throw new Error('The award-sheet PDF is not built yet (issue 5): not yet measurable.');
+	}
+	const results = await loadShowResults(id);
+	if (!results) throw new Error('The show has no published results.');
+	return renderAwardSheets(results);
+}
+
 async function main(): Promise<Record<string, unknown>> {
 	const started = performance.now();
 	let pdf: Buffer;
@@ -19,11 +41,6 @@ async function main(): Promise<Record<string, unknown>> {
 		peakRssMb: Math.round(process.resourceUsage().maxRSS / 1024),
 		bytes: pdf.length
 	};
-}
-
-/** The award sheets as the chair downloads them. */
-async function buildAwardSheets(_showId: string): Promise<Buffer> {
-	throw new Error('The award-sheet PDF is not built yet (issue 5): not yet measurable.');
 }
 
 main()
