@@ -22,15 +22,17 @@ import { buildFixture, deductions, removeFixtures, type Fixture } from './judgin
 
 /** Runs `work` and returns how many SQL statements it sent. */
 async function countQueries(work: () => Promise<unknown>): Promise<number> {
-	const before = sequelize.options.logging;
+	// Sequelize reads `options.logging` on every query; its typings leave `options` out.
+	const settings = (sequelize as unknown as { options: { logging: unknown } }).options;
+	const before = settings.logging;
 	let count = 0;
-	sequelize.options.logging = () => {
+	settings.logging = () => {
 		count++;
 	};
 	try {
 		await work();
 	} finally {
-		sequelize.options.logging = before;
+		settings.logging = before;
 	}
 	return count;
 }
