@@ -2,6 +2,7 @@ import { createSequelize } from './connection';
 import { Account, Session, VerificationToken } from './models/auth-records';
 import { Division } from './models/division';
 import { Entry } from './models/entry';
+import { EntryPhoto } from './models/entry-photo';
 import { Membership } from './models/membership';
 import { Scale } from './models/scale';
 import { Show } from './models/show';
@@ -25,6 +26,7 @@ Show.initModel(sequelize);
 Division.initModel(sequelize);
 ShowClass.initModel(sequelize);
 Entry.initModel(sequelize);
+EntryPhoto.initModel(sequelize);
 
 Membership.belongsTo(Society, { foreignKey: 'societyId', as: 'society' });
 Membership.belongsTo(User, { foreignKey: 'userId', as: 'user' });
@@ -48,11 +50,14 @@ Entry.belongsTo(ShowClass, { foreignKey: 'classId', as: 'showClass' });
 Entry.belongsTo(User, { foreignKey: 'exhibitorId', as: 'exhibitor' });
 Entry.belongsTo(Variety, { foreignKey: 'varietyId', as: 'variety' });
 ShowClass.hasMany(Entry, { foreignKey: 'classId', as: 'entries' });
+EntryPhoto.belongsTo(Entry, { foreignKey: 'entryId', as: 'entry' });
+Entry.hasMany(EntryPhoto, { foreignKey: 'entryId', as: 'photos' });
 
 export {
 	Account,
 	Division,
 	Entry,
+	EntryPhoto,
 	Membership,
 	Scale,
 	Session,
