@@ -9,21 +9,10 @@ import {
 	type Transaction
 } from 'sequelize';
 import { VARIETY_CSV_COLUMNS, varietySchema, type VarietyInput } from '$lib/schemas/variety';
+import type { VarietyRow } from '$lib/types';
 import { Variety, sequelize } from '../db';
 
-/** A variety as pages and the search API show it. */
-export interface VarietyRow {
-	id: string;
-	name: string;
-	hybridizer: string | null;
-	habit: 'single_crown' | 'trailer';
-	sizeClass: 'miniature' | 'semiminiature' | 'standard' | 'large';
-	blossomType: string;
-	blossomColours: string[];
-	foliage: 'plain' | 'variegated';
-	isSpecies: boolean;
-	description: string | null;
-}
+export type { VarietyRow };
 
 /** Plain fields of a variety. */
 export function toVarietyRow(v: Variety): VarietyRow {
