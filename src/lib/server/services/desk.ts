@@ -8,7 +8,7 @@ import {
 } from '$lib/domain/eligibility';
 import { toInches } from '$lib/domain/units';
 import type { CheckInInput } from '$lib/schemas/desk';
-import { Entry, Show, ShowClass, User, Variety, sequelize } from '../db';
+import { Division, Entry, Show, ShowClass, User, Variety, sequelize } from '../db';
 import { exhibitorContextFor, plantFactsOf, showContextOf, withStandingHint } from './entries';
 import { classRulesOf } from './schedule';
 
@@ -135,9 +135,20 @@ async function judgeAtDesk(
 	});
 	// A plant that outgrew its declared size class is proposed where its measured size fits.
 	const asMeasured = { ...plant, sizeClass: measuredSizeClass(plant) };
+	const horticulture = new Set(
+		(
+			await Division.findAll({
+				where: { showId: show.id, kind: 'horticulture' },
+				attributes: ['id'],
+				transaction
+			})
+		).map((d) => d.id)
+	);
 	const ids = classesThatFit(
 		asMeasured,
-		classes.map((c) => ({ id: c.id, rules: classRulesOf(c) })),
+		classes
+			.filter((c) => horticulture.has(c.divisionId))
+			.map((c) => ({ id: c.id, rules: classRulesOf(c) })),
 		{ phase: 'desk', show: context, exhibitorIn }
 	);
 	return {
@@ -263,8 +274,10 @@ export async function moveEntry(
 	}
 	const declared = variety!.sizeClass;
 	const shown = judged.plant.sizeClass;
-	entry.setDataValue('classId', target.id);
-	await entry.update({ shownSizeClass: shown === declared ? null : shown }, { transaction });
+	await entry.update(
+		{ classId: target.id, shownSizeClass: shown === declared ? null : shown },
+		{ transaction }
+	);
 	return target;
 }
 

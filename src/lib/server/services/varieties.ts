@@ -182,10 +182,13 @@ export async function importVarietiesCsv(
 	// A data row's line is its index + 2 (the header is line 1); papaparse reports rows by index.
 	const problems: ImportProblem[] = [];
 	const badRows = new Set<number>();
+	// An unclosed quote runs to the end of the file, where papaparse may count one row further.
 	for (const err of parsed.errors) {
 		if (err.row === undefined || err.row === null) continue;
-		badRows.add(err.row);
-		problems.push({ line: err.row + 2, reason: `The line cannot be read: ${err.message}.` });
+		const row = Math.min(err.row, Math.max(parsed.data.length - 1, 0));
+		if (badRows.has(row)) continue;
+		badRows.add(row);
+		problems.push({ line: row + 2, reason: `The line cannot be read: ${err.message}.` });
 	}
 	const existing = new Set(
 		(await Variety.findAll({ where: { societyId }, attributes: ['name'], transaction })).map((v) =>
