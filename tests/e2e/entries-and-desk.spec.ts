@@ -39,9 +39,7 @@ test('an exhibitor enters a fitting and a non-fitting plant; a clerk measures, m
 
 	// A miniature in a miniature class: the form says it fits before it is sent.
 	await chooseVariety(exhibitor, 'Wicker Robin');
-	await exhibitor
-		.getByLabel('Class')
-		.selectOption({ label: CLASS_15 });
+	await exhibitor.getByLabel('Class').selectOption({ label: CLASS_15 });
 	await exhibitor.getByLabel('The day you got the plant').fill(yearAgo());
 	await expect(exhibitor.getByText('This plant fits the class.')).toBeVisible();
 	await exhibitor.getByRole('button', { name: 'Enter this plant' }).click();
@@ -51,9 +49,7 @@ test('an exhibitor enters a fitting and a non-fitting plant; a clerk measures, m
 
 	// A standard in the same miniature class: the form and then the server say why not.
 	await chooseVariety(exhibitor, 'Harbor Dusk');
-	await exhibitor
-		.getByLabel('Class')
-		.selectOption({ label: CLASS_15 });
+	await exhibitor.getByLabel('Class').selectOption({ label: CLASS_15 });
 	await exhibitor.getByLabel('The day you got the plant').fill(yearAgo());
 	await expect(exhibitor.getByText('This plant does not fit the class')).toBeVisible();
 	await expect(
@@ -92,6 +88,11 @@ test('an exhibitor enters a fitting and a non-fitting plant; a clerk measures, m
 	await expect(clerk.getByText(`Entry ${number} is moved to class 12`)).toBeVisible();
 	await expect(clerk.getByText(/the plant fits class 12/)).toBeVisible();
 
+	// The tag's QR address opens the entry at the desk for a clerk.
+	const qr = await clerk.request.get(`/e/${slug}/${number}`, { maxRedirects: 0 });
+	expect(qr.status()).toBe(303);
+	expect(qr.headers()['location']).toBe(`/desk/${slug}/entries/${number}`);
+
 	// Tags: the PDF holds the entry numbers.
 	const response = await clerk.request.get(`/desk/${slug}/tags?numbers=${number},1`);
 	expect(response.status()).toBe(200);
@@ -126,6 +127,8 @@ test('the entry API refuses bad input with a clear message', async ({ page }) =>
 	});
 	expect(unknownClass.status()).toBe(400);
 	expect((await unknownClass.json()).message).toBe('That class is not in this show’s schedule.');
+	// A tag's QR address is not for exhibitors.
+	expect((await page.request.get(`/e/${slug}/1`, { maxRedirects: 0 })).status()).toBe(403);
 });
 
 test('the chair imports a registry file with broken rows: nothing, then only the good rows', async ({
