@@ -266,7 +266,10 @@ export async function listMyEntriesInShow(showId: string, exhibitorId: string): 
 }
 
 /** True while exhibitors may still enter and withdraw: on or before the day entries close. */
-export function entriesStillOpen(show: Pick<Show, 'entriesClose'>, today: IsoDate = todayIso()): boolean {
+export function entriesStillOpen(
+	show: Pick<Show, 'entriesClose'>,
+	today: IsoDate = todayIso()
+): boolean {
 	return today <= show.entriesClose;
 }
 
