@@ -1,5 +1,6 @@
+import { duesCover } from './standing';
 import { Op, QueryTypes, type Transaction } from 'sequelize';
-import { compareIsoDates, type IsoDate } from '$lib/domain/dates';
+import type { IsoDate } from '$lib/domain/dates';
 import type { ClassRules, ExhibitorContext } from '$lib/domain/eligibility';
 import {
 	assessReadiness,
@@ -211,12 +212,9 @@ export async function assessCollections(
 		});
 		eventsOf.set(e.plant_id, list);
 	}
-	// Good standing: dues paid through the judging day (the rule the entry service uses too).
+	// Good standing: the same rule as the entry service (services/standing.ts).
 	const standing = new Map(
-		memberships.map((m) => [
-			m.userId,
-			m.duesPaidThrough !== null && compareIsoDates(m.duesPaidThrough, show.context.showDate) >= 0
-		])
+		memberships.map((m) => [m.userId, duesCover(m.duesPaidThrough, show.context.showDate)])
 	);
 
 	for (const p of plants) {
