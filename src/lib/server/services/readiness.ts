@@ -104,7 +104,10 @@ export async function loadShowForReadiness(
 	};
 }
 
-/** Published shows of the member's societies whose judging day is today or later. */
+/**
+ * Published shows of the member's societies that still take entries (entries close today or
+ * later): readiness is about what can still be entered.
+ */
 export async function listUpcomingShows(
 	societyIds: string[],
 	today: IsoDate
@@ -114,7 +117,7 @@ export async function listUpcomingShows(
 		where: {
 			societyId: societyIds,
 			schedulePublishedAt: { [Op.ne]: null },
-			judgingDay: { [Op.gte]: today }
+			entriesClose: { [Op.gte]: today }
 		},
 		order: [['judgingDay', 'ASC']]
 	});
