@@ -5,7 +5,9 @@
  */
 import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { entriesQuerySchema } from '../../src/lib/schemas/desk';
 import { sequelize } from '../../src/lib/server/db';
+import { entriesCsv, queryEntriesTable } from '../../src/lib/server/services/entries-table';
 import {
 	listJudgeAssignments,
 	loadJudgeClass,
@@ -56,6 +58,8 @@ async function scoreAll(f: Fixture): Promise<void> {
 }
 
 interface Counts {
+	entriesTable: number;
+	entriesCsv: number;
 	judgeClass: number;
 	judgeAssignments: number;
 	board: number;
@@ -69,7 +73,10 @@ async function measure(entryCount: number): Promise<{ fixture: Fixture; counts: 
 	const f = await buildFixture({ entryCount });
 	await scoreAll(f);
 	const judge = f.judges[0];
+	const query = entriesQuerySchema.parse({ sort: 'exhibitor', size: '100' });
 	const counts = {
+		entriesTable: await countQueries(() => queryEntriesTable(f.showId, query)),
+		entriesCsv: await countQueries(() => entriesCsv(f.showId, query)),
 		judgeClass: await countQueries(() => loadJudgeClass(judge.id, f.classId)),
 		judgeAssignments: await countQueries(() => listJudgeAssignments(judge.id)),
 		board: await countQueries(() => loadBoard(f.showId)),
@@ -111,9 +118,17 @@ describe('statements per list do not grow with the show (no N+1)', () => {
 		expect(small20.entries).toHaveLength(20);
 		expect(large200.entries).toHaveLength(200);
 		expect(Object.values(large200.sheets).every((s) => s.version === 1)).toBe(true);
+		const table = await queryEntriesTable(
+			large.fixture.showId,
+			entriesQuerySchema.parse({ size: '100' })
+		);
+		expect(table.total).toBe(201);
+		expect(table.rows).toHaveLength(100);
 	});
 
 	it.each([
+		['the entries table (API, a page of 100 rows)', 'entriesTable'],
+		['the entries table as CSV (every row)', 'entriesCsv'],
 		['the judge’s class (page and API)', 'judgeClass'],
 		['the judge’s list of classes', 'judgeAssignments'],
 		['the chair’s progress board', 'board'],
