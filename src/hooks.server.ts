@@ -1,6 +1,7 @@
 import { error, type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { authHandle, SESSION_MAX_AGE_SECONDS, SESSION_UPDATE_AGE_SECONDS } from '$lib/server/auth';
+import { resultsPageCache } from '$lib/server/cache/results-page';
 import { sequelize } from '$lib/server/db';
 import { DATABASE_DOWN_MESSAGE, isDatabaseDown } from '$lib/server/db/connection';
 import { AREA_ROLES, areaOf, requireRole, requireUser } from '$lib/server/policies';
@@ -69,7 +70,14 @@ const headersHandle: Handle = async ({ event, resolve }) => {
 	return response;
 };
 
-export const handle = sequence(headersHandle, authHandle, userHandle, guardHandle);
+export const handle = sequence(
+	headersHandle,
+	// Anonymous visitors of published results get the page's current copy (see the module).
+	resultsPageCache(SESSION_COOKIES),
+	authHandle,
+	userHandle,
+	guardHandle
+);
 
 /** Unexpected errors: a plain message, and the command to run when the database is down. */
 export const handleError: HandleServerError = ({ error: err, status }) => {
