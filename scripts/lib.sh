@@ -35,9 +35,20 @@ start_smtp_fake() {
 	wait_for_url "http://127.0.0.1:$SMTP_FAKE_HTTP_PORT/health" 15
 }
 
+# Stops a process: SIGTERM, then SIGKILL if it has not ended within 10 s.
+stop_pid() {
+	local pid="$1" i
+	kill "$pid" 2>/dev/null || return 0
+	for ((i = 0; i < 50; i++)); do
+		kill -0 "$pid" 2>/dev/null || break
+		sleep 0.2
+	done
+	kill -9 "$pid" 2>/dev/null || true
+	wait "$pid" 2>/dev/null || true
+}
+
 stop_background() {
 	local pid
-	for pid in "${background_pids[@]}"; do kill "$pid" 2>/dev/null || true; done
-	for pid in "${background_pids[@]}"; do wait "$pid" 2>/dev/null || true; done
+	for pid in "${background_pids[@]}"; do stop_pid "$pid"; done
 	background_pids=()
 }
