@@ -112,7 +112,7 @@ describe('assembleResults', () => {
 		expect(dist.counts).toEqual([0, 0, 1, 0, 1, 0, 1, 3, 0]);
 		const ribbons = ribbonsPerClass(results);
 		expect(ribbons.levels.map((l) => l.level)).toEqual(['blue', 'red', 'white']);
-		expect(ribbons.classes).toEqual([
+		expect(ribbons.divisions[0].classes).toEqual([
 			{ label: 'Class 1', counts: [1, 1, 1] },
 			{ label: 'Class 2', counts: [2, 0, 0] }
 		]);

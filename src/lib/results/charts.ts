@@ -37,10 +37,10 @@ export function scoreDistribution(results: ShowResults): ScoreDistribution[] {
 	});
 }
 
-/** Ribbons (or places) given in each class. */
+/** Ribbons (or places) given in each class, per division. */
 export interface RibbonsPerClass {
 	levels: { level: AwardLevel; label: string }[];
-	classes: { label: string; counts: number[] }[];
+	divisions: { division: string; classes: { label: string; counts: number[] }[] }[];
 }
 
 /** Counts each class's ribbons (merit judging) or places (placement judging). */
@@ -49,13 +49,14 @@ export function ribbonsPerClass(results: ShowResults): RibbonsPerClass {
 		results.show.system === 'merit'
 			? ['blue', 'red', 'white']
 			: ['first', 'second', 'third', 'honourable'];
-	const classes = results.divisions.flatMap((d) =>
-		d.classes
+	const divisions = results.divisions.map((d) => ({
+		division: `${d.code} ${d.name}`,
+		classes: d.classes
 			.filter((c) => c.entries.length > 0)
 			.map((c) => ({
 				label: `Class ${c.code}`,
 				counts: levels.map((l) => c.entries.filter((e) => e.level === l).length)
 			}))
-	);
-	return { levels: levels.map((level) => ({ level, label: LEVEL_LABELS[level] })), classes };
+	}));
+	return { levels: levels.map((level) => ({ level, label: LEVEL_LABELS[level] })), divisions };
 }
