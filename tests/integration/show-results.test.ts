@@ -133,7 +133,8 @@ describe('publishing results with placements e-mails', () => {
 			'Lucien Ashdown-Reyes',
 			'Oksana Veretenko-Bly'
 		]);
-		expect(results.divisions[0].classes[0].entries[0].comments).toEqual([
+		const { comments } = results.divisions[0].classes[0].entries[0];
+		expect([...comments].sort()).toEqual([
 			'Crisp, even rosette; remove two spent blossoms.',
 			'Good bloom count for the pot.'
 		]);

@@ -95,7 +95,7 @@ export async function loadShowResults(
 		),
 		q<{ id: string; plant: string; exhibitor: string | null; comments: string[] }>(
 			`SELECT e.id, coalesce(v.name, e.title, '') AS plant, u.name AS exhibitor,
-			        coalesce(array_agg(ss.comment ORDER BY ss.kind, ss.created_at)
+			        coalesce(array_agg(ss.comment ORDER BY ss.created_at, ss.id)
 			                 FILTER (WHERE ss.comment <> '' AND ss.kind = (CASE WHEN sh.panel_score_method = 'consensus' THEN 'consensus' ELSE 'judge' END)),
 			                 '{}') AS comments
 			   FROM entries e
