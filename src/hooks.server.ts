@@ -6,6 +6,8 @@ import { DATABASE_DOWN_MESSAGE, isDatabaseDown } from '$lib/server/db/connection
 import { AREA_ROLES, areaOf, requireRole, requireUser } from '$lib/server/policies';
 import { startOutboxWorker } from '$lib/server/mail/outbox';
 import { loadSignedInUser } from '$lib/server/services/people';
+import { startReminderSchedule } from '$lib/server/services/reminders';
+import { todayIso } from '$lib/schemas/plants';
 
 const SESSION_COOKIES = ['authjs.session-token', '__Secure-authjs.session-token'];
 
@@ -70,9 +72,13 @@ export const handleError: HandleServerError = ({ error: err, status }) => {
  */
 export const init: ServerInit = () => {
 	const stopWorker = process.env.CB_OUTBOX_WORKER !== 'off' ? startOutboxWorker() : () => {};
+	// Entry reminders: an hourly check queues them once per show and member (CB_REMINDERS=off stops it).
+	const stopReminders =
+		process.env.CB_REMINDERS !== 'off' ? startReminderSchedule(todayIso) : () => {};
 	// adapter-node emits this after it stops taking requests (SIGTERM, SIGINT): let the process end.
 	process.once('sveltekit:shutdown', () => {
 		stopWorker();
+		stopReminders();
 		void sequelize.close();
 	});
 };

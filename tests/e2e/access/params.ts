@@ -13,7 +13,12 @@ export async function loadParams(): Promise<Record<string, string>> {
 			`SELECT id, number FROM entries WHERE show_id = $1 ORDER BY number LIMIT 1`,
 			[show.rows[0].id]
 		);
+		const plant = await client.query<{ id: string }>(
+			`SELECT p.id FROM plants p JOIN users u ON u.id = p.owner_id
+			  WHERE u.email = 'member@crownbench.test' ORDER BY p.obtained_on, p.id LIMIT 1`
+		);
 		return {
+			plantId: plant.rows[0].id,
 			slug: show.rows[0].slug,
 			showId: show.rows[0].id,
 			entryId: entry.rows[0].id,

@@ -4,7 +4,7 @@ import type { Visitor } from './people';
  * What each visitor gets from a route: a status code, or 'signin' for a redirect to the sign-in
  * page. Every route of the app must have a row (the access test fails otherwise).
  */
-export type Answer = 200 | 303 | 'signin' | 401 | 403 | 404 | 405 | 409;
+export type Answer = 200 | 303 | 'signin' | 400 | 401 | 403 | 404 | 405 | 409;
 
 export interface AccessRow {
 	/** The route id, as in src/routes (with [params]). */
@@ -41,6 +41,11 @@ const apiFor = (...allowed: Visitor[]): Record<Visitor, Answer> => ({
 	...Object.fromEntries(allowed.map((v) => [v, 200]))
 });
 
+/** A plant of member@'s own collection: only its owner sees it; other members get 404. */
+function ownPlant(): Record<Visitor, Answer> {
+	return { ...pageFor('member'), clerk: 404, chair: 404, admin: 404, other: 404 };
+}
+
 // Who is who (demo seed): other = admin and chair of another society; member = exhibitor;
 // clerk, chair and admin also hold the member role; judge1 is a judge only.
 export const ACCESS_TABLE: AccessRow[] = [
@@ -57,6 +62,34 @@ export const ACCESS_TABLE: AccessRow[] = [
 	{ route: '/desk', answers: pageFor('clerk', 'chair', 'other') },
 	{ route: '/judging', answers: pageFor('judge') },
 	{ route: '/my', answers: pageFor('member', 'clerk', 'chair', 'admin', 'other') },
+	// The member's collection (issue 6): plants are private to their owner (member@), so other
+	// members get 404 for them; a judge who is no member gets 403.
+	{ route: '/my/plants', answers: pageFor('member', 'clerk', 'chair', 'admin', 'other') },
+	{ route: '/my/plants/new', answers: pageFor('member', 'clerk', 'chair', 'admin', 'other') },
+	{ route: '/my/plants/labels', answers: pageFor('member', 'clerk', 'chair', 'admin', 'other') },
+	{
+		route: '/my/plants/labels/pdf',
+		answers: { ...pageFor(), member: 400, clerk: 400, chair: 400, admin: 400, other: 400 }
+	},
+	{ route: '/my/plants/readiness', answers: pageFor('member', 'clerk', 'chair', 'admin', 'other') },
+	{ route: '/my/plants/[plantId]', answers: ownPlant() },
+	{ route: '/my/plants/[plantId]/edit', answers: ownPlant() },
+	{ route: '/my/plants/[plantId]/lineage', answers: ownPlant() },
+	{
+		route: '/my/plants/[plantId]/photos/[photoId]',
+		params: { photoId: '00000000-0000-4000-8000-000000000000' },
+		answers: { ...ownPlant(), member: 404 }
+	},
+	{
+		route: '/my/plants/[plantId]',
+		params: { plantId: 'not-an-id' },
+		answers: { ...ownPlant(), member: 404 }
+	},
+	{ route: '/my/mail', answers: pageFor('member', 'clerk', 'chair', 'admin', 'other') },
+	{
+		route: '/api/chair/shows/[showId]/entry-reminders',
+		answers: { ...apiFor(), chair: 405, other: 405 }
+	},
 	// Results (the spring show's are not published: the public page says so, the CSV is 404).
 	{ route: '/shows/[slug]/results', answers: all(200) },
 	{ route: '/shows/[slug]/results/results.csv', answers: all(404) },

@@ -2,7 +2,11 @@ import { createSequelize } from './connection';
 import { Account, Session, VerificationToken } from './models/auth-records';
 import { Division } from './models/division';
 import { Entry } from './models/entry';
+import { MailPreference } from './models/mail-preference';
 import { Membership } from './models/membership';
+import { Plant } from './models/plant';
+import { PlantEvent } from './models/plant-event';
+import { PlantPhoto } from './models/plant-photo';
 import { Scale } from './models/scale';
 import { Show } from './models/show';
 import { ShowClass } from './models/show-class';
@@ -25,6 +29,11 @@ Show.initModel(sequelize);
 Division.initModel(sequelize);
 ShowClass.initModel(sequelize);
 Entry.initModel(sequelize);
+// The member's collection (issue 6)
+Plant.initModel(sequelize);
+PlantEvent.initModel(sequelize);
+PlantPhoto.initModel(sequelize);
+MailPreference.initModel(sequelize);
 
 Membership.belongsTo(Society, { foreignKey: 'societyId', as: 'society' });
 Membership.belongsTo(User, { foreignKey: 'userId', as: 'user' });
@@ -49,11 +58,24 @@ Entry.belongsTo(User, { foreignKey: 'exhibitorId', as: 'exhibitor' });
 Entry.belongsTo(Variety, { foreignKey: 'varietyId', as: 'variety' });
 ShowClass.hasMany(Entry, { foreignKey: 'classId', as: 'entries' });
 
+Plant.belongsTo(User, { foreignKey: 'ownerId', as: 'owner' });
+Plant.belongsTo(Variety, { foreignKey: 'varietyId', as: 'variety' });
+Plant.belongsTo(Plant, { foreignKey: 'parentId', as: 'parent' });
+Plant.hasMany(PlantEvent, { foreignKey: 'plantId', as: 'events' });
+Plant.hasMany(PlantPhoto, { foreignKey: 'plantId', as: 'photos' });
+PlantEvent.belongsTo(Plant, { foreignKey: 'plantId', as: 'plant' });
+PlantPhoto.belongsTo(Plant, { foreignKey: 'plantId', as: 'plant' });
+MailPreference.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+
 export {
 	Account,
 	Division,
 	Entry,
+	MailPreference,
 	Membership,
+	Plant,
+	PlantEvent,
+	PlantPhoto,
 	Scale,
 	Session,
 	Show,
