@@ -88,13 +88,16 @@ export async function loadShowResults(
 	if (!show) return null;
 	const q = <T extends object>(sql: string) =>
 		sequelize.query<T>(sql, { replacements: { showId }, type: QueryTypes.SELECT, transaction });
-	const [judging, divisions, extras, awards, ties] = await Promise.all([
-		loadShowJudging(showId, transaction),
-		q<{ id: string; code: string; name: string }>(
-			'SELECT id, code, name FROM divisions WHERE show_id = :showId ORDER BY position, code'
-		),
-		q<{ id: string; plant: string; exhibitor: string | null; comments: string[] }>(
-			`SELECT e.id, coalesce(v.name, e.title, '') AS plant, u.name AS exhibitor,
+	// Inside a transaction the queries share one connection, so they run one after the other.
+	const [judging, divisions, extras, awards, ties] = await inTurnOrTogether(transaction, [
+		() => loadShowJudging(showId, transaction),
+		() =>
+			q<{ id: string; code: string; name: string }>(
+				'SELECT id, code, name FROM divisions WHERE show_id = :showId ORDER BY position, code'
+			),
+		() =>
+			q<{ id: string; plant: string; exhibitor: string | null; comments: string[] }>(
+				`SELECT e.id, coalesce(v.name, e.title, '') AS plant, u.name AS exhibitor,
 			        coalesce(array_agg(ss.comment ORDER BY ss.created_at, ss.id)
 			                 FILTER (WHERE ss.comment <> '' AND ss.kind = (CASE WHEN sh.panel_score_method = 'consensus' THEN 'consensus' ELSE 'judge' END)),
 			                 '{}') AS comments
@@ -105,24 +108,28 @@ export async function loadShowResults(
 			   LEFT JOIN score_sheets ss ON ss.entry_id = e.id
 			  WHERE e.show_id = :showId AND e.status NOT IN ('withdrawn', 'scratched')
 			  GROUP BY e.id, v.name, u.name`
-		),
-		q<{
-			kind: Award['kind'];
-			entry_id: string | null;
-			exhibitor_id: string | null;
-			class_id: string | null;
-			division_id: string | null;
-			top_award_id: string | null;
-			top_award_name: string | null;
-			level: Award['level'] | null;
-			score: string | null;
-		}>(
-			`SELECT kind, entry_id, exhibitor_id, class_id, division_id, top_award_id, top_award_name,
+			),
+		() =>
+			q<{
+				kind: Award['kind'];
+				entry_id: string | null;
+				exhibitor_id: string | null;
+				class_id: string | null;
+				division_id: string | null;
+				top_award_id: string | null;
+				top_award_name: string | null;
+				level: Award['level'] | null;
+				score: string | null;
+			}>(
+				`SELECT kind, entry_id, exhibitor_id, class_id, division_id, top_award_id, top_award_name,
 			        level, score
 			   FROM awards WHERE show_id = :showId ORDER BY position`
-		),
-		q<{ reason: string }>('SELECT reason FROM award_ties WHERE show_id = :showId ORDER BY position')
-	]);
+			),
+		() =>
+			q<{ reason: string }>(
+				'SELECT reason FROM award_ties WHERE show_id = :showId ORDER BY position'
+			)
+	] as const);
 	const extra = new Map(extras.map((e) => [e.id, e]));
 	const source: ResultsSource = {
 		show: {
@@ -171,6 +178,21 @@ export async function loadShowResults(
 		undecided: ties.map((t) => t.reason)
 	};
 	return assembleResults(source);
+}
+
+/** Runs the reads together on the pool, or one after the other on a transaction's connection. */
+async function inTurnOrTogether<T extends readonly (() => Promise<unknown>)[]>(
+	transaction: Transaction | undefined,
+	reads: T
+): Promise<{ -readonly [K in keyof T]: Awaited<ReturnType<T[K]>> }> {
+	if (!transaction) {
+		return Promise.all(reads.map((read) => read())) as Promise<{
+			-readonly [K in keyof T]: Awaited<ReturnType<T[K]>>;
+		}>;
+	}
+	const out: unknown[] = [];
+	for (const read of reads) out.push(await read());
+	return out as { -readonly [K in keyof T]: Awaited<ReturnType<T[K]>> };
 }
 
 /** Results rendered for the public page, kept per show in this process. */
