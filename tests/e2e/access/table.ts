@@ -60,7 +60,19 @@ export const ACCESS_TABLE: AccessRow[] = [
 	{ route: '/admin', query: 'society=cedar-ridge', answers: { ...pageFor('other'), admin: 403 } },
 	{ route: '/chair', answers: pageFor('chair', 'other') },
 	{ route: '/desk', answers: pageFor('clerk', 'chair', 'other') },
-	{ route: '/judging', answers: pageFor('judge') },
+	// Judging (issue 4): judges, and clerks who keep a panel's sheets; judge1 and clerk@ are on
+	// the panel of the class and entry used here. Chair pages are for the show's own chair.
+	{ route: '/judging', answers: pageFor('judge', 'clerk') },
+	{ route: '/judging/class/[classId]', answers: pageFor('judge', 'clerk') },
+	{ route: '/judging/entry/[entryId]', answers: pageFor('judge', 'clerk') },
+	{ route: '/api/judging/classes/[classId]', answers: apiFor('judge', 'clerk') },
+	{ route: '/api/judging/sheets', answers: { ...apiFor(), judge: 405, clerk: 405 } },
+	{ route: '/chair/shows/[slug]/panels', answers: pageFor('chair') },
+	{ route: '/chair/shows/[slug]/board', answers: pageFor('chair') },
+	{ route: '/chair/shows/[slug]/awards', answers: pageFor('chair') },
+	{ route: '/chair/shows/[slug]/awards/rules', answers: pageFor('chair') },
+	{ route: '/chair/shows/[slug]/audit', answers: pageFor('chair') },
+	{ route: '/api/chair/shows/[slug]/board', answers: apiFor('chair') },
 	{ route: '/my', answers: pageFor('member', 'clerk', 'chair', 'admin', 'other') },
 	// The member's collection (issue 6): plants are private to their owner (member@), so other
 	// members get 404 for them; a judge who is no member gets 403.

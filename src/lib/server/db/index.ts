@@ -7,7 +7,11 @@ import { Membership } from './models/membership';
 import { Plant } from './models/plant';
 import { PlantEvent } from './models/plant-event';
 import { PlantPhoto } from './models/plant-photo';
+import { Panel } from './models/panel';
+import { PanelClass } from './models/panel-class';
+import { PanelJudge } from './models/panel-judge';
 import { Scale } from './models/scale';
+import { ScoreSheet } from './models/score-sheet';
 import { Show } from './models/show';
 import { ShowClass } from './models/show-class';
 import { Society } from './models/society';
@@ -34,6 +38,10 @@ Plant.initModel(sequelize);
 PlantEvent.initModel(sequelize);
 PlantPhoto.initModel(sequelize);
 MailPreference.initModel(sequelize);
+Panel.initModel(sequelize);
+PanelJudge.initModel(sequelize);
+PanelClass.initModel(sequelize);
+ScoreSheet.initModel(sequelize);
 
 Membership.belongsTo(Society, { foreignKey: 'societyId', as: 'society' });
 Membership.belongsTo(User, { foreignKey: 'userId', as: 'user' });
@@ -66,6 +74,8 @@ Plant.hasMany(PlantPhoto, { foreignKey: 'plantId', as: 'photos' });
 PlantEvent.belongsTo(Plant, { foreignKey: 'plantId', as: 'plant' });
 PlantPhoto.belongsTo(Plant, { foreignKey: 'plantId', as: 'plant' });
 MailPreference.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+Panel.belongsTo(Show, { foreignKey: 'showId', as: 'show' });
+Show.hasMany(Panel, { foreignKey: 'showId', as: 'panels' });
 
 export {
 	Account,
@@ -76,7 +86,11 @@ export {
 	Plant,
 	PlantEvent,
 	PlantPhoto,
+	Panel,
+	PanelClass,
+	PanelJudge,
 	Scale,
+	ScoreSheet,
 	Session,
 	Show,
 	ShowClass,
