@@ -3,6 +3,7 @@ import { Account, Session, VerificationToken } from './models/auth-records';
 import { Division } from './models/division';
 import { Entry } from './models/entry';
 import { MailPreference } from './models/mail-preference';
+import { EntryPhoto } from './models/entry-photo';
 import { Membership } from './models/membership';
 import { Plant } from './models/plant';
 import { PlantEvent } from './models/plant-event';
@@ -42,6 +43,7 @@ Panel.initModel(sequelize);
 PanelJudge.initModel(sequelize);
 PanelClass.initModel(sequelize);
 ScoreSheet.initModel(sequelize);
+EntryPhoto.initModel(sequelize);
 
 Membership.belongsTo(Society, { foreignKey: 'societyId', as: 'society' });
 Membership.belongsTo(User, { foreignKey: 'userId', as: 'user' });
@@ -65,6 +67,8 @@ Entry.belongsTo(ShowClass, { foreignKey: 'classId', as: 'showClass' });
 Entry.belongsTo(User, { foreignKey: 'exhibitorId', as: 'exhibitor' });
 Entry.belongsTo(Variety, { foreignKey: 'varietyId', as: 'variety' });
 ShowClass.hasMany(Entry, { foreignKey: 'classId', as: 'entries' });
+EntryPhoto.belongsTo(Entry, { foreignKey: 'entryId', as: 'entry' });
+Entry.hasMany(EntryPhoto, { foreignKey: 'entryId', as: 'photos' });
 
 Plant.belongsTo(User, { foreignKey: 'ownerId', as: 'owner' });
 Plant.belongsTo(Variety, { foreignKey: 'varietyId', as: 'variety' });
@@ -82,6 +86,7 @@ export {
 	Division,
 	Entry,
 	MailPreference,
+	EntryPhoto,
 	Membership,
 	Plant,
 	PlantEvent,

@@ -27,6 +27,10 @@ export class Entry extends Model<InferAttributes<Entry>, InferCreationAttributes
 	declare potSizeIn: string | null;
 	declare checkedInAt: Date | null;
 	declare checkedInBy: string | null;
+	declare shownSizeClass: CreationOptional<
+		'miniature' | 'semiminiature' | 'standard' | 'large' | null
+	>;
+	declare deskNote: CreationOptional<string | null>;
 	declare createdAt: CreationOptional<Date>;
 	declare updatedAt: CreationOptional<Date>;
 
@@ -48,6 +52,8 @@ export class Entry extends Model<InferAttributes<Entry>, InferCreationAttributes
 				potSizeIn: { type: DataTypes.DECIMAL(4, 2) },
 				checkedInAt: { type: DataTypes.DATE },
 				checkedInBy: { type: DataTypes.UUID },
+				shownSizeClass: { type: DataTypes.STRING(16) },
+				deskNote: { type: DataTypes.STRING(240) },
 				createdAt: { type: DataTypes.DATE, defaultValue: DataTypes.NOW },
 				updatedAt: { type: DataTypes.DATE, defaultValue: DataTypes.NOW }
 			},
