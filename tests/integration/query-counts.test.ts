@@ -4,10 +4,12 @@
  * the shared Sequelize instance's logging hook while the service runs.
  */
 import { randomUUID } from 'node:crypto';
+import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { entriesQuerySchema } from '../../src/lib/schemas/desk';
 import { sequelize } from '../../src/lib/server/db';
 import { entriesCsv, queryEntriesTable } from '../../src/lib/server/services/entries-table';
+import { loadPublicResults, loadShowResults } from '../../src/lib/server/services/show-results';
 import {
 	listJudgeAssignments,
 	loadJudgeClass,
@@ -67,6 +69,8 @@ interface Counts {
 	showJudging: number;
 	publish: number;
 	publishedAwards: number;
+	showResults: number;
+	publicResults: number;
 }
 
 async function measure(entryCount: number): Promise<{ fixture: Fixture; counts: Counts }> {
@@ -97,7 +101,15 @@ async function measure(entryCount: number): Promise<{ fixture: Fixture; counts: 
 				publishResults({ id: judge.id }, f.showId, { transaction, allowIncomplete: true })
 			)
 		),
-		publishedAwards: await countQueries(() => loadPublishedAwards(f.showId))
+		publishedAwards: await countQueries(() => loadPublishedAwards(f.showId)),
+		showResults: await countQueries(() => loadShowResults(f.showId)),
+		publicResults: await countQueries(async () => {
+			const [{ slug }] = await sequelize.query<{ slug: string }>(
+				'SELECT slug FROM shows WHERE id = :id',
+				{ replacements: { id: f.showId }, type: QueryTypes.SELECT }
+			);
+			return loadPublicResults(slug);
+		})
 	};
 	return { fixture: f, counts };
 }
@@ -135,7 +147,9 @@ describe('statements per list do not grow with the show (no N+1)', () => {
 		['a score sheet save', 'save'],
 		['the awards of the whole show', 'showJudging'],
 		['publishing the results', 'publish'],
-		['the published awards', 'publishedAwards']
+		['the published awards', 'publishedAwards'],
+		['the results of the show (documents, e-mails, the page when not cached)', 'showResults'],
+		['the public results page', 'publicResults']
 	] as const)('%s', (_label, key) => {
 		expect(small.counts[key]).toBeGreaterThan(0);
 		expect(large.counts[key]).toBe(small.counts[key]);
