@@ -5,6 +5,7 @@ import { DATABASE_DOWN_MESSAGE, isDatabaseDown } from '$lib/server/db/connection
 import { AREA_ROLES, areaOf, requireRole, requireUser } from '$lib/server/policies';
 import { startOutboxWorker } from '$lib/server/mail/outbox';
 import { loadSignedInUser } from '$lib/server/services/people';
+import { startRefundSender } from '$lib/server/services/refunds';
 
 const SESSION_COOKIES = ['authjs.session-token', '__Secure-authjs.session-token'];
 
@@ -68,5 +69,8 @@ export const handleError: HandleServerError = ({ error: err, status }) => {
  * `npm run worker` as its own process). Several senders are safe: rows are claimed with SKIP LOCKED.
  */
 export const init: ServerInit = () => {
-	if (process.env.CB_OUTBOX_WORKER !== 'off') startOutboxWorker();
+	if (process.env.CB_OUTBOX_WORKER !== 'off') {
+		startOutboxWorker();
+		startRefundSender();
+	}
 };

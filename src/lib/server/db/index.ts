@@ -1,8 +1,11 @@
 import { createSequelize } from './connection';
 import { Account, Session, VerificationToken } from './models/auth-records';
 import { Division } from './models/division';
+import { DuesPeriod } from './models/dues-period';
 import { Entry } from './models/entry';
 import { Membership } from './models/membership';
+import { Payment } from './models/payment';
+import { Refund } from './models/refund';
 import { Scale } from './models/scale';
 import { Show } from './models/show';
 import { ShowClass } from './models/show-class';
@@ -25,6 +28,9 @@ Show.initModel(sequelize);
 Division.initModel(sequelize);
 ShowClass.initModel(sequelize);
 Entry.initModel(sequelize);
+DuesPeriod.initModel(sequelize);
+Payment.initModel(sequelize);
+Refund.initModel(sequelize);
 
 Membership.belongsTo(Society, { foreignKey: 'societyId', as: 'society' });
 Membership.belongsTo(User, { foreignKey: 'userId', as: 'user' });
@@ -49,11 +55,19 @@ Entry.belongsTo(User, { foreignKey: 'exhibitorId', as: 'exhibitor' });
 Entry.belongsTo(Variety, { foreignKey: 'varietyId', as: 'variety' });
 ShowClass.hasMany(Entry, { foreignKey: 'classId', as: 'entries' });
 
+DuesPeriod.belongsTo(Society, { foreignKey: 'societyId', as: 'society' });
+Payment.belongsTo(Society, { foreignKey: 'societyId', as: 'society' });
+Payment.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+Refund.belongsTo(Payment, { foreignKey: 'paymentId', as: 'payment' });
+
 export {
 	Account,
 	Division,
+	DuesPeriod,
 	Entry,
 	Membership,
+	Payment,
+	Refund,
 	Scale,
 	Session,
 	Show,
