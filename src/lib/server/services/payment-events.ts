@@ -151,19 +151,12 @@ async function recordPaidSession(
 		{ transaction }
 	);
 
-	let note: string | undefined;
-	let refundsRequested = false;
-	if (payment.purpose === 'dues') {
-		const result = await applyDues(payment, transaction);
-		note = result.note;
-		refundsRequested = result.refund;
-	} else {
-		const result = await applyEntryFees(payment, transaction);
-		note = result.note;
-		refundsRequested = result.refund;
-	}
-	await queueReceipt(payment, paidAt, note, transaction);
-	return { outcome: `recorded ${payment.purpose} payment`, refundsRequested };
+	const result =
+		payment.purpose === 'dues'
+			? await applyDues(payment, transaction)
+			: await applyEntryFees(payment, transaction);
+	await queueReceipt(payment, paidAt, result.note, transaction);
+	return { outcome: `recorded ${payment.purpose} payment`, refundsRequested: result.refund };
 }
 
 /** Moves the member's dues forward to the end of the period paid (never backwards). */
