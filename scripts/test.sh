@@ -31,6 +31,9 @@ export AUTH_SECRET="test-secret-$(date +%s)-$RANDOM"
 export PAYMENT_FAKE_PORT="${TEST_PAYMENT_PORT:-12112}"
 export PAYMENT_FAKE_WEBHOOK_URL="http://127.0.0.1:${TEST_APP_PORT:-4173}/api/payments/webhook"
 use_payment_fake
+# Browser tests sign the same demo people in many times: a roomier limit per address, and all
+# of them come from 127.0.0.1. A test checks that the limit per address still bites.
+export CB_SIGNIN_LIMIT_PER_ADDRESS="${CB_SIGNIN_LIMIT_PER_ADDRESS:-30}" CB_SIGNIN_LIMIT_PER_IP="${CB_SIGNIN_LIMIT_PER_IP:-100000}"
 start_smtp_fake
 start_payment_fake
 trap stop_background EXIT INT TERM

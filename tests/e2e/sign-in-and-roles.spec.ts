@@ -106,9 +106,32 @@ test('a sign-in link works once', async ({ page, context }) => {
 });
 
 test('signing out ends the session', async ({ page }) => {
-	await signIn(page, 'clerk@crownbench.test');
+	await signIn(page, 'clerk@crownbench.test', { fresh: true });
 	await page.getByRole('button', { name: 'Sign out' }).click();
 	await expect(page.getByRole('link', { name: 'Sign in' })).toBeVisible();
 	await page.goto('/desk');
 	await expect(page).toHaveURL(/\/signin/);
+});
+
+test('too many sign-in links for one address are refused with a clear message', async ({
+	page,
+	request,
+	baseURL
+}) => {
+	const email = `hurry-${Date.now()}@crownbench.test`;
+	const limit = Number(process.env.CB_SIGNIN_LIMIT_PER_ADDRESS ?? 5);
+	for (let i = 0; i < limit; i++) {
+		const response = await request.post('/signin', {
+			form: { providerId: 'nodemailer', redirectTo: '/home', email },
+			headers: { origin: baseURL ?? '' },
+			maxRedirects: 0
+		});
+		expect(response.status()).toBeLessThan(400);
+	}
+	await page.goto('/signin');
+	await page.getByLabel('E-mail address').fill(email);
+	await page.getByRole('button', { name: 'Send me a sign-in link' }).click();
+	await expect(
+		page.getByText(/Too many sign-in links were asked for\. Try again in \d+ minutes?\./)
+	).toBeVisible();
 });

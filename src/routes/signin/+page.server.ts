@@ -1,5 +1,6 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { signIn } from '$lib/server/auth';
+import { takeSignInAttempt } from '$lib/server/rate-limit';
 import { safeNextPath, signInSchema } from '$lib/schemas/sign-in';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -18,6 +19,13 @@ export const actions: Actions = {
 			return fail(400, {
 				email: typeof form.email === 'string' ? form.email : '',
 				message: errors.email?.[0] ?? 'Check the form and try again.'
+			});
+		}
+		const wait = await takeSignInAttempt(parsed.data.email, event.getClientAddress());
+		if (wait !== null) {
+			return fail(429, {
+				email: parsed.data.email,
+				message: `Too many sign-in links were asked for. Try again in ${wait} minute${wait === 1 ? '' : 's'}.`
 			});
 		}
 		await signIn(event);
