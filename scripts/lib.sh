@@ -51,9 +51,20 @@ use_payment_fake() {
 	export STRIPE_API_HOST=127.0.0.1 STRIPE_API_PORT="$PAYMENT_FAKE_PORT" STRIPE_API_PROTOCOL=http
 }
 
+# Stops a process: SIGTERM, then SIGKILL if it has not ended within 10 s.
+stop_pid() {
+	local pid="$1" i
+	kill "$pid" 2>/dev/null || return 0
+	for ((i = 0; i < 50; i++)); do
+		kill -0 "$pid" 2>/dev/null || break
+		sleep 0.2
+	done
+	kill -9 "$pid" 2>/dev/null || true
+	wait "$pid" 2>/dev/null || true
+}
+
 stop_background() {
 	local pid
-	for pid in "${background_pids[@]}"; do kill "$pid" 2>/dev/null || true; done
-	for pid in "${background_pids[@]}"; do wait "$pid" 2>/dev/null || true; done
+	for pid in "${background_pids[@]}"; do stop_pid "$pid"; done
 	background_pids=()
 }

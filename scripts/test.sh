@@ -69,8 +69,7 @@ e2e() {
 	wait_for_url "http://127.0.0.1:$port/" 30 || { cat .data/e2e-app.log; return 1; }
 	E2E_BASE_URL="http://127.0.0.1:$port" npx playwright test
 	local rc=$?
-	kill "$app" 2>/dev/null
-	wait "$app" 2>/dev/null
+	stop_pid "$app"
 	[ $rc -eq 0 ] || { echo "--- app log"; tail -50 .data/e2e-app.log; }
 	return $rc
 }

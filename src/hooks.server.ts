@@ -1,6 +1,7 @@
 import { error, type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { authHandle } from '$lib/server/auth';
+import { sequelize } from '$lib/server/db';
 import { DATABASE_DOWN_MESSAGE, isDatabaseDown } from '$lib/server/db/connection';
 import { AREA_ROLES, areaOf, requireRole, requireUser } from '$lib/server/policies';
 import { startOutboxWorker } from '$lib/server/mail/outbox';
@@ -69,8 +70,13 @@ export const handleError: HandleServerError = ({ error: err, status }) => {
  * `npm run worker` as its own process). Several senders are safe: rows are claimed with SKIP LOCKED.
  */
 export const init: ServerInit = () => {
-	if (process.env.CB_OUTBOX_WORKER !== 'off') {
-		startOutboxWorker();
-		startRefundSender();
-	}
+	const off = process.env.CB_OUTBOX_WORKER === 'off';
+	const stopWorker = off ? () => {} : startOutboxWorker();
+	const stopRefunds = off ? () => {} : startRefundSender();
+	// adapter-node emits this after it stops taking requests (SIGTERM, SIGINT): let the process end.
+	process.once('sveltekit:shutdown', () => {
+		stopWorker();
+		stopRefunds();
+		void sequelize.close();
+	});
 };

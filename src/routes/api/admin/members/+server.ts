@@ -1,16 +1,19 @@
-import { error, json } from '@sveltejs/kit';
+import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import { memberQuerySchema } from '$lib/schemas/members';
 import { requireRole } from '$lib/server/policies';
 import { listMembers } from '$lib/server/services/members';
+import { chooseSociety } from '$lib/server/society-choice';
 import type { RequestHandler } from './$types';
 
-/** The admin's members table: sorted, filtered and paged in the database. */
+/**
+ * The admin's members table (?society=<slug>): sorted, filtered and paged in the database.
+ * 403 for a society the person is not an admin of; 400 with the problems for bad filters.
+ */
 export const GET: RequestHandler = async (event) => {
+	const user = requireRole(event, ['admin']);
+	const society = chooseSociety(user, ['admin'], event.url.searchParams.get('society'));
 	const params = Object.fromEntries(event.url.searchParams);
-	const society = z.uuid().safeParse(params.society);
-	if (!society.success) error(400, 'Name the society (society=<id>).');
-	requireRole(event, ['admin'], society.data);
 	const parsed = memberQuerySchema.safeParse({
 		...params,
 		role: params.role || undefined,
@@ -22,5 +25,5 @@ export const GET: RequestHandler = async (event) => {
 			{ status: 400 }
 		);
 	}
-	return json(await listMembers(society.data, parsed.data));
+	return json(await listMembers(society.societyId, parsed.data));
 };

@@ -1,0 +1,89 @@
+import type { Visitor } from './people';
+
+/**
+ * What each visitor gets from a route: a status code, or 'signin' for a redirect to the sign-in
+ * page. Every route of the app must have a row (the access test fails otherwise).
+ */
+export type Answer = 200 | 303 | 'signin' | 401 | 403 | 404 | 405;
+
+export interface AccessRow {
+	/** The route id, as in src/routes (with [params]). */
+	route: string;
+	method?: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
+	/** Values for the route's params, by name; defaults come from params.ts. */
+	params?: Record<string, string>;
+	/** Query string to add. */
+	query?: string;
+	answers: Record<Visitor, Answer>;
+}
+
+const all = (answer: Answer): Record<Visitor, Answer> => ({
+	anon: answer,
+	other: answer,
+	member: answer,
+	clerk: answer,
+	judge: answer,
+	chair: answer,
+	admin: answer
+});
+
+/** A page open to the listed visitors; signed-out visitors are sent to sign in, others get 403. */
+const pageFor = (...allowed: Visitor[]): Record<Visitor, Answer> => ({
+	...all(403),
+	anon: 'signin',
+	...Object.fromEntries(allowed.map((v) => [v, 200]))
+});
+
+/** An API open to the listed visitors; signed-out visitors get 401, others 403. */
+const apiFor = (...allowed: Visitor[]): Record<Visitor, Answer> => ({
+	...all(403),
+	anon: 401,
+	...Object.fromEntries(allowed.map((v) => [v, 200]))
+});
+
+// Who is who (demo seed): other = admin and chair of another society; member = exhibitor;
+// clerk, chair and admin also hold the member role; judge1 is a judge only.
+export const ACCESS_TABLE: AccessRow[] = [
+	{ route: '/', answers: all(200) },
+	{ route: '/signin', answers: { ...all(303), anon: 200 } },
+	{ route: '/signin/check-mail', answers: all(200) },
+	{ route: '/signin/problem', answers: all(200) },
+	{ route: '/signout', answers: all(303) },
+	{ route: '/dev/mail', answers: all(200) },
+	{ route: '/home', answers: { ...all(200), anon: 'signin', member: 303, judge: 303 } },
+	{ route: '/admin', answers: pageFor('admin', 'other') },
+	{ route: '/admin', query: 'society=cedar-ridge', answers: { ...pageFor('other'), admin: 403 } },
+	{ route: '/chair', answers: pageFor('chair', 'other') },
+	{ route: '/desk', answers: pageFor('clerk', 'chair', 'other') },
+	{ route: '/judging', answers: pageFor('judge') },
+	{ route: '/my', answers: pageFor('member', 'clerk', 'chair', 'admin', 'other') },
+	{ route: '/admin/members', answers: pageFor('admin', 'other') },
+	{
+		route: '/admin/members',
+		query: 'society=cedar-ridge',
+		answers: { ...pageFor('other'), admin: 403 }
+	},
+	{ route: '/admin/dues', answers: pageFor('admin', 'other') },
+	{
+		route: '/admin/dues',
+		query: 'society=cedar-ridge',
+		answers: { ...pageFor('other'), admin: 403 }
+	},
+	{
+		route: '/api/admin/members',
+		query: 'society=larkspur-valley&sort=duesPaidThrough',
+		answers: apiFor('admin')
+	},
+	{
+		route: '/api/admin/members',
+		query: 'sort=nonsense',
+		answers: { ...apiFor(), admin: 400, other: 400 }
+	},
+	{ route: '/my/membership', answers: pageFor('member', 'clerk', 'chair', 'admin', 'other') },
+	{ route: '/my/payments', answers: pageFor('member', 'clerk', 'chair', 'admin', 'other') },
+	// Public, but only a correctly signed event changes anything.
+	{ route: '/api/payments/webhook', answers: all(405) },
+	{ route: '/api/payments/webhook', method: 'POST', answers: all(400) }
+];
+
+export { all, apiFor, pageFor };
