@@ -4,7 +4,7 @@ import type { Visitor } from './people';
  * What each visitor gets from a route: a status code, or 'signin' for a redirect to the sign-in
  * page. Every route of the app must have a row (the access test fails otherwise).
  */
-export type Answer = 200 | 303 | 'signin' | 401 | 403 | 404 | 405;
+export type Answer = 200 | 303 | 'signin' | 400 | 401 | 403 | 404 | 405;
 
 export interface AccessRow {
 	/** The route id, as in src/routes (with [params]). */
