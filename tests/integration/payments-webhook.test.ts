@@ -152,6 +152,10 @@ afterAll(async () => {
 		bind: [created]
 	});
 	await User.destroy({ where: { id: created } });
+	// Messages queued here must not wait in the outbox for another test's sender.
+	await sequelize.query(
+		`DELETE FROM outbox_messages WHERE kind IN ('payment-receipt', 'payment-refund')`
+	);
 	await Payment.destroy({ where: { userId: lapsed.id } });
 	await sequelize.close();
 });
