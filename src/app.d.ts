@@ -5,6 +5,10 @@ declare global {
 		interface Error {
 			message: string;
 		}
+		interface PageState {
+			/** The entry shown on a judge's scoresheet after moving between entries without a reload. */
+			entryId?: string;
+		}
 		interface Locals {
 			/** The signed-in person, or null; filled by hooks.server.ts. */
 			user: SignedInUser | null;

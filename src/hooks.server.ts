@@ -7,6 +7,8 @@ import { AREA_ROLES, areaOf, requireRole, requireUser } from '$lib/server/polici
 import { startOutboxWorker } from '$lib/server/mail/outbox';
 import { loadSignedInUser } from '$lib/server/services/people';
 import { startRefundSender } from '$lib/server/services/refunds';
+import { startReminderSchedule } from '$lib/server/services/reminders';
+import { todayIso } from '$lib/schemas/plants';
 
 const SESSION_COOKIES = ['authjs.session-token', '__Secure-authjs.session-token'];
 
@@ -73,10 +75,14 @@ export const init: ServerInit = () => {
 	const off = process.env.CB_OUTBOX_WORKER === 'off';
 	const stopWorker = off ? () => {} : startOutboxWorker();
 	const stopRefunds = off ? () => {} : startRefundSender();
+	// Entry reminders: an hourly check queues them once per show and member (CB_REMINDERS=off stops it).
+	const stopReminders =
+		process.env.CB_REMINDERS !== 'off' ? startReminderSchedule(todayIso) : () => {};
 	// adapter-node emits this after it stops taking requests (SIGTERM, SIGINT): let the process end.
 	process.once('sveltekit:shutdown', () => {
 		stopWorker();
 		stopRefunds();
+		stopReminders();
 		void sequelize.close();
 	});
 };

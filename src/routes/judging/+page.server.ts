@@ -1,9 +1,8 @@
-import { requireRole, societiesWithRole } from '$lib/server/policies';
-import { listShowsOfSocieties } from '$lib/server/services/shows';
+import { requireRole } from '$lib/server/policies';
+import { listJudgeAssignments } from '$lib/server/services/judging';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
-	const user = requireRole(event, ['judge']);
-	const shows = await listShowsOfSocieties(societiesWithRole(user, ['judge']));
-	return { shows: shows.map((s) => ({ id: s.id, name: s.name, judgingDay: s.judgingDay })) };
+	const user = requireRole(event, ['judge', 'clerk']);
+	return { assignments: await listJudgeAssignments(user.id) };
 };

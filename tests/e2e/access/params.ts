@@ -9,14 +9,25 @@ export async function loadParams(): Promise<Record<string, string>> {
 			`SELECT s.slug, s.id FROM shows s JOIN societies so ON so.id = s.society_id
 			  WHERE so.slug = 'larkspur-valley' ORDER BY s.judging_day DESC LIMIT 1`
 		);
-		const entry = await client.query<{ id: string; number: number }>(
-			`SELECT id, number FROM entries WHERE show_id = $1 ORDER BY number LIMIT 1`,
+		// An entry in a class that judge1's panel judges (demo seed: panel A, clerk@ as its clerk).
+		const entry = await client.query<{ id: string; number: number; class_id: string }>(
+			`SELECT e.id, e.number, e.class_id FROM entries e
+			   JOIN panel_classes pc ON pc.class_id = e.class_id
+			   JOIN panel_judges pj ON pj.panel_id = pc.panel_id
+			   JOIN users u ON u.id = pj.user_id AND u.email = 'judge1@crownbench.test'
+			  WHERE e.show_id = $1 ORDER BY e.number LIMIT 1`,
 			[show.rows[0].id]
 		);
+		const plant = await client.query<{ id: string }>(
+			`SELECT p.id FROM plants p JOIN users u ON u.id = p.owner_id
+			  WHERE u.email = 'member@crownbench.test' ORDER BY p.obtained_on, p.id LIMIT 1`
+		);
 		return {
+			plantId: plant.rows[0].id,
 			slug: show.rows[0].slug,
 			showId: show.rows[0].id,
 			entryId: entry.rows[0].id,
+			classId: entry.rows[0].class_id,
 			number: String(entry.rows[0].number)
 		};
 	} finally {

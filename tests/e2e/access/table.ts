@@ -41,6 +41,11 @@ const apiFor = (...allowed: Visitor[]): Record<Visitor, Answer> => ({
 	...Object.fromEntries(allowed.map((v) => [v, 200]))
 });
 
+/** A plant of member@'s own collection: only its owner sees it; other members get 404. */
+function ownPlant(): Record<Visitor, Answer> {
+	return { ...pageFor('member'), clerk: 404, chair: 404, admin: 404, other: 404 };
+}
+
 // Who is who (demo seed): other = admin and chair of another society; member = exhibitor;
 // clerk, chair and admin also hold the member role; judge1 is a judge only.
 export const ACCESS_TABLE: AccessRow[] = [
@@ -55,8 +60,48 @@ export const ACCESS_TABLE: AccessRow[] = [
 	{ route: '/admin', query: 'society=cedar-ridge', answers: { ...pageFor('other'), admin: 403 } },
 	{ route: '/chair', answers: pageFor('chair', 'other') },
 	{ route: '/desk', answers: pageFor('clerk', 'chair', 'other') },
-	{ route: '/judging', answers: pageFor('judge') },
+	// Judging (issue 4): judges, and clerks who keep a panel's sheets; judge1 and clerk@ are on
+	// the panel of the class and entry used here. Chair pages are for the show's own chair.
+	{ route: '/judging', answers: pageFor('judge', 'clerk') },
+	{ route: '/judging/class/[classId]', answers: pageFor('judge', 'clerk') },
+	{ route: '/judging/entry/[entryId]', answers: pageFor('judge', 'clerk') },
+	{ route: '/api/judging/classes/[classId]', answers: apiFor('judge', 'clerk') },
+	{ route: '/api/judging/sheets', answers: { ...apiFor(), judge: 405, clerk: 405 } },
+	{ route: '/chair/shows/[slug]/panels', answers: pageFor('chair') },
+	{ route: '/chair/shows/[slug]/board', answers: pageFor('chair') },
+	{ route: '/chair/shows/[slug]/awards', answers: pageFor('chair') },
+	{ route: '/chair/shows/[slug]/awards/rules', answers: pageFor('chair') },
+	{ route: '/chair/shows/[slug]/audit', answers: pageFor('chair') },
+	{ route: '/api/chair/shows/[slug]/board', answers: apiFor('chair') },
 	{ route: '/my', answers: pageFor('member', 'clerk', 'chair', 'admin', 'other') },
+	// The member's collection (issue 6): plants are private to their owner (member@), so other
+	// members get 404 for them; a judge who is no member gets 403.
+	{ route: '/my/plants', answers: pageFor('member', 'clerk', 'chair', 'admin', 'other') },
+	{ route: '/my/plants/new', answers: pageFor('member', 'clerk', 'chair', 'admin', 'other') },
+	{ route: '/my/plants/labels', answers: pageFor('member', 'clerk', 'chair', 'admin', 'other') },
+	{
+		route: '/my/plants/labels/pdf',
+		answers: { ...pageFor(), member: 400, clerk: 400, chair: 400, admin: 400, other: 400 }
+	},
+	{ route: '/my/plants/readiness', answers: pageFor('member', 'clerk', 'chair', 'admin', 'other') },
+	{ route: '/my/plants/[plantId]', answers: ownPlant() },
+	{ route: '/my/plants/[plantId]/edit', answers: ownPlant() },
+	{ route: '/my/plants/[plantId]/lineage', answers: ownPlant() },
+	{
+		route: '/my/plants/[plantId]/photos/[photoId]',
+		params: { photoId: '00000000-0000-4000-8000-000000000000' },
+		answers: { ...ownPlant(), member: 404 }
+	},
+	{
+		route: '/my/plants/[plantId]',
+		params: { plantId: 'not-an-id' },
+		answers: { ...ownPlant(), member: 404 }
+	},
+	{ route: '/my/mail', answers: pageFor('member', 'clerk', 'chair', 'admin', 'other') },
+	{
+		route: '/api/chair/shows/[showId]/entry-reminders',
+		answers: { ...apiFor(), chair: 405, other: 405 }
+	},
 	{ route: '/admin/members', answers: pageFor('admin', 'other') },
 	{
 		route: '/admin/members',

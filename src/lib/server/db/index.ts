@@ -3,10 +3,18 @@ import { Account, Session, VerificationToken } from './models/auth-records';
 import { Division } from './models/division';
 import { DuesPeriod } from './models/dues-period';
 import { Entry } from './models/entry';
+import { MailPreference } from './models/mail-preference';
 import { Membership } from './models/membership';
 import { Payment } from './models/payment';
 import { Refund } from './models/refund';
+import { Plant } from './models/plant';
+import { PlantEvent } from './models/plant-event';
+import { PlantPhoto } from './models/plant-photo';
+import { Panel } from './models/panel';
+import { PanelClass } from './models/panel-class';
+import { PanelJudge } from './models/panel-judge';
 import { Scale } from './models/scale';
+import { ScoreSheet } from './models/score-sheet';
 import { Show } from './models/show';
 import { ShowClass } from './models/show-class';
 import { Society } from './models/society';
@@ -31,6 +39,15 @@ Entry.initModel(sequelize);
 DuesPeriod.initModel(sequelize);
 Payment.initModel(sequelize);
 Refund.initModel(sequelize);
+// The member's collection (issue 6)
+Plant.initModel(sequelize);
+PlantEvent.initModel(sequelize);
+PlantPhoto.initModel(sequelize);
+MailPreference.initModel(sequelize);
+Panel.initModel(sequelize);
+PanelJudge.initModel(sequelize);
+PanelClass.initModel(sequelize);
+ScoreSheet.initModel(sequelize);
 
 Membership.belongsTo(Society, { foreignKey: 'societyId', as: 'society' });
 Membership.belongsTo(User, { foreignKey: 'userId', as: 'user' });
@@ -59,16 +76,34 @@ DuesPeriod.belongsTo(Society, { foreignKey: 'societyId', as: 'society' });
 Payment.belongsTo(Society, { foreignKey: 'societyId', as: 'society' });
 Payment.belongsTo(User, { foreignKey: 'userId', as: 'user' });
 Refund.belongsTo(Payment, { foreignKey: 'paymentId', as: 'payment' });
+Plant.belongsTo(User, { foreignKey: 'ownerId', as: 'owner' });
+Plant.belongsTo(Variety, { foreignKey: 'varietyId', as: 'variety' });
+Plant.belongsTo(Plant, { foreignKey: 'parentId', as: 'parent' });
+Plant.hasMany(PlantEvent, { foreignKey: 'plantId', as: 'events' });
+Plant.hasMany(PlantPhoto, { foreignKey: 'plantId', as: 'photos' });
+PlantEvent.belongsTo(Plant, { foreignKey: 'plantId', as: 'plant' });
+PlantPhoto.belongsTo(Plant, { foreignKey: 'plantId', as: 'plant' });
+MailPreference.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+Panel.belongsTo(Show, { foreignKey: 'showId', as: 'show' });
+Show.hasMany(Panel, { foreignKey: 'showId', as: 'panels' });
 
 export {
 	Account,
 	Division,
 	DuesPeriod,
 	Entry,
+	MailPreference,
 	Membership,
 	Payment,
 	Refund,
+	Plant,
+	PlantEvent,
+	PlantPhoto,
+	Panel,
+	PanelClass,
+	PanelJudge,
 	Scale,
+	ScoreSheet,
 	Session,
 	Show,
 	ShowClass,

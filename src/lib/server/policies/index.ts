@@ -57,7 +57,7 @@ export const AREA_ROLES: Record<string, readonly Role[] | 'signed-in'> = {
 	admin: ['admin'],
 	chair: ['chair'],
 	desk: ['clerk', 'chair'],
-	judging: ['judge'],
+	judging: ['judge', 'clerk'],
 	my: ['member'],
 	home: 'signed-in'
 };

@@ -1,0 +1,163 @@
+/**
+ * Keeps a class's sheets in step between the tablet and the server: every edit is queued in
+ * IndexedDB first, then sent; while offline the judge keeps scoring and the queue waits; a change
+ * another panel member saved first is shown (a conflict), never overwritten.
+ */
+import { isSheetComplete, runningTotal } from '$lib/domain/judging';
+import type { ScaleOfPoints } from '$lib/domain/scoring';
+import { acknowledge, drop, enqueue, newChangeId, readQueue, send } from './queue';
+import type { QueuedChange, TabletSheet } from './types';
+
+export type SyncStatus = 'saved' | 'saving' | 'waiting' | 'conflict';
+
+/** The editable parts of a sheet. */
+export type SheetEdit = Partial<
+	Pick<TabletSheet, 'deductions' | 'comment' | 'notJudged' | 'judgesChoiceRank'>
+>;
+
+export class SheetSync {
+	sheets: Record<string, TabletSheet> = $state({});
+	waiting = $state(0);
+	sending = $state(false);
+	online = $state(true);
+	conflicts: Record<string, { mine: TabletSheet; theirs: TabletSheet; message: string }> = $state(
+		{}
+	);
+	refusal: string | null = $state(null);
+	/** The server's version of each sheet as last confirmed; changes are made on it. */
+	private known: Record<string, number> = {};
+	/** Versions this tablet's own changes moved each sheet through (base → new), to send later changes on. */
+	private moved: Record<string, Record<number, number>> = {};
+	private flushing: Promise<void> | null = null;
+
+	constructor(
+		private scale: ScaleOfPoints,
+		initial: Record<string, TabletSheet>
+	) {
+		this.sheets = structuredClone(initial);
+		for (const [id, s] of Object.entries(initial)) this.known[id] = s.version;
+	}
+
+	get status(): SyncStatus {
+		if (Object.keys(this.conflicts).length > 0) return 'conflict';
+		if (this.waiting > 0) return this.sending && this.online ? 'saving' : 'waiting';
+		return 'saved';
+	}
+
+	/** Reads changes left in the browser (e.g. from before a reload), shows them, and sends them. */
+	async start(): Promise<void> {
+		this.online = navigator.onLine;
+		const queued = await readQueue();
+		for (const c of queued) {
+			if (!this.sheets[c.entryId]) continue;
+			if (c.baseVersion < (this.known[c.entryId] ?? 0)) this.known[c.entryId] = c.baseVersion;
+			this.apply(c.entryId, c);
+		}
+		this.waiting = queued.length;
+		await this.flush();
+	}
+
+	setOnline(online: boolean): void {
+		this.online = online;
+		if (online) void this.flush();
+	}
+
+	private apply(entryId: string, edit: SheetEdit): TabletSheet {
+		const s = { ...this.sheets[entryId], ...structuredClone(edit) };
+		s.total = runningTotal(this.scale, s.deductions);
+		s.complete = isSheetComplete(this.scale, {
+			deductions: s.deductions,
+			notJudgedReason: s.notJudged?.reason ?? null
+		});
+		this.sheets[entryId] = s;
+		return s;
+	}
+
+	/** Records an edit: shown at once, queued in the browser, then sent when the network allows. */
+	async edit(entryId: string, edit: SheetEdit): Promise<void> {
+		const s = this.apply(entryId, edit);
+		const change: QueuedChange = {
+			changeId: newChangeId(),
+			entryId,
+			baseVersion: this.known[entryId] ?? 0,
+			deductions: $state.snapshot(s.deductions),
+			comment: s.comment,
+			notJudged: $state.snapshot(s.notJudged),
+			judgesChoiceRank: s.judgesChoiceRank
+		};
+		await enqueue(change);
+		this.waiting = (await readQueue()).length;
+		await this.flush();
+	}
+
+	/** Sends waiting changes in order until the queue is empty or the network is gone. */
+	flush(): Promise<void> {
+		this.flushing ??= this.run().finally(() => (this.flushing = null));
+		return this.flushing;
+	}
+
+	private async run(): Promise<void> {
+		this.sending = true;
+		try {
+			for (;;) {
+				const queue = await readQueue();
+				this.waiting = queue.length;
+				const next = queue.find((c) => !this.conflicts[c.entryId]);
+				if (!next || !this.online) return;
+				const baseVersion = this.rebased(next);
+				const outcome = await send({ ...next, baseVersion });
+				if (outcome.kind === 'offline') {
+					this.online = navigator.onLine;
+					return;
+				}
+				if (outcome.kind === 'saved') {
+					if (outcome.sheet.version !== baseVersion) {
+						(this.moved[next.entryId] ??= {})[baseVersion] = outcome.sheet.version;
+					}
+					await acknowledge({ ...next, baseVersion }, outcome.sheet.version);
+					this.known[next.entryId] = outcome.sheet.version;
+					const local = this.sheets[next.entryId];
+					if (local) local.version = outcome.sheet.version;
+				} else if (outcome.kind === 'conflict') {
+					await drop({ entryId: next.entryId });
+					delete this.moved[next.entryId];
+					this.conflicts[next.entryId] = {
+						mine: $state.snapshot(this.sheets[next.entryId]) as TabletSheet,
+						theirs: outcome.current,
+						message: outcome.message
+					};
+					this.known[next.entryId] = outcome.current.version;
+					this.sheets[next.entryId] = outcome.current;
+				} else {
+					await drop({ changeId: next.changeId });
+					this.refusal = outcome.message;
+				}
+			}
+		} finally {
+			this.sending = false;
+			this.waiting = (await readQueue()).length;
+		}
+	}
+
+	/**
+	 * The version a waiting change is sent on: a change queued on version V after this tablet's own
+	 * earlier change moved the sheet from V to W was made on top of that change, so it goes on W.
+	 */
+	private rebased(change: QueuedChange): number {
+		let base = change.baseVersion;
+		const moves = this.moved[change.entryId];
+		for (let guard = 0; moves && base in moves && guard < 10_000; guard++) base = moves[base];
+		return base;
+	}
+
+	/** Settles a conflict: keep the other person's sheet, or put this judge's scores on top of it. */
+	async resolve(entryId: string, keep: 'theirs' | 'mine'): Promise<void> {
+		const conflict = $state.snapshot(this.conflicts[entryId]);
+		if (!conflict) return;
+		delete this.conflicts[entryId];
+		if (keep === 'mine') {
+			const { deductions, comment, notJudged, judgesChoiceRank } = conflict.mine;
+			await this.edit(entryId, { deductions, comment, notJudged, judgesChoiceRank });
+		}
+	}
+}

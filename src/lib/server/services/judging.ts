@@ -1,0 +1,516 @@
+/**
+ * What judges and panel clerks see and do. Everything returned here is blind: entry ids and
+ * numbers, class, variety, scale and sheets; never the exhibitor or anything derived from them.
+ */
+import { QueryTypes, type Transaction } from 'sequelize';
+import { isSheetComplete } from '$lib/domain/judging';
+import {
+	DEFAULT_STANDARD_SCALE,
+	scoreSheet,
+	validateDeductions,
+	type NotJudgedReason,
+	type PanelMethod,
+	type ScaleCriterion,
+	type ScaleOfPoints
+} from '$lib/domain/scoring';
+import type { SheetChange } from '$lib/schemas/judging';
+import { ScoreSheet, sequelize } from '../db';
+import { Refusal } from './refusal';
+
+/** A sheet as a tablet holds it; version 0 means nothing saved yet. */
+export interface SheetView {
+	entryId: string;
+	kind: 'judge' | 'consensus';
+	version: number;
+	deductions: Record<string, number>;
+	comment: string;
+	notJudged: { reason: NotJudgedReason; note: string } | null;
+	judgesChoiceRank: number | null;
+	total: number;
+	complete: boolean;
+	/** True when someone else saved the latest version (another judge or the clerk). */
+	changedByOther: boolean;
+}
+
+/** An entry as a judge sees it: number and plant only. */
+export interface JudgeEntry {
+	id: string;
+	number: number;
+	plant: string;
+}
+
+/** A class opened by a judge or clerk, with everything the tablet needs to score offline. */
+export interface JudgeClass {
+	show: { id: string; name: string; method: PanelMethod; locked: boolean };
+	panel: { id: string; name: string };
+	role: 'judge' | 'clerk';
+	/** The sheet this person writes, or null when they may only read (a clerk under 'mean'). */
+	sheetKind: 'judge' | 'consensus' | null;
+	cls: { id: string; code: string; name: string; division: string };
+	scale: ScaleOfPoints;
+	entries: JudgeEntry[];
+	sheets: Record<string, SheetView>;
+}
+
+/** A class on the judge's start page. */
+export interface JudgeAssignment {
+	showId: string;
+	showName: string;
+	judgingDay: string;
+	locked: boolean;
+	panelName: string;
+	role: 'judge' | 'clerk';
+	classId: string;
+	code: string;
+	name: string;
+	entries: number;
+	done: number;
+}
+
+interface Access {
+	showId: string;
+	showName: string;
+	societyId: string;
+	method: PanelMethod;
+	locked: boolean;
+	panelId: string;
+	panelName: string;
+	role: 'judge' | 'clerk';
+	classId: string;
+	code: string;
+	name: string;
+	division: string;
+	scale: ScaleOfPoints;
+}
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/** True for a well-formed id (anything else is answered 404 before touching the database). */
+export function isUuid(value: string): boolean {
+	return UUID.test(value);
+}
+
+const ACTIVE = `e.status NOT IN ('withdrawn', 'scratched')`;
+
+/** The plant's name as a judge may see it: variety, design title or the collection's varieties. */
+const PLANT = `COALESCE(v.name, e.title,
+	(SELECT string_agg(cv.name, ', ' ORDER BY cv.name) FROM varieties cv WHERE cv.id = ANY(e.collection_variety_ids)),
+	'')`;
+
+function toScale(id: string | null, name: string | null, criteria: unknown): ScaleOfPoints {
+	if (!id || !Array.isArray(criteria)) return DEFAULT_STANDARD_SCALE;
+	return { id, name: name ?? '', criteria: criteria as ScaleCriterion[] };
+}
+
+/** Checks that the person judges (or clerks) the class and has no entry in it; returns the context. */
+async function requireClassAccess(
+	userId: string,
+	classId: string,
+	transaction?: Transaction
+): Promise<Access> {
+	if (!isUuid(classId)) throw new Refusal('This page does not exist.', 404);
+	const [row] = await sequelize.query<{
+		show_id: string;
+		show_name: string;
+		society_id: string;
+		method: PanelMethod;
+		published: Date | null;
+		panel_id: string;
+		panel_name: string;
+		is_judge: boolean;
+		is_clerk: boolean;
+		code: string;
+		name: string;
+		division: string;
+		scale_id: string | null;
+		scale_name: string | null;
+		criteria: unknown;
+		conflict: boolean;
+	}>(
+		`SELECT s.id AS show_id, s.name AS show_name, s.society_id, s.panel_score_method AS method,
+		        s.results_published_at AS published, p.id AS panel_id, p.name AS panel_name,
+		        EXISTS (SELECT 1 FROM panel_judges pj WHERE pj.panel_id = p.id AND pj.user_id = :userId) AS is_judge,
+		        p.clerk_id IS NOT DISTINCT FROM CAST(:userId AS uuid) AS is_clerk,
+		        c.code, c.name, d.code || ' ' || d.name AS division,
+		        sc.id AS scale_id, sc.name AS scale_name, sc.criteria,
+		        EXISTS (
+		          SELECT 1 FROM entries e
+		            LEFT JOIN memberships me ON me.user_id = e.exhibitor_id AND me.society_id = s.society_id
+		            LEFT JOIN memberships mj ON mj.user_id = :userId AND mj.society_id = s.society_id
+		           WHERE e.class_id = c.id AND ${ACTIVE}
+		             AND (e.exhibitor_id = :userId
+		                  OR (coalesce(trim(mj.household), '') <> ''
+		                      AND lower(trim(me.household)) = lower(trim(mj.household))))
+		        ) AS conflict
+		   FROM panel_classes pc
+		   JOIN panels p ON p.id = pc.panel_id
+		   JOIN classes c ON c.id = pc.class_id
+		   JOIN divisions d ON d.id = c.division_id
+		   JOIN shows s ON s.id = p.show_id
+		   LEFT JOIN scales sc ON sc.id = c.scale_id
+		  WHERE pc.class_id = :classId`,
+		{ replacements: { userId, classId }, type: QueryTypes.SELECT, transaction }
+	);
+	if (!row || (!row.is_judge && !row.is_clerk)) {
+		throw new Refusal('This entry is not in your classes.', 403);
+	}
+	if (row.conflict) {
+		throw new Refusal(
+			'You cannot judge this class: you or your household have an entry in it. Ask the show chair to move it to another panel.',
+			403
+		);
+	}
+	return {
+		showId: row.show_id,
+		showName: row.show_name,
+		societyId: row.society_id,
+		method: row.method,
+		locked: row.published !== null,
+		panelId: row.panel_id,
+		panelName: row.panel_name,
+		role: row.is_judge ? 'judge' : 'clerk',
+		classId,
+		code: row.code,
+		name: row.name,
+		division: row.division,
+		scale: toScale(row.scale_id, row.scale_name, row.criteria)
+	};
+}
+
+/** Which sheet this person writes in this class, or null when they only read. */
+function sheetKindFor(access: Access): 'judge' | 'consensus' | null {
+	if (access.method === 'consensus') return 'consensus';
+	return access.role === 'judge' ? 'judge' : null;
+}
+
+function toView(scale: ScaleOfPoints, sheet: ScoreSheet, viewerId: string): SheetView {
+	const deductions = sheet.deductions ?? {};
+	const notJudged = sheet.notJudgedReason
+		? { reason: sheet.notJudgedReason, note: sheet.notJudgedNote ?? '' }
+		: null;
+	return {
+		entryId: sheet.entryId,
+		kind: sheet.kind,
+		version: sheet.version,
+		deductions,
+		comment: sheet.comment,
+		notJudged,
+		judgesChoiceRank: sheet.judgesChoiceRank,
+		total: scoreSheet(scale, deductions).total,
+		complete: isSheetComplete(scale, { deductions, notJudgedReason: sheet.notJudgedReason }),
+		changedByOther: sheet.updatedBy !== null && sheet.updatedBy !== viewerId
+	};
+}
+
+/** An empty sheet (nothing saved yet). */
+export function blankSheet(
+	scale: ScaleOfPoints,
+	entryId: string,
+	kind: 'judge' | 'consensus'
+): SheetView {
+	return {
+		entryId,
+		kind,
+		version: 0,
+		deductions: {},
+		comment: '',
+		notJudged: null,
+		judgesChoiceRank: null,
+		total: scoreSheet(scale, {}).total,
+		complete: false,
+		changedByOther: false
+	};
+}
+
+/** The sheets of the given entries that this person sees (their own, or the consensus sheets). */
+async function sheetsFor(
+	userId: string,
+	kind: 'judge' | 'consensus',
+	entryIds: string[],
+	transaction?: Transaction
+): Promise<ScoreSheet[]> {
+	if (entryIds.length === 0) return [];
+	return ScoreSheet.findAll({
+		where:
+			kind === 'judge'
+				? { entryId: entryIds, kind, judgeId: userId }
+				: { entryId: entryIds, kind: 'consensus' },
+		transaction
+	});
+}
+
+/** The classes a person judges or clerks, across their shows, with their progress. */
+export async function listJudgeAssignments(userId: string): Promise<JudgeAssignment[]> {
+	const rows = await sequelize.query<{
+		show_id: string;
+		show_name: string;
+		judging_day: string;
+		published: Date | null;
+		method: PanelMethod;
+		panel_name: string;
+		is_judge: boolean;
+		class_id: string;
+		code: string;
+		name: string;
+		entries: string;
+		done: string;
+	}>(
+		`WITH mine AS (
+		   SELECT p.id, p.name, p.show_id,
+		          EXISTS (SELECT 1 FROM panel_judges pj WHERE pj.panel_id = p.id AND pj.user_id = :userId) AS is_judge
+		     FROM panels p
+		    WHERE p.clerk_id = :userId
+		       OR EXISTS (SELECT 1 FROM panel_judges pj WHERE pj.panel_id = p.id AND pj.user_id = :userId))
+		 SELECT s.id AS show_id, s.name AS show_name, s.judging_day, s.results_published_at AS published,
+		        s.panel_score_method AS method, mine.name AS panel_name, mine.is_judge,
+		        c.id AS class_id, c.code, c.name,
+		        (SELECT count(*) FROM entries e WHERE e.class_id = c.id AND ${ACTIVE}) AS entries,
+		        (SELECT count(*) FROM entries e JOIN score_sheets ss ON ss.entry_id = e.id
+		          WHERE e.class_id = c.id AND ${ACTIVE}
+		            AND ((s.panel_score_method = 'consensus' AND ss.kind = 'consensus')
+		              OR (s.panel_score_method = 'mean' AND ss.kind = 'judge' AND ss.judge_id = :userId))
+		            AND (ss.not_judged_reason IS NOT NULL
+		              OR (SELECT count(*) FROM jsonb_object_keys(ss.deductions)) >=
+		                 coalesce((SELECT jsonb_array_length(sc.criteria) FROM scales sc WHERE sc.id = c.scale_id), 5))
+		        ) AS done
+		   FROM mine
+		   JOIN shows s ON s.id = mine.show_id
+		   JOIN panel_classes pc ON pc.panel_id = mine.id
+		   JOIN classes c ON c.id = pc.class_id
+		   JOIN divisions d ON d.id = c.division_id
+		  ORDER BY s.judging_day DESC, s.name, d.position, c.position`,
+		{ replacements: { userId }, type: QueryTypes.SELECT }
+	);
+	return rows.map((r) => ({
+		showId: r.show_id,
+		showName: r.show_name,
+		judgingDay: r.judging_day,
+		locked: r.published !== null,
+		panelName: r.panel_name,
+		role: r.is_judge ? 'judge' : 'clerk',
+		classId: r.class_id,
+		code: r.code,
+		name: r.name,
+		entries: Number(r.entries),
+		done: Number(r.done)
+	}));
+}
+
+/** Loads a class for a judge or clerk: entries by number, the scale, and their sheets. */
+export async function loadJudgeClass(userId: string, classId: string): Promise<JudgeClass> {
+	const access = await requireClassAccess(userId, classId);
+	const entries = await sequelize.query<JudgeEntry>(
+		`SELECT e.id, e.number, ${PLANT} AS plant
+		   FROM entries e LEFT JOIN varieties v ON v.id = e.variety_id
+		  WHERE e.class_id = :classId AND ${ACTIVE}
+		  ORDER BY e.number`,
+		{ replacements: { classId }, type: QueryTypes.SELECT }
+	);
+	const kind = sheetKindFor(access) ?? 'consensus';
+	const sheets: Record<string, SheetView> = {};
+	const found = await sheetsFor(
+		userId,
+		kind,
+		entries.map((e) => e.id)
+	);
+	for (const e of entries) sheets[e.id] = blankSheet(access.scale, e.id, kind);
+	for (const s of found) sheets[s.entryId] = toView(access.scale, s, userId);
+	return {
+		show: {
+			id: access.showId,
+			name: access.showName,
+			method: access.method,
+			locked: access.locked
+		},
+		panel: { id: access.panelId, name: access.panelName },
+		role: access.role,
+		sheetKind: sheetKindFor(access),
+		cls: { id: classId, code: access.code, name: access.name, division: access.division },
+		scale: access.scale,
+		entries: entries.map((e) => ({ id: e.id, number: e.number, plant: e.plant })),
+		sheets
+	};
+}
+
+/** The class of an entry, for opening its scoresheet; refuses entries outside the person's classes. */
+export async function classOfEntry(userId: string, entryId: string): Promise<string> {
+	if (!isUuid(entryId)) throw new Refusal('This page does not exist.', 404);
+	const [row] = await sequelize.query<{ class_id: string }>(
+		`SELECT e.class_id FROM entries e WHERE e.id = :entryId AND ${ACTIVE}`,
+		{ replacements: { entryId }, type: QueryTypes.SELECT }
+	);
+	if (!row) throw new Refusal('This entry is not in your classes.', 403);
+	await requireClassAccess(userId, row.class_id);
+	return row.class_id;
+}
+
+/** The outcome of one change. */
+export interface SaveResult {
+	/** 'replayed': the change had been applied before; nothing was applied again. */
+	status: 'saved' | 'replayed' | 'unchanged';
+	sheet: SheetView;
+}
+
+function sameState(a: SheetView, change: SheetChange): boolean {
+	const keys = new Set([...Object.keys(a.deductions), ...Object.keys(change.deductions)]);
+	for (const k of keys) if (a.deductions[k] !== change.deductions[k]) return false;
+	return (
+		a.comment === change.comment &&
+		(a.notJudged?.reason ?? null) === (change.notJudged?.reason ?? null) &&
+		(a.notJudged?.note ?? '') === (change.notJudged?.note ?? '') &&
+		a.judgesChoiceRank === change.judgesChoiceRank
+	);
+}
+
+/** What the audit log keeps of a sheet. */
+function auditState(view: SheetView | null) {
+	if (!view || view.version === 0) return null;
+	return {
+		version: view.version,
+		deductions: view.deductions,
+		total: view.total,
+		comment: view.comment,
+		notJudged: view.notJudged,
+		judgesChoiceRank: view.judgesChoiceRank
+	};
+}
+
+/**
+ * Applies one change to a sheet, in one transaction:
+ * - refuses (changing nothing) an entry outside the person's classes, a locked show, and
+ *   deductions the class's scale does not allow (400 with one problem per criterion);
+ * - a change id seen before is answered with the stored answer and applied no second time;
+ * - the change must be made on the sheet's current version, else 409 with the current sheet;
+ * - the new version is stored with an audit row (who, when, before, after).
+ * Writes to one entry's sheets are serialised by locking the entry row.
+ */
+export async function saveSheet(
+	actor: { id: string; email: string },
+	change: SheetChange
+): Promise<SaveResult> {
+	return sequelize.transaction(async (transaction) => {
+		const [entry] = await sequelize.query<{ id: string; show_id: string; class_id: string }>(
+			`SELECT e.id, e.show_id, e.class_id FROM entries e WHERE e.id = :entryId AND ${ACTIVE} FOR UPDATE`,
+			{ replacements: { entryId: change.entryId }, type: QueryTypes.SELECT, transaction }
+		);
+		if (!entry) throw new Refusal('This entry is not in your classes.', 403);
+		const [show] = await sequelize.query<{ published: Date | null }>(
+			'SELECT results_published_at AS published FROM shows WHERE id = :id FOR SHARE',
+			{ replacements: { id: entry.show_id }, type: QueryTypes.SELECT, transaction }
+		);
+		if (show.published) {
+			throw new Refusal('Results are published: scores are locked and cannot change.', 423);
+		}
+		const access = await requireClassAccess(actor.id, entry.class_id, transaction);
+		const kind = sheetKindFor(access);
+		if (!kind) {
+			throw new Refusal(
+				'In this show each judge keeps their own sheet; the panel clerk does not score.',
+				403
+			);
+		}
+
+		const [applied] = await sequelize.query<{ user_id: string; response: SheetView }>(
+			'SELECT user_id, response FROM applied_changes WHERE change_id = :changeId',
+			{ replacements: { changeId: change.changeId }, type: QueryTypes.SELECT, transaction }
+		);
+		if (applied) {
+			if (applied.user_id !== actor.id || applied.response.entryId !== change.entryId) {
+				throw new Refusal('This change id was already used for another change.', 409);
+			}
+			return { status: 'replayed', sheet: applied.response };
+		}
+
+		const problems = validateDeductions(access.scale, change.deductions);
+		if (problems.length > 0) {
+			throw new Refusal(problems.map((p) => p.message).join(' '), 400, 'deductions', problems);
+		}
+		const deductions = change.deductions as Record<string, number>;
+
+		const current = await ScoreSheet.findOne({
+			where:
+				kind === 'judge'
+					? { entryId: entry.id, kind, judgeId: actor.id }
+					: { entryId: entry.id, kind },
+			transaction
+		});
+		const before = current
+			? toView(access.scale, current, actor.id)
+			: blankSheet(access.scale, entry.id, kind);
+		if (change.baseVersion !== before.version) {
+			throw new Refusal(
+				'This sheet was changed meanwhile by another member of your panel (or on another device). Their version is shown.',
+				409,
+				undefined,
+				before
+			);
+		}
+
+		let result: SaveResult;
+		if (current && sameState(before, change)) {
+			result = { status: 'unchanged', sheet: before };
+		} else {
+			const values = {
+				deductions,
+				comment: change.comment,
+				notJudgedReason: change.notJudged?.reason ?? null,
+				notJudgedNote: change.notJudged ? change.notJudged.note || null : null,
+				judgesChoiceRank: change.judgesChoiceRank,
+				updatedBy: actor.id
+			};
+			let sheet: ScoreSheet;
+			if (current) {
+				current.set({ ...values, version: current.version + 1 });
+				sheet = await current.save({ transaction });
+			} else {
+				sheet = await ScoreSheet.create(
+					{
+						...values,
+						showId: entry.show_id,
+						entryId: entry.id,
+						kind,
+						judgeId: kind === 'judge' ? actor.id : null,
+						version: 1
+					},
+					{ transaction }
+				);
+			}
+			const after = toView(access.scale, sheet, actor.id);
+			await sequelize.query(
+				`INSERT INTO score_audit (show_id, sheet_id, entry_id, actor_id, actor_email, change_id, before, after)
+				 VALUES (:showId, :sheetId, :entryId, :actorId, :actorEmail, :changeId, :before, :after)`,
+				{
+					replacements: {
+						showId: entry.show_id,
+						sheetId: sheet.id,
+						entryId: entry.id,
+						actorId: actor.id,
+						actorEmail: actor.email,
+						changeId: change.changeId,
+						before: before.version === 0 ? null : JSON.stringify(auditState(before)),
+						after: JSON.stringify(auditState(after))
+					},
+					transaction
+				}
+			);
+			result = { status: 'saved', sheet: after };
+		}
+		await sequelize.query(
+			`INSERT INTO applied_changes (change_id, user_id, sheet_id, response)
+			 VALUES (:changeId, :userId, (SELECT id FROM score_sheets WHERE entry_id = :entryId AND kind = :kind
+			   AND judge_id IS NOT DISTINCT FROM CAST(:judgeId AS uuid)), :response)`,
+			{
+				replacements: {
+					changeId: change.changeId,
+					userId: actor.id,
+					entryId: entry.id,
+					kind,
+					judgeId: kind === 'judge' ? actor.id : null,
+					response: JSON.stringify(result.sheet)
+				},
+				transaction
+			}
+		);
+		return result;
+	});
+}

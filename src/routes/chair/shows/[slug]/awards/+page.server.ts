@@ -1,0 +1,53 @@
+import { fail } from '@sveltejs/kit';
+import { sequelize } from '$lib/server/db';
+import { isRefusal } from '$lib/server/services/refusal';
+import {
+	awardsOf,
+	describeAwards,
+	loadPublishedAwards,
+	loadShowJudging,
+	publishResults
+} from '$lib/server/services/results';
+import { requireShowRole } from '$lib/server/services/show-access';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	const { show } = await requireShowRole(event, event.params.slug, ['chair']);
+	const judging = await loadShowJudging(show.id);
+	const waiting = judging.entries.filter((e) => e.state === 'waiting' || e.state === 'in_progress');
+	const lines = judging.show.published
+		? await loadPublishedAwards(show.id)
+		: describeAwards(judging, awardsOf(judging));
+	return {
+		show: {
+			name: show.name,
+			slug: show.slug,
+			published: judging.show.published,
+			publishedAt: show.resultsPublishedAt?.toISOString() ?? null,
+			system: judging.rules.system
+		},
+		waiting: waiting.length,
+		...lines
+	};
+};
+
+export const actions: Actions = {
+	/** Computes and stores the awards and locks scores, all in one transaction. */
+	publish: async (event) => {
+		const { show, user } = await requireShowRole(event, event.params.slug, ['chair']);
+		const form = await event.request.formData();
+		const allowIncomplete = form.get('allowIncomplete') === 'on';
+		try {
+			const outcome = await sequelize.transaction((transaction) =>
+				publishResults(user, show.id, { transaction, allowIncomplete })
+			);
+			return {
+				ok: true,
+				message: `Results published: ${outcome.awards} awards stored${outcome.ties ? `, ${outcome.ties} ties left for the judges` : ''}. Scores are locked.`
+			};
+		} catch (err) {
+			if (isRefusal(err)) return fail(409, { message: err.message });
+			throw err;
+		}
+	}
+};

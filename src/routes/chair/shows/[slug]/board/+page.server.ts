@@ -1,0 +1,8 @@
+import { loadBoard } from '$lib/server/services/results';
+import { requireShowRole } from '$lib/server/services/show-access';
+import type { PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	const { show } = await requireShowRole(event, event.params.slug, ['chair']);
+	return { show: { name: show.name, slug: show.slug }, board: await loadBoard(show.id) };
+};

@@ -1,0 +1,25 @@
+import { mailPreferencesSchema } from '$lib/schemas/plants';
+import { sequelize } from '$lib/server/db';
+import { requireRole } from '$lib/server/policies';
+import { getMailPreferences, setMailPreferences } from '$lib/server/services/mail-preferences';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	const user = requireRole(event, ['member']);
+	return { preferences: await getMailPreferences(user.id) };
+};
+
+export const actions: Actions = {
+	default: async (event) => {
+		const user = requireRole(event, ['member']);
+		const form = await event.request.formData();
+		const preferences = mailPreferencesSchema.parse({
+			reminders: form.get('reminders') === 'on',
+			results: form.get('results') === 'on'
+		});
+		await sequelize.transaction((transaction) =>
+			setMailPreferences(user.id, preferences, { transaction })
+		);
+		return { saved: true };
+	}
+};

@@ -1,0 +1,129 @@
+import { error, fail, type RequestEvent } from '@sveltejs/kit';
+import type { Transaction } from 'sequelize';
+import { z } from 'zod';
+import { isIsoDate } from '$lib/domain/dates';
+import {
+	lengthField,
+	photoSchema,
+	plantEventSchema,
+	potSuckerSchema,
+	todayIso
+} from '$lib/schemas/plants';
+import { sequelize } from '$lib/server/db';
+import { fieldErrors, memberAndId } from '$lib/server/plant-route';
+import { addPlantPhoto, deletePlantPhoto } from '$lib/server/services/plant-photos';
+import {
+	PlantInputError,
+	addPlantEvent,
+	deletePlantEvent,
+	getPlant,
+	potUpSucker,
+	setPlantGone
+} from '$lib/server/services/plants';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	const { user, id } = memberAndId(event, event.params.plantId);
+	const plant = await getPlant(user.id, id);
+	if (!plant) error(404, 'This plant does not exist.');
+	return { plant, today: todayIso() };
+};
+
+type Write = (ownerId: string, plantId: string, transaction: Transaction) => Promise<string>;
+
+/** Runs one write of this page in a transaction; bad input becomes fail(400) for that form. */
+async function write(event: RequestEvent, action: string, run: Write) {
+	const { user, id } = memberAndId(event, event.params.plantId);
+	try {
+		const done = await sequelize.transaction((transaction) => run(user.id, id, transaction));
+		return { action, done };
+	} catch (err) {
+		if (!(err instanceof PlantInputError)) throw err;
+		if (err.field === 'plant') error(404, err.message);
+		return fail(400, { action, message: err.message, errors: { [err.field]: err.message } });
+	}
+}
+
+function invalid(action: string, issues: z.ZodError) {
+	return fail(400, {
+		action,
+		message: 'Check the highlighted fields.',
+		errors: fieldErrors(issues)
+	});
+}
+
+const idField = z.object({ id: z.uuid() });
+
+export const actions: Actions = {
+	log: async (event) => {
+		const form = await event.request.formData();
+		const parsed = plantEventSchema.safeParse({
+			kind: form.get('kind') ?? '',
+			happenedOn: form.get('happenedOn') ?? '',
+			diameter: lengthField(form, 'diameter'),
+			crowns: form.get('crowns') ?? '',
+			potSize: lengthField(form, 'potSize'),
+			note: form.get('note') ?? ''
+		});
+		const action = String(form.get('form') ?? 'log');
+		if (!parsed.success) return invalid(action, parsed.error);
+		return write(event, action, async (owner, plantId, transaction) => {
+			await addPlantEvent(owner, plantId, parsed.data, { transaction });
+			return 'Logged.';
+		});
+	},
+	deleteEvent: async (event) => {
+		const parsed = idField.safeParse({ id: (await event.request.formData()).get('id') });
+		if (!parsed.success) return fail(400, { action: 'events', message: 'Choose a log line.' });
+		return write(event, 'events', async (owner, plantId, transaction) => {
+			const removed = await deletePlantEvent(owner, plantId, parsed.data.id, { transaction });
+			return removed ? 'Removed from the log.' : 'That log line was already gone.';
+		});
+	},
+	potSucker: async (event) => {
+		const form = await event.request.formData();
+		const parsed = potSuckerSchema.safeParse({
+			happenedOn: form.get('happenedOn') ?? '',
+			potSize: lengthField(form, 'potSize'),
+			label: form.get('label') ?? ''
+		});
+		if (!parsed.success) return invalid('potSucker', parsed.error);
+		return write(event, 'potSucker', async (owner, plantId, transaction) => {
+			const child = await potUpSucker(owner, plantId, parsed.data, { transaction });
+			return child.id;
+		});
+	},
+	photo: async (event) => {
+		const form = await event.request.formData();
+		const file = form.get('photo');
+		const parsed = photoSchema.safeParse({ caption: form.get('caption') ?? '' });
+		if (!parsed.success) return invalid('photo', parsed.error);
+		if (!(file instanceof File) || file.size === 0) {
+			const message = 'Choose a photo to upload.';
+			return fail(400, { action: 'photo', message, errors: { photo: message } });
+		}
+		return write(event, 'photo', async (owner, plantId, transaction) => {
+			await addPlantPhoto(owner, plantId, file, parsed.data.caption, { transaction });
+			return 'Photo added.';
+		});
+	},
+	deletePhoto: async (event) => {
+		const parsed = idField.safeParse({ id: (await event.request.formData()).get('id') });
+		if (!parsed.success) return fail(400, { action: 'photo', message: 'Choose a photo.' });
+		return write(event, 'photo', async (owner, plantId, transaction) => {
+			await deletePlantPhoto(owner, plantId, parsed.data.id, { transaction });
+			return 'Photo deleted.';
+		});
+	},
+	gone: async (event) => {
+		const value = (await event.request.formData()).get('goneOn');
+		const goneOn = value ? String(value) : null;
+		if (goneOn !== null && !isIsoDate(goneOn)) {
+			return fail(400, { action: 'gone', message: 'Give the date as a real date.' });
+		}
+		return write(event, 'gone', async (owner, plantId, transaction) => {
+			await setPlantGone(owner, plantId, goneOn, { transaction });
+			return goneOn ? 'Marked as no longer grown.' : 'Back in the collection.';
+		});
+	}
+};

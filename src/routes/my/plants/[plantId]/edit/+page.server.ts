@@ -1,0 +1,69 @@
+import { error, fail, redirect } from '@sveltejs/kit';
+import { sequelize } from '$lib/server/db';
+import { readPlantForm } from '$lib/server/plant-forms';
+import { memberAndId } from '$lib/server/plant-route';
+import {
+	PlantInputError,
+	getPlant,
+	listPlants,
+	listVarietyChoices,
+	plantName,
+	updatePlant
+} from '$lib/server/services/plants';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	const { user, societyIds, id } = memberAndId(event, event.params.plantId);
+	const [plant, varieties, plants] = await Promise.all([
+		getPlant(user.id, id),
+		listVarietyChoices(societyIds),
+		listPlants(user.id)
+	]);
+	if (!plant) error(404, 'This plant does not exist.');
+	return {
+		plant: { id: plant.id, name: plantName(plant.varietyName, plant.label) },
+		values: {
+			varietyId: plant.varietyId,
+			label: plant.label ?? '',
+			obtainedHow: plant.obtainedHow,
+			obtainedOn: plant.obtainedOn,
+			parentId: plant.parentId ?? '',
+			potSize: plant.potSizeIn === null ? '' : String(plant.potSizeIn),
+			notes: plant.notes ?? ''
+		},
+		varieties,
+		parents: plants
+			.filter((p) => p.id !== id)
+			.map((p) => ({ value: p.id, label: plantName(p.varietyName, p.label) }))
+	};
+};
+
+export const actions: Actions = {
+	default: async (event) => {
+		const { user, societyIds, id } = memberAndId(event, event.params.plantId);
+		const form = await event.request.formData();
+		const read = readPlantForm(form);
+		if (!read.ok) {
+			return fail(400, {
+				message: 'Check the highlighted fields.',
+				errors: read.errors,
+				values: read.values
+			});
+		}
+		try {
+			await sequelize.transaction((transaction) =>
+				updatePlant(user.id, societyIds, id, read.data, { transaction })
+			);
+		} catch (err) {
+			if (!(err instanceof PlantInputError)) throw err;
+			if (err.field === 'plant' && !read.data.parentId) error(404, err.message);
+			const field = err.field === 'plant' ? 'parentId' : err.field;
+			return fail(400, {
+				message: err.message,
+				errors: { [field]: err.message },
+				values: Object.fromEntries([...form.entries()].map(([k, v]) => [k, String(v)]))
+			});
+		}
+		redirect(303, `/my/plants/${id}`);
+	}
+};

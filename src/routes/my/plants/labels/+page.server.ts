@@ -1,0 +1,26 @@
+import { addCalendarDays, compareIsoDates } from '$lib/domain/dates';
+import { todayIso } from '$lib/schemas/plants';
+import { memberAndId } from '$lib/server/plant-route';
+import { listPlants, plantName } from '$lib/server/services/plants';
+import type { PageServerLoad } from './$types';
+
+/** Plants got or potted this many days ago or later are ticked for labels. */
+const NEW_DAYS = 30;
+
+export const load: PageServerLoad = async (event) => {
+	const { user } = memberAndId(event);
+	const asked = new Set(event.url.searchParams.getAll('plant'));
+	const since = addCalendarDays(todayIso(), -NEW_DAYS);
+	const plants = (await listPlants(user.id)).filter((p) => !p.goneOn);
+	return {
+		newDays: NEW_DAYS,
+		plants: plants
+			.map((p) => ({
+				id: p.id,
+				name: plantName(p.varietyName, p.label),
+				obtainedOn: p.obtainedOn,
+				ticked: asked.size > 0 ? asked.has(p.id) : compareIsoDates(p.obtainedOn, since) >= 0
+			}))
+			.sort((a, b) => compareIsoDates(b.obtainedOn, a.obtainedOn))
+	};
+};

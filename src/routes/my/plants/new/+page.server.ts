@@ -1,0 +1,57 @@
+import { fail, redirect } from '@sveltejs/kit';
+import { todayIso } from '$lib/schemas/plants';
+import { sequelize } from '$lib/server/db';
+import { readPlantForm } from '$lib/server/plant-forms';
+import { memberAndId } from '$lib/server/plant-route';
+import {
+	PlantInputError,
+	createPlant,
+	listPlants,
+	listVarietyChoices,
+	plantName
+} from '$lib/server/services/plants';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	const { user, societyIds } = memberAndId(event);
+	const [varieties, plants] = await Promise.all([
+		listVarietyChoices(societyIds),
+		listPlants(user.id)
+	]);
+	return {
+		varieties,
+		parents: plants.map((p) => ({ value: p.id, label: plantName(p.varietyName, p.label) })),
+		today: todayIso()
+	};
+};
+
+export const actions: Actions = {
+	default: async (event) => {
+		const { user, societyIds } = memberAndId(event);
+		const form = await event.request.formData();
+		const read = readPlantForm(form);
+		if (!read.ok) {
+			return fail(400, {
+				message: 'Check the highlighted fields.',
+				errors: read.errors,
+				values: read.values
+			});
+		}
+		let id: string;
+		try {
+			const plant = await sequelize.transaction((transaction) =>
+				createPlant(user.id, societyIds, read.data, { transaction })
+			);
+			id = plant.id;
+		} catch (error) {
+			if (!(error instanceof PlantInputError)) throw error;
+			const field = error.field === 'plant' ? 'parentId' : error.field;
+			return fail(400, {
+				message: error.message,
+				errors: { [field]: error.message },
+				values: Object.fromEntries([...form.entries()].map(([k, v]) => [k, String(v)]))
+			});
+		}
+		redirect(303, `/my/plants/${id}`);
+	}
+};

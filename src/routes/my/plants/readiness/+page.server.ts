@@ -1,0 +1,63 @@
+import { error, fail } from '@sveltejs/kit';
+import { z } from 'zod';
+import { todayIso } from '$lib/schemas/plants';
+import { sequelize } from '$lib/server/db';
+import { memberAndId } from '$lib/server/plant-route';
+import { PlantEntryRefused, createEntryFromPlant } from '$lib/server/services/plant-entries';
+import {
+	assessCollections,
+	listUpcomingShows,
+	loadShowForReadiness
+} from '$lib/server/services/readiness';
+import type { Actions, PageServerLoad } from './$types';
+
+const ORDER = { ready: 0, needs_work: 1, cannot_enter: 2, no_class: 3 } as const;
+
+export const load: PageServerLoad = async (event) => {
+	const { user, societyIds } = memberAndId(event);
+	const today = todayIso();
+	const shows = await listUpcomingShows(societyIds, today);
+	const asked = event.url.searchParams.get('show');
+	const chosen = asked ? shows.find((s) => s.id === asked) : shows[0];
+	if (asked && !chosen) error(404, 'This show is not one of your upcoming shows.');
+	if (!chosen) return { shows, show: null, classes: [], plants: [] };
+	const show = await loadShowForReadiness(chosen.id, today);
+	if (!show) error(404, 'This show is not one of your upcoming shows.');
+	const plants = (await assessCollections(show, [user.id])).get(user.id) ?? [];
+	plants.sort(
+		(a, b) =>
+			Number(a.entry !== null) - Number(b.entry !== null) ||
+			ORDER[a.readiness.status] - ORDER[b.readiness.status]
+	);
+	return {
+		shows,
+		show: { id: show.id, name: show.name, ...show.context },
+		classes: show.classes.map((c) => ({ id: c.id, code: c.code, name: c.name })),
+		plants
+	};
+};
+
+const enterSchema = z.object({ showId: z.uuid(), classId: z.uuid(), plantId: z.uuid() });
+
+export const actions: Actions = {
+	enter: async (event) => {
+		const { user, societyIds } = memberAndId(event);
+		const form = await event.request.formData();
+		const parsed = enterSchema.safeParse(Object.fromEntries(form));
+		if (!parsed.success) return fail(400, { message: 'Choose a plant and a class to enter.' });
+		const today = todayIso();
+		const upcoming = await listUpcomingShows(societyIds, today);
+		if (!upcoming.some((s) => s.id === parsed.data.showId)) {
+			return fail(400, { message: 'This show is not one of your upcoming shows.' });
+		}
+		try {
+			const entry = await sequelize.transaction((transaction) =>
+				createEntryFromPlant(user.id, { ...parsed.data, today }, { transaction })
+			);
+			return { entered: entry.number, plantId: parsed.data.plantId };
+		} catch (err) {
+			if (!(err instanceof PlantEntryRefused)) throw err;
+			return fail(400, { message: err.message, plantId: parsed.data.plantId });
+		}
+	}
+};
