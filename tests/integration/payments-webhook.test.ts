@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { QueryTypes } from 'sequelize';
+import { Op, QueryTypes } from 'sequelize';
 import type { RequestEvent } from '@sveltejs/kit';
 import {
 	DuesPeriod,
@@ -15,6 +15,7 @@ import {
 } from '$lib/server/db';
 import { stripe, webhookSecret } from '$lib/server/payments/stripe';
 import { startDuesCheckout, startEntryFeeCheckout } from '$lib/server/services/payments';
+import { feeStatusForNewEntry } from '$lib/server/services/entry-fees';
 import { sendRequestedRefunds, settleFeeOfWithdrawnEntry } from '$lib/server/services/refunds';
 import { POST } from '../../src/routes/api/payments/webhook/+server';
 
@@ -346,6 +347,17 @@ describe('paying dues through the hosted checkout', () => {
 });
 
 describe('entry fees and refunds for withdrawn entries', () => {
+	it('a new entry owes a fee only where its show charges one', async () => {
+		const show = (await Show.findOne({ where: { societyId: society.id } }))!;
+		const other = (await Show.findOne({ where: { societyId: { [Op.ne]: society.id } } }))!;
+		expect(other.entryFeeCents).toBe(0);
+		const [charged, free] = await sequelize.transaction(async (transaction) => [
+			await feeStatusForNewEntry(show.id, { transaction }),
+			await feeStatusForNewEntry(other.id, { transaction })
+		]);
+		expect([charged, free]).toEqual(['due', 'not_required']);
+	});
+
 	it('a paid fee goes back when an entry is withdrawn in time, recorded from the webhook', async () => {
 		const member = await newLapsedMember('fees');
 		const show = (await Show.findOne({ where: { societyId: society.id } }))!;
