@@ -42,12 +42,38 @@ async function payOnCheckout(page: Page, backTo: RegExp): Promise<void> {
 	await expect(page).toHaveURL(backTo);
 }
 
-test('a lapsed member pays dues through the fake checkout and becomes current, with a receipt', async ({
+test('a lapsed member is told to pay before entering, pays dues through the fake checkout, and the entry goes through', async ({
 	page
 }) => {
 	const email = await newLapsedMember('lapsed-pays');
+	// A plant grown long enough, measured single-crowned and in bloom: ready but for the dues.
+	await sql(
+		`WITH p AS (
+		   INSERT INTO plants (owner_id, variety_id, obtained_how, obtained_on, pot_size_in)
+		   SELECT u.id, v.id, 'bought', current_date - 200, 5.00
+		     FROM users u, varieties v JOIN societies s ON s.id = v.society_id
+		    WHERE u.email = $1 AND s.slug = 'larkspur-valley' AND v.name = 'Granary Snow'
+		   RETURNING id)
+		 INSERT INTO plant_events (plant_id, kind, happened_on, diameter_in, crowns)
+		 SELECT p.id, 'measured', current_date - 20, 12.5, 1 FROM p
+		 UNION ALL SELECT p.id, 'in_bloom', current_date - 9, NULL, NULL FROM p`,
+		[email]
+	);
 	await signIn(page, email);
-	await page.goto('/my/membership');
+	const readiness = async () => {
+		await page.goto('/my/plants/readiness');
+		const spring = await page.getByRole('option', { name: /^Spring Show/ }).getAttribute('value');
+		await page.goto(`/my/plants/readiness?show=${spring}`);
+		return page.getByRole('listitem').filter({
+			has: page.getByRole('heading', { level: 2, name: 'Granary Snow' })
+		});
+	};
+	let card = await readiness();
+	await expect(card.getByText(/open only to members in good standing/).first()).toBeVisible();
+	await expect(card.getByRole('button', { name: /^Enter Granary Snow/ })).toHaveCount(0);
+	await expectAccessible(page);
+	await card.getByRole('link', { name: 'Pay your dues' }).first().click();
+
 	await expect(page.getByRole('heading', { level: 1, name: 'My membership' })).toBeVisible();
 	await expect(page.getByText('Your dues have lapsed.')).toBeVisible();
 	await expect(page.getByText('pay your dues to be in good standing for it.')).toBeVisible();
@@ -74,14 +100,20 @@ test('a lapsed member pays dues through the fake checkout and becomes current, w
 	expect(receipt.subject).toBe('Receipt from Larkspur Valley Violet Circle: $25.00');
 	expect(receipt.text).toContain('Your dues are now paid through');
 
-	const [row] = await sql<{ standing: boolean }>(
-		`SELECT m.dues_paid_through >= s.judging_day AS standing
-		   FROM memberships m JOIN users u ON u.id = m.user_id
-		   JOIN shows s ON s.society_id = m.society_id
-		  WHERE u.email = $1 ORDER BY s.judging_day DESC LIMIT 1`,
+	// Now the entry goes through.
+	card = await readiness();
+	await expect(card.getByText(/open only to members in good standing/)).toHaveCount(0);
+	await card
+		.getByRole('button', { name: /^Enter Granary Snow in class/ })
+		.first()
+		.click();
+	await expect(page.getByText(/Entered as entry \d+\./)).toBeVisible();
+	const [entry] = await sql<{ fee_status: string }>(
+		`SELECT e.fee_status FROM entries e JOIN users u ON u.id = e.exhibitor_id WHERE u.email = $1`,
 		[email]
 	);
-	expect(row.standing).toBe(true);
+	// The spring show charges an entry fee (demo setting), so the new entry owes it.
+	expect(entry.fee_status).toBe('due');
 });
 
 test('a member pays the entry fees of a show, and the entries show as paid', async ({ page }) => {

@@ -2,6 +2,7 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { checkEligibility, type RuleFailure } from '$lib/domain/eligibility';
 import { Show, sequelize } from '../db';
 import { assessCollections, loadShowForReadiness } from './readiness';
+import { feeStatusForNewEntry } from './entry-fees';
 
 /** An entry from a plant that the rules refuse; nothing was written. */
 export class PlantEntryRefused extends Error {
@@ -123,9 +124,10 @@ export async function createEntryFromPlant(
 		'UPDATE shows SET next_entry_number = next_entry_number + 1, updated_at = now() WHERE id = $1',
 		{ bind: [show.id], transaction }
 	);
+	const feeStatus = await feeStatusForNewEntry(show.id, { transaction });
 	const [row] = await sequelize.query<{ id: string }>(
-		`INSERT INTO entries (show_id, class_id, exhibitor_id, variety_id, number, acquired_on, plant_id)
-		 VALUES ($1, $2, $3, $4, $5, $6, $7) RETURNING id`,
+		`INSERT INTO entries (show_id, class_id, exhibitor_id, variety_id, number, acquired_on, plant_id, fee_status)
+		 VALUES ($1, $2, $3, $4, $5, $6, $7, $8) RETURNING id`,
 		{
 			bind: [
 				show.id,
@@ -134,7 +136,8 @@ export async function createEntryFromPlant(
 				assessed.varietyId,
 				number,
 				plant.obtained_on,
-				input.plantId
+				input.plantId,
+				feeStatus
 			],
 			type: QueryTypes.SELECT,
 			transaction
