@@ -9,7 +9,7 @@ ensure_node_modules
 ./docker-less-db.sh start crownbench
 
 export DATABASE_URL="$(./docker-less-db.sh url crownbench)"
-export PORT="${PORT:-3000}" HOST="${HOST:-127.0.0.1}" BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-10M}"
+export PORT="${PORT:-3000}" HOST="${HOST:-127.0.0.1}" BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-12M}"
 export ORIGIN="${ORIGIN:-http://localhost:$PORT}"
 export SMTP_FAKE_PORT="${SMTP_FAKE_PORT:-2525}" SMTP_FAKE_HTTP_PORT="${SMTP_FAKE_HTTP_PORT:-2526}"
 export SMTP_URL="smtp://127.0.0.1:$SMTP_FAKE_PORT"
@@ -49,4 +49,4 @@ cat <<MSG
   Press Ctrl-C to stop. The database keeps running: ./docker-less-db.sh stop ends it.
 
 MSG
-node build
+BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-12M}" node build

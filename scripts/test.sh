@@ -63,7 +63,8 @@ e2e() {
 	export DATABASE_URL
 	DATABASE_URL="$(./docker-less-db.sh url "$e2e_db")"
 	npx tsx scripts/db.ts reset || return 1
-	BODY_SIZE_LIMIT=10M PORT="$port" HOST=127.0.0.1 ORIGIN="http://127.0.0.1:$port" node build >.data/e2e-app.log 2>&1 &
+	PORT="$port" HOST=127.0.0.1 ORIGIN="http://127.0.0.1:$port" BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-12M}" \
+		node build >.data/e2e-app.log 2>&1 &
 	local app=$!
 	background_pids+=("$app")
 	wait_for_url "http://127.0.0.1:$port/" 30 || { cat .data/e2e-app.log; return 1; }

@@ -12,3 +12,17 @@ export interface ShowSummary {
 	resultsPublished: boolean;
 	entryCount: number;
 }
+
+/** A variety of a registry as the browser gets it (search API, forms). */
+export interface VarietyRow {
+	id: string;
+	name: string;
+	hybridizer: string | null;
+	habit: 'single_crown' | 'trailer';
+	sizeClass: 'miniature' | 'semiminiature' | 'standard' | 'large';
+	blossomType: string;
+	blossomColours: string[];
+	foliage: 'plain' | 'variegated';
+	isSpecies: boolean;
+	description: string | null;
+}

@@ -5,6 +5,16 @@ import { listRouteIds } from './access/routes';
 import { ACCESS_TABLE, type Answer } from './access/table';
 import { signIn } from './support/session';
 
+/** Row params may name a looked-up value with a leading $ (e.g. '$memberEntryId'). */
+function resolveParams(
+	own: Record<string, string> | undefined,
+	known: Record<string, string>
+): Record<string, string> {
+	return Object.fromEntries(
+		Object.entries(own ?? {}).map(([k, v]) => [k, v.startsWith('$') ? known[v.slice(1)] : v])
+	);
+}
+
 test.describe.configure({ mode: 'serial' });
 
 test('every route of the app has a row in the access table, and every row a route', () => {
@@ -53,7 +63,8 @@ test('every route answers every kind of visitor as the table says', async ({
 		});
 		for (const row of ACCESS_TABLE) {
 			const url =
-				fillRoute(row.route, { ...params, ...row.params }) + (row.query ? `?${row.query}` : '');
+				fillRoute(row.route, { ...params, ...resolveParams(row.params, params) }) +
+				(row.query ? `?${row.query.replace(/\$(\w+)/g, (_, k: string) => params[k])}` : '');
 			const response = await api.fetch(url, { method: row.method ?? 'GET', maxRedirects: 0 });
 			const status = response.status();
 			const location = response.headers()['location'] ?? '';

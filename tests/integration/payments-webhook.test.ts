@@ -15,6 +15,7 @@ import {
 } from '$lib/server/db';
 import { stripe, webhookSecret } from '$lib/server/payments/stripe';
 import { startDuesCheckout, startEntryFeeCheckout } from '$lib/server/services/payments';
+import { withdrawEntry } from '$lib/server/services/entries';
 import { feeStatusForNewEntry } from '$lib/server/services/entry-fees';
 import { sendRequestedRefunds, settleFeeOfWithdrawnEntry } from '$lib/server/services/refunds';
 import { POST } from '../../src/routes/api/payments/webhook/+server';
@@ -390,12 +391,19 @@ describe('entry fees and refunds for withdrawn entries', () => {
 		expect((await deliver(JSON.stringify(completed))).outcome).toBe('recorded entry_fees payment');
 		for (const e of entries) expect((await e.reload()).feeStatus).toBe('paid');
 
-		// Withdrawn on the day entries close: the policy allows a refund.
-		const outcome = await sequelize.transaction((transaction) =>
-			settleFeeOfWithdrawnEntry(entries[0].id, { transaction, today: show.entriesClose })
+		// Withdrawn by the exhibitor while entries are open: the policy allows a refund.
+		const problem = await sequelize.transaction((transaction) =>
+			withdrawEntry(member.id, entries[0].id, { transaction })
 		);
-		expect(outcome).toBe('refund_requested');
-		expect((await entries[0].reload()).feeStatus).toBe('refund_pending');
+		expect(problem).toBeNull();
+		await entries[0].reload();
+		expect([entries[0].status, entries[0].feeStatus]).toEqual(['withdrawn', 'refund_pending']);
+		// On the day entries close the policy still allows it.
+		expect(
+			await sequelize.transaction((transaction) =>
+				settleFeeOfWithdrawnEntry(entries[0].id, { transaction, today: show.entriesClose })
+			)
+		).toBe('none'); // already settled: nothing more happens
 		// A day later the other entry keeps its fee.
 		const late = await sequelize.transaction((transaction) =>
 			settleFeeOfWithdrawnEntry(entries[1].id, {

@@ -245,7 +245,7 @@ describe('readiness, entries and reminders against the demo show', () => {
 		const entry = await tx((t) =>
 			createEntryFromPlant(
 				member,
-				{ showId, classId: class3.id, plantId: ready.id, today },
+				{ showId, classId: class3.id, plantId: ready.id },
 				{ transaction: t }
 			)
 		);
@@ -264,7 +264,7 @@ describe('readiness, entries and reminders against the demo show', () => {
 			tx((t) =>
 				createEntryFromPlant(
 					member,
-					{ showId, classId: class3.id, plantId: young.id, today },
+					{ showId, classId: class3.id, plantId: young.id },
 					{ transaction: t }
 				)
 			)
@@ -274,7 +274,7 @@ describe('readiness, entries and reminders against the demo show', () => {
 			tx((t) =>
 				createEntryFromPlant(
 					other,
-					{ showId, classId: class3.id, plantId: ready.id, today },
+					{ showId, classId: class3.id, plantId: ready.id },
 					{ transaction: t }
 				)
 			)

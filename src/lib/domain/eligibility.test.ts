@@ -8,6 +8,8 @@ import {
 	TRAILER_MIN_CROWNS,
 	checkEligibility,
 	classesThatFit,
+	measuredSizeClass,
+	sizeClassForDiameter,
 	sizeLimitIn,
 	type CheckPhase,
 	type ClassRules,
@@ -860,5 +862,45 @@ describe('properties', () => {
 				expect(ids.length === 1).toBe(checkEligibility(i).fits);
 			})
 		);
+	});
+});
+
+describe('sizeClassForDiameter and measuredSizeClass', () => {
+	it.each<[number, SizeClass]>([
+		// size classes: miniature up to 6 in, semiminiature up to 8 in, standard over 8 in,
+		// large 16 in and over: growers' references (DOMAIN.md)
+		[5.5, 'miniature'],
+		[6, 'miniature'],
+		[6.01, 'semiminiature'],
+		[8, 'semiminiature'],
+		[8.5, 'standard'],
+		[15.9, 'standard'],
+		[16, 'large'],
+		// 1 in = 2.54 cm exactly, NIST SP 811 (DOMAIN.md): 15.24 cm is 6 in
+		[toInches(15.24, 'cm'), 'miniature']
+	])('a rosette of %s in measures as a %s', (diameter, expected) => {
+		expect(sizeClassForDiameter(diameter)).toBe(expected);
+	});
+
+	it('refuses a negative diameter', () => {
+		expect(() => sizeClassForDiameter(-1)).toThrow(RangeError);
+	});
+
+	it.each<[SizeClass, number | undefined, SizeClass]>([
+		// a miniature over its 6 in limit (growers' references, DOMAIN.md) is shown by its size
+		['miniature', 7, 'semiminiature'],
+		['miniature', 9, 'standard'],
+		['miniature', 6, 'miniature'],
+		['semiminiature', 8.5, 'standard'],
+		// never moved down for measuring small; standards have no upper limit
+		['standard', 5, 'standard'],
+		['standard', 17, 'standard'],
+		['miniature', undefined, 'miniature']
+	])('a declared %s measured at %s in is shown as a %s', (sizeClass, diameter, expected) => {
+		const plant = buildPlant({
+			sizeClass,
+			measured: diameter === undefined ? undefined : { diameterIn: diameter }
+		});
+		expect(measuredSizeClass(plant)).toBe(expected);
 	});
 });

@@ -201,6 +201,37 @@ export function sizeLimitIn(sizeClass: SizeClass): number | null {
 	return SIZE_LIMITS_IN[sizeClass];
 }
 
+/** Diameter, in inches, from which a rosette counts as large. */
+export const LARGE_FROM_IN = 16;
+
+/**
+ * The size class that a rosette of this diameter (inches) measures as: up to 6 in a miniature,
+ * up to 8 in a semiminiature, 16 in and over large, otherwise standard. Used at the desk to
+ * propose classes for a plant that has outgrown its declared size class.
+ */
+export function sizeClassForDiameter(diameterIn: number): SizeClass {
+	assertMeasure('diameter', diameterIn);
+	const within = (limit: number | null) =>
+		limit !== null && diameterIn <= limit + LENGTH_TOLERANCE_IN;
+	if (within(SIZE_LIMITS_IN.miniature)) return 'miniature';
+	if (within(SIZE_LIMITS_IN.semiminiature)) return 'semiminiature';
+	return diameterIn >= LARGE_FROM_IN - LENGTH_TOLERANCE_IN ? 'large' : 'standard';
+}
+
+/**
+ * The size class a plant can be shown as once measured: its declared size class, unless the
+ * measured diameter is over that size class's limit, in which case the size class of the
+ * measured diameter. A plant is never moved down because it measures small.
+ */
+export function measuredSizeClass(plant: PlantFacts): SizeClass {
+	const diameter = plant.measured?.diameterIn;
+	const limit = sizeLimitIn(plant.sizeClass);
+	if (diameter === undefined || limit === null || diameter <= limit + LENGTH_TOLERANCE_IN) {
+		return plant.sizeClass;
+	}
+	return sizeClassForDiameter(diameter);
+}
+
 /**
  * Decides whether a plant (or collection) may be entered in a show class, and
  * returns every rule it fails, in the order of `FAILURE_CODES`. In phase

@@ -1,8 +1,13 @@
-import { requireRole } from '$lib/server/policies';
-import { listEntriesOfExhibitor } from '$lib/server/services/shows';
+import { requireRole, societiesWithRole } from '$lib/server/policies';
+import { todayIso } from '$lib/server/services/entries';
+import { listEntriesOfExhibitor, listShowsTakingEntries } from '$lib/server/services/shows';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	const user = requireRole(event, ['member']);
-	return { entries: await listEntriesOfExhibitor(user.id) };
+	const [entries, openShows] = await Promise.all([
+		listEntriesOfExhibitor(user.id),
+		listShowsTakingEntries(societiesWithRole(user, ['member']), todayIso())
+	]);
+	return { entries, openShows };
 };

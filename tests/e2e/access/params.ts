@@ -5,8 +5,8 @@ export async function loadParams(): Promise<Record<string, string>> {
 	const client = new pg.Client({ connectionString: process.env.DATABASE_URL });
 	await client.connect();
 	try {
-		const show = await client.query<{ slug: string; id: string }>(
-			`SELECT s.slug, s.id FROM shows s JOIN societies so ON so.id = s.society_id
+		const show = await client.query<{ slug: string; id: string; society_id: string }>(
+			`SELECT s.slug, s.id, s.society_id FROM shows s JOIN societies so ON so.id = s.society_id
 			  WHERE so.slug = 'larkspur-valley' ORDER BY s.judging_day DESC LIMIT 1`
 		);
 		// An entry in a class that judge1's panel judges (demo seed: panel A, clerk@ as its clerk).
@@ -22,7 +22,14 @@ export async function loadParams(): Promise<Record<string, string>> {
 			`SELECT p.id FROM plants p JOIN users u ON u.id = p.owner_id
 			  WHERE u.email = 'member@crownbench.test' ORDER BY p.obtained_on, p.id LIMIT 1`
 		);
+		const mine = await client.query<{ id: string }>(
+			`SELECT e.id FROM entries e JOIN users u ON u.id = e.exhibitor_id
+			  WHERE u.email = 'member@crownbench.test' AND e.show_id = $1 ORDER BY e.number LIMIT 1`,
+			[show.rows[0].id]
+		);
 		return {
+			memberEntryId: mine.rows[0].id,
+			societyId: show.rows[0].society_id,
 			plantId: plant.rows[0].id,
 			slug: show.rows[0].slug,
 			showId: show.rows[0].id,

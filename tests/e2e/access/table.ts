@@ -12,7 +12,7 @@ export interface AccessRow {
 	method?: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 	/** Values for the route's params, by name; defaults come from params.ts. */
 	params?: Record<string, string>;
-	/** Query string to add. */
+	/** Query string to add; $name takes a looked-up value (params.ts). */
 	query?: string;
 	answers: Record<Visitor, Answer>;
 }
@@ -59,6 +59,46 @@ export const ACCESS_TABLE: AccessRow[] = [
 	{ route: '/admin', answers: pageFor('admin', 'other') },
 	{ route: '/admin', query: 'society=cedar-ridge', answers: { ...pageFor('other'), admin: 403 } },
 	{ route: '/chair', answers: pageFor('chair', 'other') },
+	// Schedule, registry, entries and the desk (issue 3).
+	{ route: '/shows/[slug]', answers: all(200) },
+	{ route: '/shows/[slug]/schedule.pdf', answers: all(200) },
+	{ route: '/chair/shows/[slug]', answers: pageFor('chair') },
+	{ route: '/chair/shows/[slug]/schedule', answers: pageFor('chair') },
+	{ route: '/chair/varieties', answers: pageFor('chair', 'other') },
+	{ route: '/desk/[slug]', answers: pageFor('clerk', 'chair') },
+	{ route: '/desk/[slug]/entries/[number]', answers: pageFor('clerk', 'chair') },
+	{ route: '/desk/[slug]/table', answers: pageFor('clerk', 'chair') },
+	{ route: '/desk/[slug]/tags', query: 'numbers=1', answers: pageFor('clerk', 'chair') },
+	{ route: '/api/desk/shows/[slug]/entries', answers: apiFor('clerk', 'chair') },
+	{
+		route: '/e/[slug]/[number]',
+		answers: { ...pageFor(), clerk: 303, chair: 303, judge: 303 }
+	},
+	{ route: '/my/shows/[slug]', answers: pageFor('member', 'clerk', 'chair', 'admin') },
+	{
+		route: '/my/entries/[id]',
+		params: { id: '$memberEntryId' },
+		answers: { ...pageFor('member'), clerk: 404, chair: 404, admin: 404, other: 404 }
+	},
+	{
+		route: '/api/photos/[id]',
+		params: { id: '00000000-0000-4000-8000-000000000000' },
+		answers: { ...all(404), anon: 401 }
+	},
+	{
+		route: '/api/varieties',
+		query: 'society=$societyId&q=a',
+		answers: { ...all(200), anon: 401, other: 403 }
+	},
+	{ route: '/api/varieties', query: 'q=a', answers: { ...all(400), anon: 401 } },
+	{
+		route: '/api/my/entries',
+		answers: { ...apiFor(), member: 405, clerk: 405, chair: 405, admin: 405, other: 405 }
+	},
+	{
+		route: '/api/my/entries/check',
+		answers: { ...apiFor(), member: 405, clerk: 405, chair: 405, admin: 405, other: 405 }
+	},
 	{ route: '/desk', answers: pageFor('clerk', 'chair', 'other') },
 	// Judging (issue 4): judges, and clerks who keep a panel's sheets; judge1 and clerk@ are on
 	// the panel of the class and entry used here. Chair pages are for the show's own chair.

@@ -4,6 +4,7 @@ import { Division } from './models/division';
 import { DuesPeriod } from './models/dues-period';
 import { Entry } from './models/entry';
 import { MailPreference } from './models/mail-preference';
+import { EntryPhoto } from './models/entry-photo';
 import { Membership } from './models/membership';
 import { Payment } from './models/payment';
 import { Refund } from './models/refund';
@@ -48,6 +49,7 @@ Panel.initModel(sequelize);
 PanelJudge.initModel(sequelize);
 PanelClass.initModel(sequelize);
 ScoreSheet.initModel(sequelize);
+EntryPhoto.initModel(sequelize);
 
 Membership.belongsTo(Society, { foreignKey: 'societyId', as: 'society' });
 Membership.belongsTo(User, { foreignKey: 'userId', as: 'user' });
@@ -71,6 +73,8 @@ Entry.belongsTo(ShowClass, { foreignKey: 'classId', as: 'showClass' });
 Entry.belongsTo(User, { foreignKey: 'exhibitorId', as: 'exhibitor' });
 Entry.belongsTo(Variety, { foreignKey: 'varietyId', as: 'variety' });
 ShowClass.hasMany(Entry, { foreignKey: 'classId', as: 'entries' });
+EntryPhoto.belongsTo(Entry, { foreignKey: 'entryId', as: 'entry' });
+Entry.hasMany(EntryPhoto, { foreignKey: 'entryId', as: 'photos' });
 
 DuesPeriod.belongsTo(Society, { foreignKey: 'societyId', as: 'society' });
 Payment.belongsTo(Society, { foreignKey: 'societyId', as: 'society' });
@@ -93,6 +97,7 @@ export {
 	DuesPeriod,
 	Entry,
 	MailPreference,
+	EntryPhoto,
 	Membership,
 	Payment,
 	Refund,

@@ -1,5 +1,6 @@
+import { duesCover } from './standing';
 import { Op, QueryTypes, type Transaction } from 'sequelize';
-import { compareIsoDates, type IsoDate } from '$lib/domain/dates';
+import type { IsoDate } from '$lib/domain/dates';
 import type { ClassRules, ExhibitorContext } from '$lib/domain/eligibility';
 import {
 	assessReadiness,
@@ -103,7 +104,10 @@ export async function loadShowForReadiness(
 	};
 }
 
-/** Published shows of the member's societies whose judging day is today or later. */
+/**
+ * Published shows of the member's societies that still take entries (entries close today or
+ * later): readiness is about what can still be entered.
+ */
 export async function listUpcomingShows(
 	societyIds: string[],
 	today: IsoDate
@@ -113,7 +117,7 @@ export async function listUpcomingShows(
 		where: {
 			societyId: societyIds,
 			schedulePublishedAt: { [Op.ne]: null },
-			judgingDay: { [Op.gte]: today }
+			entriesClose: { [Op.gte]: today }
 		},
 		order: [['judgingDay', 'ASC']]
 	});
@@ -211,12 +215,9 @@ export async function assessCollections(
 		});
 		eventsOf.set(e.plant_id, list);
 	}
-	// Good standing: dues paid through the judging day (the rule the entry service uses too).
+	// Good standing: the same rule as the entry service (services/standing.ts).
 	const standing = new Map(
-		memberships.map((m) => [
-			m.userId,
-			m.duesPaidThrough !== null && compareIsoDates(m.duesPaidThrough, show.context.showDate) >= 0
-		])
+		memberships.map((m) => [m.userId, duesCover(m.duesPaidThrough, show.context.showDate)])
 	);
 
 	for (const p of plants) {

@@ -88,3 +88,21 @@ export async function listEntriesOfExhibitor(userId: string): Promise<
 		status: r.status
 	}));
 }
+
+/** Published shows of the given societies that still take entries, soonest first. */
+export async function listShowsTakingEntries(
+	societyIds: string[],
+	today: string
+): Promise<ShowSummary[]> {
+	if (societyIds.length === 0) return [];
+	const shows = await Show.findAll({
+		where: {
+			societyId: societyIds,
+			schedulePublishedAt: { [Op.ne]: null },
+			entriesClose: { [Op.gte]: today }
+		},
+		include: [{ model: Society, as: 'society', attributes: ['name'] }],
+		order: [['judgingDay', 'ASC']]
+	});
+	return shows.map((s) => toSummary(s));
+}

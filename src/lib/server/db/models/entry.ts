@@ -31,6 +31,10 @@ export class Entry extends Model<InferAttributes<Entry>, InferCreationAttributes
 	declare checkedInBy: string | null;
 	declare feeStatus: CreationOptional<EntryFeeStatus>;
 	declare feePaymentId: CreationOptional<string | null>;
+	declare shownSizeClass: CreationOptional<
+		'miniature' | 'semiminiature' | 'standard' | 'large' | null
+	>;
+	declare deskNote: CreationOptional<string | null>;
 	declare createdAt: CreationOptional<Date>;
 	declare updatedAt: CreationOptional<Date>;
 
@@ -54,6 +58,8 @@ export class Entry extends Model<InferAttributes<Entry>, InferCreationAttributes
 				checkedInBy: { type: DataTypes.UUID },
 				feeStatus: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'not_required' },
 				feePaymentId: { type: DataTypes.UUID },
+				shownSizeClass: { type: DataTypes.STRING(16) },
+				deskNote: { type: DataTypes.STRING(240) },
 				createdAt: { type: DataTypes.DATE, defaultValue: DataTypes.NOW },
 				updatedAt: { type: DataTypes.DATE, defaultValue: DataTypes.NOW }
 			},

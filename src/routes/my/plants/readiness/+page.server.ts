@@ -52,7 +52,7 @@ export const actions: Actions = {
 		}
 		try {
 			const entry = await sequelize.transaction((transaction) =>
-				createEntryFromPlant(user.id, { ...parsed.data, today }, { transaction })
+				createEntryFromPlant(user.id, parsed.data, { transaction })
 			);
 			return { entered: entry.number, plantId: parsed.data.plantId };
 		} catch (err) {

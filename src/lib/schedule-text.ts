@@ -1,0 +1,99 @@
+import { formatDate } from './format';
+
+/** The class fields that the schedule describes in words. */
+export interface ClassDescribed {
+	habit: 'single_crown' | 'trailer' | 'any';
+	sizeClasses: string[];
+	blossomTypes: string[];
+	blossomColours: string[];
+	foliage: 'plain' | 'variegated' | 'any';
+	minCrowns: number | null;
+	maxCrowns: number | null;
+	collectionSize: number | null;
+	speciesOnly: boolean;
+	maxDiameterIn: number | null;
+	scaleName?: string | null;
+}
+
+/** Plain names of a habit, for labels. */
+export const HABIT_LABELS: Record<string, string> = {
+	single_crown: 'single crown',
+	trailer: 'trailer',
+	any: 'single crown or trailer'
+};
+
+function list(items: string[], joiner = 'or'): string {
+	if (items.length <= 1) return items.join('');
+	return `${items.slice(0, -1).join(', ')} ${joiner} ${items[items.length - 1]}`;
+}
+
+/** A class's eligibility as short plain phrases, for the schedule page and PDF. */
+export function describeClass(c: ClassDescribed): string[] {
+	const parts: string[] = [];
+	if (c.speciesOnly) parts.push('species only');
+	if (c.habit !== 'any') parts.push(c.habit === 'trailer' ? 'trailers' : 'single crown');
+	if (c.sizeClasses.length) parts.push(`size: ${list(c.sizeClasses)}`);
+	if (c.blossomTypes.length) parts.push(`blossoms: ${list(c.blossomTypes)}`);
+	if (c.blossomColours.length) parts.push(`colour: ${list(c.blossomColours)}`);
+	if (c.foliage !== 'any') parts.push(`${c.foliage} foliage`);
+	if (c.minCrowns !== null && c.maxCrowns !== null && c.minCrowns === c.maxCrowns) {
+		parts.push(`${c.minCrowns} crown${c.minCrowns === 1 ? '' : 's'}`);
+	} else {
+		if (c.minCrowns !== null) parts.push(`at least ${c.minCrowns} crowns`);
+		if (c.maxCrowns !== null)
+			parts.push(`at most ${c.maxCrowns} crown${c.maxCrowns === 1 ? '' : 's'}`);
+	}
+	if (c.collectionSize !== null)
+		parts.push(`collection of ${c.collectionSize} different named varieties`);
+	if (c.maxDiameterIn !== null) parts.push(`up to ${c.maxDiameterIn} in across`);
+	if (c.scaleName) parts.push(`judged on: ${c.scaleName}`);
+	return parts.length ? parts : ['open to any plant'];
+}
+
+/** The show fields that the schedule states as dates and rules. */
+export interface ShowDescribed {
+	venue: string;
+	publicHours: string;
+	entriesOpen: string;
+	entriesClose: string;
+	entryDay: string;
+	judgingDay: string;
+	possessionMonths: number;
+	maxEntriesPerClass: number;
+	maxEntriesPerVariety: number;
+	requireGoodStanding: boolean;
+	awardRules: {
+		system: 'merit' | 'placement';
+		merit: { blue: number; red: number; white: number };
+		placement: { first: number; second: number; third: number; honourable: number };
+	};
+}
+
+/** The show's dates and rules as sentences. */
+export function describeShowRules(s: ShowDescribed): { dates: string[]; rules: string[] } {
+	const dates = [
+		`Entries taken ${formatDate(s.entriesOpen)} to ${formatDate(s.entriesClose)}.`,
+		`Entry day (plants checked in): ${formatDate(s.entryDay)}.`,
+		`Judging: ${formatDate(s.judgingDay)}.`
+	];
+	if (s.venue) dates.push(`Where: ${s.venue}.`);
+	if (s.publicHours) dates.push(`Open to visitors: ${s.publicHours}`);
+	const rules: string[] = [];
+	if (s.requireGoodStanding)
+		rules.push('Exhibitors must be members in good standing on judging day.');
+	if (s.possessionMonths > 0) {
+		rules.push(
+			`Every plant must have been grown by the exhibitor for at least ${s.possessionMonths} month${s.possessionMonths === 1 ? '' : 's'} by judging day.`
+		);
+	}
+	rules.push(
+		`At most ${s.maxEntriesPerClass} ${s.maxEntriesPerClass === 1 ? 'entry' : 'entries'} per exhibitor in a class, and ${s.maxEntriesPerVariety} of each variety in the show.`
+	);
+	const a = s.awardRules;
+	rules.push(
+		a.system === 'merit'
+			? `Merit judging: blue ribbon ${a.merit.blue} points and over, red ${a.merit.red} and over, white ${a.merit.white} and over.`
+			: `Placement judging: first place needs ${a.placement.first} points, second ${a.placement.second}, third ${a.placement.third}, honourable mention ${a.placement.honourable}.`
+	);
+	return { dates, rules };
+}

@@ -1,0 +1,41 @@
+import { z } from 'zod';
+import { LENGTH_UNITS } from '$lib/domain/units';
+
+const measure = (label: string, max: number) =>
+	z.coerce
+		.number({ error: `Give the ${label} as a number.` })
+		.positive(`The ${label} must be more than 0.`)
+		.max(max, `The ${label} must be at most ${max}.`);
+
+/** Form: what the clerk measured at check-in, in inches or centimetres. */
+export const checkInSchema = z.object({
+	diameter: measure('diameter', 150),
+	crowns: z.coerce
+		.number({ error: 'Give the number of crowns.' })
+		.int('Give the crowns as a whole number.')
+		.min(1, 'A plant has at least one crown.')
+		.max(50, 'Count at most 50 crowns.'),
+	potSize: measure('pot size', 60),
+	unit: z.enum(LENGTH_UNITS as ['in', 'cm'], 'Choose inches or centimetres.')
+});
+export type CheckInInput = z.infer<typeof checkInSchema>;
+
+/** Form: move an entry to another class. */
+export const moveSchema = z.object({ classId: z.uuid('Choose a class.') });
+
+/** Form: scratch an entry, with a short reason for the record. */
+export const scratchSchema = z.object({
+	reason: z.string().trim().min(2, 'Say briefly why.').max(240, 'Keep the reason short.')
+});
+
+/** Query of the entries table: sorting, filters and paging, all done by the server. */
+export const entriesQuerySchema = z.object({
+	sort: z.enum(['number', 'class', 'variety', 'exhibitor', 'status', 'checkedIn']).catch('number'),
+	dir: z.enum(['asc', 'desc']).catch('asc'),
+	q: z.string().trim().max(80).catch(''),
+	classId: z.uuid().or(z.literal('')).catch(''),
+	status: z.enum(['', 'entered', 'checked_in', 'scratched', 'withdrawn']).catch(''),
+	page: z.coerce.number().int().min(0).max(10_000).catch(0),
+	size: z.coerce.number().int().min(5).max(100).catch(25)
+});
+export type EntriesQuery = z.infer<typeof entriesQuerySchema>;

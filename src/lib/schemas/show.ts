@@ -1,0 +1,149 @@
+import { z } from 'zod';
+import { isIsoDate } from '$lib/domain/dates';
+
+const isoDate = (label: string) =>
+	z
+		.string({ error: `Give the ${label}.` })
+		.trim()
+		.refine((v) => isIsoDate(v), `Give the ${label} as a date (YYYY-MM-DD).`);
+
+const wholeNumber = (label: string, min: number, max: number) =>
+	z.coerce
+		.number({ error: `Give ${label} as a number.` })
+		.int(`Give ${label} as a whole number.`)
+		.min(min, `${label[0].toUpperCase()}${label.slice(1)} must be at least ${min}.`)
+		.max(max, `${label[0].toUpperCase()}${label.slice(1)} must be at most ${max}.`);
+
+const score = (label: string) => wholeNumber(label, 0, 100);
+
+/** Form: a show's dates, venue and rules, as the show chair sets them. */
+export const showSettingsSchema = z
+	.object({
+		name: z.string().trim().min(3, 'Give the show a name.').max(160, 'Keep the name short.'),
+		venue: z.string().trim().max(240, 'Keep the venue under 240 characters.'),
+		publicHours: z.string().trim().max(240, 'Keep the public hours under 240 characters.'),
+		entriesOpen: isoDate('day entries open'),
+		entriesClose: isoDate('day entries close'),
+		entryDay: isoDate('entry day'),
+		judgingDay: isoDate('judging day'),
+		possessionMonths: wholeNumber('the possession period', 0, 24),
+		maxEntriesPerClass: wholeNumber('the entries per class', 1, 20),
+		maxEntriesPerVariety: wholeNumber('the entries per variety', 1, 20),
+		requireGoodStanding: z.boolean(),
+		awardSystem: z.enum(['merit', 'placement'], 'Choose merit or placement judging.'),
+		blue: score('the blue ribbon mark'),
+		red: score('the red ribbon mark'),
+		white: score('the white ribbon mark'),
+		first: score('the first place minimum'),
+		second: score('the second place minimum'),
+		third: score('the third place minimum'),
+		honourable: score('the honourable mention minimum')
+	})
+	.superRefine((v, ctx) => {
+		const order: [keyof typeof v, keyof typeof v, string][] = [
+			['entriesOpen', 'entriesClose', 'Entries must close on or after the day they open.'],
+			['entriesClose', 'entryDay', 'Entry day must be on or after the day entries close.'],
+			['entryDay', 'judgingDay', 'Judging day must be on or after entry day.']
+		];
+		for (const [a, b, message] of order) {
+			if (String(v[a]) > String(v[b])) ctx.addIssue({ code: 'custom', path: [b], message });
+		}
+		if (!(v.blue > v.red && v.red > v.white)) {
+			ctx.addIssue({
+				code: 'custom',
+				path: ['red'],
+				message: 'The ribbon marks must fall from blue to red to white.'
+			});
+		}
+		if (!(v.first >= v.second && v.second >= v.third && v.third >= v.honourable)) {
+			ctx.addIssue({
+				code: 'custom',
+				path: ['second'],
+				message: 'The place minimums must not rise from first place down.'
+			});
+		}
+	});
+export type ShowSettingsInput = z.infer<typeof showSettingsSchema>;
+
+/** Form: a division of the schedule. */
+export const divisionSchema = z.object({
+	code: z
+		.string()
+		.trim()
+		.min(1, 'Give the division a code, like IV.')
+		.max(8, 'Keep the code short.'),
+	name: z.string().trim().min(2, 'Give the division a name.').max(160, 'Keep the name short.'),
+	kind: z.enum(['horticulture', 'design', 'other'], 'Choose horticulture, design or other.')
+});
+export type DivisionInput = z.infer<typeof divisionSchema>;
+
+export const SIZE_CLASSES = ['miniature', 'semiminiature', 'standard', 'large'] as const;
+
+const optionalCount = (label: string, max: number) =>
+	z.preprocess(
+		(v) => (v === '' || v === null || v === undefined ? null : v),
+		z.coerce
+			.number({ error: `Give ${label} as a number.` })
+			.int(`Give ${label} as a whole number.`)
+			.min(1, `${label[0].toUpperCase()}${label.slice(1)} must be at least 1.`)
+			.max(max, `${label[0].toUpperCase()}${label.slice(1)} must be at most ${max}.`)
+			.nullable()
+	);
+
+/** Words typed as a comma-separated list: trimmed, lower case, no blanks or repeats. */
+export const wordList = z
+	.string()
+	.max(400, 'Keep the list shorter.')
+	.transform((v) => [
+		...new Set(
+			v
+				.split(',')
+				.map((w) => w.trim().toLowerCase())
+				.filter(Boolean)
+		)
+	])
+	.refine((list) => list.every((w) => w.length <= 40), 'Each word must be under 40 characters.');
+
+/** Form: a class of the schedule with its structured eligibility. */
+export const classSchema = z
+	.object({
+		divisionId: z.uuid('Choose a division.'),
+		code: z
+			.string()
+			.trim()
+			.min(1, 'Give the class a code, like 12.')
+			.max(8, 'Keep the code short.'),
+		name: z.string().trim().min(2, 'Give the class a name.').max(160, 'Keep the name short.'),
+		description: z.string().trim().max(2000, 'Keep the description shorter.'),
+		habit: z.enum(['single_crown', 'trailer', 'any'], 'Choose single crown, trailer or either.'),
+		sizeClasses: z.array(z.enum(SIZE_CLASSES, 'Unknown size class.')).max(4),
+		blossomTypes: wordList,
+		blossomColours: wordList,
+		foliage: z.enum(['plain', 'variegated', 'any'], 'Choose plain, variegated or any foliage.'),
+		minCrowns: optionalCount('the fewest crowns', 50),
+		maxCrowns: optionalCount('the most crowns', 50),
+		collectionSize: optionalCount('the collection size', 12),
+		speciesOnly: z.boolean(),
+		maxDiameterIn: z.preprocess(
+			(v) => (v === '' || v === null || v === undefined ? null : v),
+			z.coerce
+				.number({ error: 'Give the largest diameter as a number of inches.' })
+				.positive('The largest diameter must be more than 0.')
+				.max(60, 'The largest diameter must be at most 60 in.')
+				.nullable()
+		),
+		scaleId: z.preprocess(
+			(v) => (v === '' ? null : v),
+			z.uuid('Choose a scale of points.').nullable()
+		)
+	})
+	.superRefine((v, ctx) => {
+		if (v.minCrowns !== null && v.maxCrowns !== null && v.minCrowns > v.maxCrowns) {
+			ctx.addIssue({
+				code: 'custom',
+				path: ['maxCrowns'],
+				message: 'The most crowns must be at least the fewest crowns.'
+			});
+		}
+	});
+export type ClassInput = z.infer<typeof classSchema>;

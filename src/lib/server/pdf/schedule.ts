@@ -1,0 +1,44 @@
+import type { Content, TDocumentDefinitions } from 'pdfmake/interfaces';
+import { describeClass, describeShowRules } from '$lib/schedule-text';
+import type { ScheduleDivision, ShowSettings } from '../services/schedule';
+
+/** The printable show schedule, made from the same data as the public schedule page. */
+export function scheduleDocument(
+	show: ShowSettings & { societyName: string },
+	divisions: ScheduleDivision[]
+): TDocumentDefinitions {
+	const content: Content[] = [
+		{ text: show.name, style: 'title' },
+		{ text: show.societyName, style: 'small', margin: [0, 0, 0, 8] },
+		{ text: 'Dates and place', style: 'heading' },
+		{ ul: describeShowRules(show).dates },
+		{ text: 'Rules', style: 'heading' },
+		{ ul: describeShowRules(show).rules }
+	];
+	for (const division of divisions) {
+		content.push({ text: `Division ${division.code}: ${division.name}`, style: 'heading' });
+		if (!division.classes.length) content.push({ text: 'No classes yet.', style: 'small' });
+		for (const c of division.classes) {
+			content.push({
+				unbreakable: true,
+				margin: [0, 0, 0, 6],
+				stack: [
+					{ text: `Class ${c.code}. ${c.name}`, bold: true },
+					...(c.description ? [{ text: c.description }] : []),
+					{ text: describeClass(c).join(' · '), style: 'small' }
+				]
+			});
+		}
+	}
+	return {
+		info: { title: `Schedule: ${show.name}` },
+		pageSize: 'A4',
+		pageMargins: [48, 48, 48, 56],
+		footer: (current, count) => ({
+			text: `${show.name} · page ${current} of ${count}`,
+			alignment: 'center',
+			style: 'small'
+		}),
+		content
+	};
+}

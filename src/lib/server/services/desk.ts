@@ -1,0 +1,332 @@
+import { QueryTypes, type Transaction } from 'sequelize';
+import {
+	checkEligibility,
+	classesThatFit,
+	measuredSizeClass,
+	type EligibilityResult,
+	type PlantFacts
+} from '$lib/domain/eligibility';
+import { toInches } from '$lib/domain/units';
+import type { CheckInInput } from '$lib/schemas/desk';
+import { Division, Entry, Show, ShowClass, User, Variety, sequelize } from '../db';
+import { exhibitorContextFor, plantFactsOf, showContextOf, withStandingHint } from './entries';
+import { classRulesOf } from './schedule';
+
+/** A line of the desk's search results. */
+export interface DeskHit {
+	id: string;
+	number: number;
+	classLabel: string;
+	plant: string;
+	exhibitor: string;
+	status: string;
+}
+
+/**
+ * Finds entries of a show by entry number (when the text is a number) or by variety, title or
+ * exhibitor name; at most 30, by number.
+ */
+export async function findDeskEntries(showId: string, text: string): Promise<DeskHit[]> {
+	const q = text.trim().slice(0, 80);
+	if (!q) return [];
+	const number = /^\d{1,9}$/.test(q) ? Number(q) : null;
+	const like = `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+	const rows = await sequelize.query<{
+		id: string;
+		number: number;
+		class_label: string;
+		plant: string;
+		exhibitor: string;
+		status: string;
+	}>(
+		`SELECT e.id, e.number, c.code || ' ' || c.name AS class_label,
+		        COALESCE(v.name, e.title, '') AS plant, COALESCE(u.name, u.email) AS exhibitor, e.status
+		   FROM entries e
+		   JOIN classes c ON c.id = e.class_id
+		   JOIN users u ON u.id = e.exhibitor_id
+		   LEFT JOIN varieties v ON v.id = e.variety_id
+		  WHERE e.show_id = :showId
+		    AND (${number !== null ? 'e.number = :number' : 'v.name ILIKE :like OR e.title ILIKE :like OR u.name ILIKE :like OR u.email ILIKE :like'})
+		  ORDER BY e.number
+		  LIMIT 30`,
+		{ replacements: { showId, number, like }, type: QueryTypes.SELECT }
+	);
+	return rows.map((r) => ({
+		id: r.id,
+		number: r.number,
+		classLabel: r.class_label,
+		plant: r.plant,
+		exhibitor: r.exhibitor,
+		status: r.status
+	}));
+}
+
+/** A class the desk may move an entry to. */
+export interface ClassChoice {
+	id: string;
+	label: string;
+}
+
+/** The desk's view of one entry: facts, the verdict with measurements, and classes that fit. */
+export interface DeskEntry {
+	id: string;
+	number: number;
+	status: string;
+	classId: string;
+	classLabel: string;
+	plant: string;
+	exhibitor: string;
+	variety: {
+		name: string;
+		habit: string;
+		sizeClass: string;
+		blossomType: string;
+		blossomColours: string[];
+		foliage: string;
+	} | null;
+	shownSizeClass: string | null;
+	acquiredOn: string | null;
+	measuredDiameterIn: number | null;
+	measuredCrowns: number | null;
+	potSizeIn: number | null;
+	checkedInAt: string | null;
+	deskNote: string | null;
+	verdict: EligibilityResult | null;
+	proposals: ClassChoice[];
+}
+
+function measuredFacts(entry: Entry, variety: Variety): PlantFacts {
+	const measured: PlantFacts['measured'] = {};
+	if (entry.measuredDiameterIn !== null) measured.diameterIn = Number(entry.measuredDiameterIn);
+	if (entry.measuredCrowns !== null) measured.crowns = entry.measuredCrowns;
+	return plantFactsOf(variety, entry.acquiredOn, {
+		sizeClass: entry.shownSizeClass ?? variety.sizeClass,
+		measured
+	});
+}
+
+interface Judged {
+	verdict: EligibilityResult;
+	fitting: ShowClass[];
+	plant: PlantFacts;
+}
+
+/** Runs the eligibility again with what was measured, and finds the classes the plant fits. */
+async function judgeAtDesk(
+	show: Show,
+	entry: Entry,
+	variety: Variety,
+	classes: ShowClass[],
+	transaction?: Transaction
+): Promise<Judged> {
+	const plant = measuredFacts(entry, variety);
+	const exhibitorIn = await exhibitorContextFor(show, entry.exhibitorId, variety.id, {
+		exceptEntryId: entry.id,
+		transaction
+	});
+	const context = showContextOf(show);
+	const current = classes.find((c) => c.id === entry.classId)!;
+	const result = checkEligibility({
+		rules: classRulesOf(current),
+		plant,
+		show: context,
+		exhibitor: exhibitorIn(current.id),
+		phase: 'desk'
+	});
+	// A plant that outgrew its declared size class is proposed where its measured size fits.
+	const asMeasured = { ...plant, sizeClass: measuredSizeClass(plant) };
+	const horticulture = new Set(
+		(
+			await Division.findAll({
+				where: { showId: show.id, kind: 'horticulture' },
+				attributes: ['id'],
+				transaction
+			})
+		).map((d) => d.id)
+	);
+	const ids = classesThatFit(
+		asMeasured,
+		classes
+			.filter((c) => horticulture.has(c.divisionId))
+			.map((c) => ({ id: c.id, rules: classRulesOf(c) })),
+		{ phase: 'desk', show: context, exhibitorIn }
+	);
+	return {
+		verdict: { fits: result.fits, failures: withStandingHint(result.failures) },
+		fitting: classes.filter((c) => ids.includes(c.id) && c.id !== entry.classId),
+		plant: asMeasured
+	};
+}
+
+const label = (c: ShowClass) => `${c.code} ${c.name}`;
+
+/** Loads an entry of a show by its number for the desk, or null. */
+export async function loadDeskEntry(show: Show, number: number): Promise<DeskEntry | null> {
+	const entry = await Entry.findOne({ where: { showId: show.id, number } });
+	if (!entry) return null;
+	const [classes, variety, exhibitor] = await Promise.all([
+		ShowClass.findAll({ where: { showId: show.id }, order: [['position', 'ASC']] }),
+		entry.varietyId ? Variety.findByPk(entry.varietyId) : Promise.resolve(null),
+		User.findByPk(entry.exhibitorId, { attributes: ['name', 'email'] })
+	]);
+	const current = classes.find((c) => c.id === entry.classId)!;
+	const judged = variety ? await judgeAtDesk(show, entry, variety, classes) : null;
+	return {
+		id: entry.id,
+		number: entry.number,
+		status: entry.status,
+		classId: entry.classId,
+		classLabel: label(current),
+		plant: variety?.name ?? entry.title ?? '',
+		exhibitor: exhibitor?.name ?? exhibitor?.email ?? '',
+		variety: variety
+			? {
+					name: variety.name,
+					habit: variety.habit,
+					sizeClass: variety.sizeClass,
+					blossomType: variety.blossomType,
+					blossomColours: variety.blossomColours,
+					foliage: variety.foliage
+				}
+			: null,
+		shownSizeClass: entry.shownSizeClass,
+		acquiredOn: entry.acquiredOn,
+		measuredDiameterIn: entry.measuredDiameterIn === null ? null : Number(entry.measuredDiameterIn),
+		measuredCrowns: entry.measuredCrowns,
+		potSizeIn: entry.potSizeIn === null ? null : Number(entry.potSizeIn),
+		checkedInAt: entry.checkedInAt ? entry.checkedInAt.toISOString() : null,
+		deskNote: entry.deskNote,
+		verdict: judged?.verdict ?? null,
+		proposals: (judged?.fitting ?? []).map((c) => ({ id: c.id, label: label(c) }))
+	};
+}
+
+/** A desk action that cannot be done, in a plain sentence. */
+export class DeskProblem extends Error {}
+
+async function lockEntry(show: Show, entryId: string, transaction: Transaction): Promise<Entry> {
+	const entry = await Entry.findOne({
+		where: { id: entryId, showId: show.id },
+		transaction,
+		lock: transaction.LOCK.UPDATE
+	});
+	if (!entry) throw new DeskProblem('That entry is not part of this show.');
+	if (entry.status === 'withdrawn') throw new DeskProblem('The exhibitor withdrew this entry.');
+	return entry;
+}
+
+/**
+ * Checks an entry in with what the clerk measured (inches or centimetres; stored in inches),
+ * and returns the verdict with those measurements.
+ */
+export async function checkInEntry(
+	show: Show,
+	entryId: string,
+	clerkId: string,
+	input: CheckInInput,
+	options: { transaction: Transaction }
+): Promise<void> {
+	const { transaction } = options;
+	const entry = await lockEntry(show, entryId, transaction);
+	if (entry.status === 'scratched') throw new DeskProblem('This entry was scratched.');
+	const diameter = toInches(input.diameter, input.unit);
+	const pot = toInches(input.potSize, input.unit);
+	if (diameter >= 1000 || pot >= 100) throw new DeskProblem('Those measurements are too large.');
+	await entry.update(
+		{
+			status: 'checked_in',
+			measuredDiameterIn: diameter.toFixed(2),
+			measuredCrowns: input.crowns,
+			potSizeIn: pot.toFixed(2),
+			checkedInAt: new Date(),
+			checkedInBy: clerkId
+		},
+		{ transaction }
+	);
+}
+
+/**
+ * Moves an entry to another class of the show; the class must be one the plant fits with its
+ * measurements (the desk's proposals). When it fits only at its measured size, the entry is
+ * marked as shown at that size class.
+ */
+export async function moveEntry(
+	show: Show,
+	entryId: string,
+	classId: string,
+	options: { transaction: Transaction }
+): Promise<ShowClass> {
+	const { transaction } = options;
+	const entry = await lockEntry(show, entryId, transaction);
+	if (!entry.varietyId) throw new DeskProblem('Only plant entries can be moved here.');
+	const [classes, variety] = await Promise.all([
+		ShowClass.findAll({ where: { showId: show.id }, order: [['position', 'ASC']], transaction }),
+		Variety.findByPk(entry.varietyId, { transaction })
+	]);
+	const target = classes.find((c) => c.id === classId);
+	if (!target) throw new DeskProblem('That class is not in this show’s schedule.');
+	if (target.id === entry.classId) throw new DeskProblem('The entry is already in that class.');
+	const judged = await judgeAtDesk(show, entry, variety!, classes, transaction);
+	if (!judged.fitting.some((c) => c.id === classId)) {
+		throw new DeskProblem(
+			`The plant does not fit class ${label(target)}; choose one of the classes proposed.`
+		);
+	}
+	const declared = variety!.sizeClass;
+	const shown = judged.plant.sizeClass;
+	await entry.update(
+		{ classId: target.id, shownSizeClass: shown === declared ? null : shown },
+		{ transaction }
+	);
+	return target;
+}
+
+/** Scratches an entry (it stays on record, is not judged), with the clerk's reason. */
+export async function scratchEntry(
+	show: Show,
+	entryId: string,
+	reason: string,
+	options: { transaction: Transaction }
+): Promise<void> {
+	const { transaction } = options;
+	const entry = await lockEntry(show, entryId, transaction);
+	await entry.update({ status: 'scratched', deskNote: reason }, { transaction });
+}
+
+/** Entries for tags: number, class and variety, and the exhibitor for the fold-away stub. */
+export interface TagEntry {
+	number: number;
+	classLabel: string;
+	plant: string;
+	exhibitor: string;
+}
+
+/** The entries of a show to print tags for: all active ones, or the given numbers. */
+export async function listTagEntries(
+	showId: string,
+	numbers: number[] | null
+): Promise<TagEntry[]> {
+	const rows = await sequelize.query<{
+		number: number;
+		class_label: string;
+		plant: string;
+		exhibitor: string;
+	}>(
+		`SELECT e.number, c.code || ' ' || c.name AS class_label, COALESCE(v.name, e.title, '') AS plant,
+		        COALESCE(u.name, u.email) AS exhibitor
+		   FROM entries e
+		   JOIN classes c ON c.id = e.class_id
+		   JOIN users u ON u.id = e.exhibitor_id
+		   LEFT JOIN varieties v ON v.id = e.variety_id
+		  WHERE e.show_id = :showId AND e.status NOT IN ('withdrawn', 'scratched')
+		    ${numbers ? 'AND e.number IN (:numbers)' : ''}
+		  ORDER BY e.number`,
+		{ replacements: { showId, numbers: numbers ?? [] }, type: QueryTypes.SELECT }
+	);
+	return rows.map((r) => ({
+		number: r.number,
+		classLabel: r.class_label,
+		plant: r.plant,
+		exhibitor: r.exhibitor
+	}));
+}

@@ -1,0 +1,306 @@
+import { Op, QueryTypes, type Transaction } from 'sequelize';
+import { formatDateLong, formatIsoDate, type IsoDate } from '$lib/domain/dates';
+import {
+	checkEligibility,
+	type CheckPhase,
+	type EligibilityResult,
+	type ExhibitorContext,
+	type PlantFacts,
+	type RuleFailure,
+	type ShowContext
+} from '$lib/domain/eligibility';
+import type { EntryRequest } from '$lib/schemas/entry';
+import { Entry, Show, ShowClass, Variety, sequelize } from '../db';
+import { classRulesOf } from './schedule';
+import { MEMBERSHIP_PAGE, isInGoodStanding } from './standing';
+import { initialFeeStatus } from '$lib/domain/dues';
+import { settleFeeOfWithdrawnEntry } from './refunds';
+
+/** Statuses that no longer count towards an exhibitor's limits. */
+export const INACTIVE_STATUSES = ['withdrawn', 'scratched'] as const;
+
+/** Today's calendar date on the server. */
+export function todayIso(): IsoDate {
+	return formatIsoDate(new Date());
+}
+
+/** The show's dates and limits as the eligibility module reads them. */
+export function showContextOf(show: Show, today: IsoDate = todayIso()): ShowContext {
+	return {
+		showDate: show.judgingDay,
+		today,
+		entriesOpen: show.entriesOpen,
+		entriesClose: show.entriesClose,
+		possessionMonths: show.possessionMonths,
+		maxEntriesPerClass: show.maxEntriesPerClass,
+		maxEntriesPerVariety: show.maxEntriesPerVariety,
+		requireGoodStanding: show.requireGoodStanding
+	};
+}
+
+/** What is known of a plant of a variety; measurements are added at the desk. */
+export function plantFactsOf(
+	variety: Variety,
+	acquiredOn: IsoDate | null,
+	extra: Partial<PlantFacts> = {}
+): PlantFacts {
+	return {
+		varietyId: variety.id,
+		varietyName: variety.name,
+		isSpecies: variety.isSpecies,
+		habit: variety.habit,
+		sizeClass: variety.sizeClass,
+		blossomType: variety.blossomType,
+		blossomColours: variety.blossomColours,
+		foliage: variety.foliage,
+		acquiredOn,
+		...extra
+	};
+}
+
+/**
+ * The exhibitor's standing and other active entries in a show, as a function of the class, so
+ * the same counts serve one class or a list of candidate classes (one query for the entries).
+ */
+export async function exhibitorContextFor(
+	show: Show,
+	exhibitorId: string,
+	varietyId: string,
+	options: { exceptEntryId?: string; transaction?: Transaction } = {}
+): Promise<(classId: string) => ExhibitorContext> {
+	const { transaction, exceptEntryId } = options;
+	const [inGoodStanding, others] = await Promise.all([
+		isInGoodStanding(exhibitorId, show.societyId, show.judgingDay, { transaction }),
+		Entry.findAll({
+			where: {
+				showId: show.id,
+				exhibitorId,
+				status: { [Op.notIn]: [...INACTIVE_STATUSES] },
+				...(exceptEntryId ? { id: { [Op.ne]: exceptEntryId } } : {})
+			},
+			attributes: ['id', 'classId', 'varietyId'],
+			transaction
+		})
+	]);
+	const ofVariety = others.filter((e) => e.varietyId === varietyId);
+	return (classId) => ({
+		inGoodStanding,
+		entriesInClass: others.filter((e) => e.classId === classId).length,
+		entriesOfVariety: ofVariety.length,
+		varietyAlreadyInClass: ofVariety.some((e) => e.classId === classId)
+	});
+}
+
+/** Adds to the domain's good-standing sentence where a member becomes current. */
+export function withStandingHint(failures: RuleFailure[]): RuleFailure[] {
+	return failures.map((f) =>
+		f.code === 'not_in_good_standing'
+			? {
+					...f,
+					message: `${f.message} You can pay your dues on your membership page (${MEMBERSHIP_PAGE}).`
+				}
+			: f
+	);
+}
+
+/** An entry request that names a class or variety outside the show's society. */
+export class EntryInputProblem extends Error {
+	constructor(
+		message: string,
+		readonly field: 'classId' | 'varietyId' | 'showSlug'
+	) {
+		super(message);
+	}
+}
+
+/** An entry the rules refuse, with every failed rule. */
+export class EntryRefused extends Error {
+	constructor(readonly failures: RuleFailure[]) {
+		super(failures.map((f) => f.message).join(' '));
+	}
+}
+
+interface Resolved {
+	show: Show;
+	showClass: ShowClass;
+	variety: Variety;
+}
+
+async function resolve(
+	show: Show,
+	input: EntryRequest,
+	transaction?: Transaction
+): Promise<Resolved> {
+	const [showClass, variety] = await Promise.all([
+		ShowClass.findOne({ where: { id: input.classId, showId: show.id }, transaction }),
+		Variety.findOne({ where: { id: input.varietyId, societyId: show.societyId }, transaction })
+	]);
+	if (!showClass)
+		throw new EntryInputProblem('That class is not in this show’s schedule.', 'classId');
+	if (!variety)
+		throw new EntryInputProblem('That variety is not in the society’s registry.', 'varietyId');
+	return { show, showClass, variety };
+}
+
+async function judge(
+	{ show, showClass, variety }: Resolved,
+	exhibitorId: string,
+	acquiredOn: IsoDate,
+	phase: CheckPhase,
+	transaction?: Transaction
+): Promise<EligibilityResult> {
+	const exhibitorIn = await exhibitorContextFor(show, exhibitorId, variety.id, { transaction });
+	const result = checkEligibility({
+		rules: classRulesOf(showClass),
+		plant: plantFactsOf(variety, acquiredOn),
+		show: showContextOf(show),
+		exhibitor: exhibitorIn(showClass.id),
+		phase
+	});
+	return { fits: result.fits, failures: withStandingHint(result.failures) };
+}
+
+/** Checks an entry request without writing anything (the form's live answer). */
+export async function previewEntry(
+	show: Show,
+	exhibitorId: string,
+	input: EntryRequest
+): Promise<EligibilityResult & { className: string; varietyName: string }> {
+	const resolved = await resolve(show, input);
+	const result = await judge(resolved, exhibitorId, input.acquiredOn, 'entry');
+	return {
+		...result,
+		className: `${resolved.showClass.code} ${resolved.showClass.name}`,
+		varietyName: resolved.variety.name
+	};
+}
+
+/**
+ * Enters a plant: locks the show row (SELECT … FOR UPDATE) so entry numbers and limits are
+ * decided one entry at a time, checks every rule again, and writes the entry with the next
+ * number. Throws EntryRefused (nothing written) when a rule fails.
+ */
+export async function createEntry(
+	showId: string,
+	exhibitorId: string,
+	input: EntryRequest,
+	options: { transaction: Transaction }
+): Promise<Entry> {
+	const { transaction } = options;
+	const show = await Show.findByPk(showId, { transaction, lock: transaction.LOCK.UPDATE });
+	if (!show) throw new EntryInputProblem('That show does not exist.', 'showSlug');
+	const resolved = await resolve(show, input, transaction);
+	const result = await judge(resolved, exhibitorId, input.acquiredOn, 'entry', transaction);
+	if (!result.fits) throw new EntryRefused(result.failures);
+	const number = show.nextEntryNumber;
+	await show.update({ nextEntryNumber: number + 1 }, { transaction });
+	return Entry.create(
+		{
+			showId: show.id,
+			classId: resolved.showClass.id,
+			exhibitorId,
+			number,
+			title: null,
+			acquiredOn: input.acquiredOn,
+			measuredDiameterIn: null,
+			measuredCrowns: null,
+			potSizeIn: null,
+			checkedInAt: null,
+			checkedInBy: null,
+			varietyId: resolved.variety.id,
+			feeStatus: initialFeeStatus(show.entryFeeCents)
+		},
+		{ transaction }
+	);
+}
+
+/** Runs createEntry in its own transaction. */
+export function enterPlant(
+	showId: string,
+	exhibitorId: string,
+	input: EntryRequest
+): Promise<Entry> {
+	return sequelize.transaction((transaction) =>
+		createEntry(showId, exhibitorId, input, { transaction })
+	);
+}
+
+/** An exhibitor's own entry in a show, as their page lists it. */
+export interface MyEntry {
+	id: string;
+	number: number;
+	classLabel: string;
+	plant: string;
+	acquiredOn: string | null;
+	status: string;
+	photoCount: number;
+}
+
+/** One exhibitor's entries in one show, by number, with their photo counts (one query). */
+export async function listMyEntriesInShow(showId: string, exhibitorId: string): Promise<MyEntry[]> {
+	const rows = await sequelize.query<{
+		id: string;
+		number: number;
+		class_label: string;
+		plant: string;
+		acquired_on: string | null;
+		status: string;
+		photos: string;
+	}>(
+		`SELECT e.id, e.number, c.code || ' ' || c.name AS class_label,
+		        COALESCE(v.name, e.title, '') AS plant, e.acquired_on, e.status,
+		        (SELECT count(*) FROM entry_photos p WHERE p.entry_id = e.id) AS photos
+		   FROM entries e
+		   JOIN classes c ON c.id = e.class_id
+		   LEFT JOIN varieties v ON v.id = e.variety_id
+		  WHERE e.show_id = :showId AND e.exhibitor_id = :exhibitorId
+		  ORDER BY e.number`,
+		{ replacements: { showId, exhibitorId }, type: QueryTypes.SELECT }
+	);
+	return rows.map((r) => ({
+		id: r.id,
+		number: r.number,
+		classLabel: r.class_label,
+		plant: r.plant,
+		acquiredOn: r.acquired_on,
+		status: r.status,
+		photoCount: Number(r.photos)
+	}));
+}
+
+/** True while exhibitors may still enter and withdraw: on or before the day entries close. */
+export function entriesStillOpen(
+	show: Pick<Show, 'entriesClose'>,
+	today: IsoDate = todayIso()
+): boolean {
+	return today <= show.entriesClose;
+}
+
+/**
+ * Withdraws an exhibitor's own entry while entries are open; it stays on record as withdrawn.
+ * Returns a plain sentence when it cannot be withdrawn, otherwise null.
+ */
+export async function withdrawEntry(
+	exhibitorId: string,
+	entryId: string,
+	options: { transaction: Transaction }
+): Promise<string | null> {
+	const { transaction } = options;
+	const entry = await Entry.findOne({
+		where: { id: entryId, exhibitorId },
+		transaction,
+		lock: transaction.LOCK.UPDATE
+	});
+	if (!entry) return 'That entry is not one of yours.';
+	const show = await Show.findByPk(entry.showId, { transaction });
+	if (!show || !entriesStillOpen(show)) {
+		return `Entries closed on ${show ? formatDateLong(show.entriesClose) : 'an earlier day'}; ask the show chair to withdraw it.`;
+	}
+	if (entry.status !== 'entered')
+		return 'Only an entry that is not yet checked in can be withdrawn.';
+	await entry.update({ status: 'withdrawn' }, { transaction });
+	// A fee not yet paid is no longer owed; a paid one is refunded where the show allows it
+	// (sent after the commit by sendRequestedRefunds).
+	await settleFeeOfWithdrawnEntry(entry.id, { transaction });
+	return null;
+}

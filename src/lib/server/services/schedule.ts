@@ -1,0 +1,356 @@
+import { Op, type Transaction } from 'sequelize';
+import { DEFAULT_AWARD_RULES, validateAwardRules, type AwardRules } from '$lib/domain/awards';
+import type { ClassRules, SizeClass } from '$lib/domain/eligibility';
+import type { ClassInput, DivisionInput, ShowSettingsInput } from '$lib/schemas/show';
+import { Division, Entry, Scale, Show, ShowClass } from '../db';
+
+/** A class of the schedule as pages and PDFs show it. */
+export interface ScheduleClass {
+	id: string;
+	divisionId: string;
+	code: string;
+	name: string;
+	description: string | null;
+	habit: 'single_crown' | 'trailer' | 'any';
+	sizeClasses: SizeClass[];
+	blossomTypes: string[];
+	blossomColours: string[];
+	foliage: 'plain' | 'variegated' | 'any';
+	minCrowns: number | null;
+	maxCrowns: number | null;
+	collectionSize: number | null;
+	speciesOnly: boolean;
+	maxDiameterIn: number | null;
+	scaleId: string | null;
+	scaleName: string | null;
+}
+
+/** A division with its classes, in schedule order. */
+export interface ScheduleDivision {
+	id: string;
+	code: string;
+	name: string;
+	kind: 'horticulture' | 'design' | 'other';
+	classes: ScheduleClass[];
+}
+
+/** A show's settings as the chair's form shows them. */
+export interface ShowSettings {
+	id: string;
+	slug: string;
+	name: string;
+	venue: string;
+	publicHours: string;
+	entriesOpen: string;
+	entriesClose: string;
+	entryDay: string;
+	judgingDay: string;
+	possessionMonths: number;
+	maxEntriesPerClass: number;
+	maxEntriesPerVariety: number;
+	requireGoodStanding: boolean;
+	awardRules: AwardRules;
+	schedulePublished: boolean;
+}
+
+/** The show's award rules, filled from the defaults where a field is missing. */
+export function awardRulesOf(show: Show): AwardRules {
+	const stored = (show.awardRules ?? {}) as Partial<AwardRules>;
+	return {
+		...DEFAULT_AWARD_RULES,
+		...stored,
+		merit: { ...DEFAULT_AWARD_RULES.merit, ...stored.merit },
+		placement: { ...DEFAULT_AWARD_RULES.placement, ...stored.placement },
+		tieBreak: { ...DEFAULT_AWARD_RULES.tieBreak, ...stored.tieBreak },
+		topAwards: stored.topAwards ?? []
+	};
+}
+
+/** Plain settings of a show for the chair's form. */
+export function settingsOf(show: Show): ShowSettings {
+	return {
+		id: show.id,
+		slug: show.slug,
+		name: show.name,
+		venue: show.venue ?? '',
+		publicHours: show.publicHours ?? '',
+		entriesOpen: show.entriesOpen,
+		entriesClose: show.entriesClose,
+		entryDay: show.entryDay,
+		judgingDay: show.judgingDay,
+		possessionMonths: show.possessionMonths,
+		maxEntriesPerClass: show.maxEntriesPerClass,
+		maxEntriesPerVariety: show.maxEntriesPerVariety,
+		requireGoodStanding: show.requireGoodStanding,
+		awardRules: awardRulesOf(show),
+		schedulePublished: show.schedulePublishedAt !== null
+	};
+}
+
+/** The eligibility rules of a class, in the shape the eligibility module reads. */
+export function classRulesOf(c: Pick<ScheduleClass, keyof ClassRules> | ShowClass): ClassRules {
+	const diameter = c.maxDiameterIn;
+	return {
+		habit: c.habit,
+		sizeClasses: c.sizeClasses as SizeClass[],
+		blossomTypes: c.blossomTypes,
+		blossomColours: c.blossomColours,
+		foliage: c.foliage,
+		minCrowns: c.minCrowns,
+		maxCrowns: c.maxCrowns,
+		collectionSize: c.collectionSize,
+		speciesOnly: c.speciesOnly,
+		maxDiameterIn: diameter === null || diameter === undefined ? null : Number(diameter)
+	};
+}
+
+function toScheduleClass(c: ShowClass, scales: Map<string, string>): ScheduleClass {
+	return {
+		id: c.id,
+		divisionId: c.divisionId,
+		code: c.code,
+		name: c.name,
+		description: c.description,
+		habit: c.habit,
+		sizeClasses: c.sizeClasses as SizeClass[],
+		blossomTypes: c.blossomTypes,
+		blossomColours: c.blossomColours,
+		foliage: c.foliage,
+		minCrowns: c.minCrowns,
+		maxCrowns: c.maxCrowns,
+		collectionSize: c.collectionSize,
+		speciesOnly: c.speciesOnly,
+		maxDiameterIn: c.maxDiameterIn === null ? null : Number(c.maxDiameterIn),
+		scaleId: c.scaleId,
+		scaleName: c.scaleId ? (scales.get(c.scaleId) ?? null) : null
+	};
+}
+
+/** The schedule of a show: its divisions and their classes in order (three queries). */
+export async function loadSchedule(
+	showId: string,
+	options: { transaction?: Transaction } = {}
+): Promise<ScheduleDivision[]> {
+	const { transaction } = options;
+	const [divisions, classes] = await Promise.all([
+		Division.findAll({ where: { showId }, order: [['position', 'ASC']], transaction }),
+		ShowClass.findAll({ where: { showId }, order: [['position', 'ASC']], transaction })
+	]);
+	const scaleIds = [...new Set(classes.map((c) => c.scaleId).filter((id): id is string => !!id))];
+	const scales = scaleIds.length
+		? await Scale.findAll({ where: { id: scaleIds }, attributes: ['id', 'name'], transaction })
+		: [];
+	const names = new Map(scales.map((s) => [s.id, s.name]));
+	return divisions.map((d) => ({
+		id: d.id,
+		code: d.code,
+		name: d.name,
+		kind: d.kind,
+		classes: classes.filter((c) => c.divisionId === d.id).map((c) => toScheduleClass(c, names))
+	}));
+}
+
+/** The scales of points a society may use: its own and the shared built-in ones. */
+export async function listScales(societyId: string): Promise<{ id: string; name: string }[]> {
+	const scales = await Scale.findAll({
+		where: { [Op.or]: [{ societyId }, { societyId: null }] },
+		attributes: ['id', 'name'],
+		order: [['name', 'ASC']]
+	});
+	return scales.map((s) => ({ id: s.id, name: s.name }));
+}
+
+/** A rule of the show that cannot be saved, with the field it belongs to. */
+export class ScheduleProblem extends Error {
+	constructor(
+		message: string,
+		readonly field: string = 'form'
+	) {
+		super(message);
+	}
+}
+
+/** Saves a show's dates, venue and rules; the award thresholds go into its award rules. */
+export async function updateShowSettings(
+	show: Show,
+	input: ShowSettingsInput,
+	options: { transaction: Transaction }
+): Promise<void> {
+	const current = awardRulesOf(show);
+	const awardRules: AwardRules = {
+		...current,
+		system: input.awardSystem,
+		merit: { blue: input.blue, red: input.red, white: input.white },
+		placement: {
+			first: input.first,
+			second: input.second,
+			third: input.third,
+			honourable: input.honourable
+		}
+	};
+	const problems = validateAwardRules(awardRules);
+	if (problems.length) throw new ScheduleProblem(problems[0].message, 'red');
+	await show.update(
+		{
+			name: input.name,
+			venue: input.venue || null,
+			publicHours: input.publicHours || null,
+			entriesOpen: input.entriesOpen,
+			entriesClose: input.entriesClose,
+			entryDay: input.entryDay,
+			judgingDay: input.judgingDay,
+			possessionMonths: input.possessionMonths,
+			maxEntriesPerClass: input.maxEntriesPerClass,
+			maxEntriesPerVariety: input.maxEntriesPerVariety,
+			requireGoodStanding: input.requireGoodStanding,
+			awardRules: awardRules as unknown as Record<string, unknown>
+		},
+		{ transaction: options.transaction }
+	);
+}
+
+/** Publishes (or withdraws) the schedule, making the public schedule page visible. */
+export async function setSchedulePublished(
+	show: Show,
+	published: boolean,
+	options: { transaction: Transaction }
+): Promise<void> {
+	await show.update(
+		{ schedulePublishedAt: published ? new Date() : null },
+		{ transaction: options.transaction }
+	);
+}
+
+async function nextPosition(
+	model: typeof Division | typeof ShowClass,
+	showId: string,
+	transaction: Transaction
+): Promise<number> {
+	const max = (await (model as typeof Division).max('position', {
+		where: { showId },
+		transaction
+	})) as number | null;
+	return (max ?? 0) + 1;
+}
+
+async function assertCodeFree(
+	model: typeof Division | typeof ShowClass,
+	showId: string,
+	code: string,
+	exceptId: string | null,
+	transaction: Transaction
+): Promise<void> {
+	const where: Record<string | symbol, unknown> = { showId, code };
+	if (exceptId) where.id = { [Op.ne]: exceptId };
+	const clash = await (model as typeof Division).findOne({ where, transaction });
+	if (clash) throw new ScheduleProblem(`The code ${code} is already used in this show.`, 'code');
+}
+
+/** Adds a division, or changes one (when `divisionId` is given). */
+export async function saveDivision(
+	showId: string,
+	divisionId: string | null,
+	input: DivisionInput,
+	options: { transaction: Transaction }
+): Promise<Division> {
+	const { transaction } = options;
+	await assertCodeFree(Division, showId, input.code, divisionId, transaction);
+	if (divisionId) {
+		const division = await Division.findOne({ where: { id: divisionId, showId }, transaction });
+		if (!division) throw new ScheduleProblem('That division is not part of this show.');
+		return division.update(input, { transaction });
+	}
+	const position = await nextPosition(Division, showId, transaction);
+	return Division.create({ ...input, position, showId }, { transaction });
+}
+
+/** Removes a division with no entries in any of its classes (its classes go with it). */
+export async function deleteDivision(
+	showId: string,
+	divisionId: string,
+	options: { transaction: Transaction }
+): Promise<void> {
+	const { transaction } = options;
+	const division = await Division.findOne({ where: { id: divisionId, showId }, transaction });
+	if (!division) throw new ScheduleProblem('That division is not part of this show.');
+	const classIds = (
+		await ShowClass.findAll({ where: { divisionId }, attributes: ['id'], transaction })
+	).map((c) => c.id);
+	if (classIds.length && (await Entry.count({ where: { classId: classIds }, transaction })) > 0) {
+		throw new ScheduleProblem(
+			'This division has entries in its classes; move or withdraw them before removing it.'
+		);
+	}
+	await ShowClass.destroy({ where: { divisionId }, transaction });
+	await division.destroy({ transaction });
+}
+
+function classValues(input: ClassInput) {
+	return {
+		code: input.code,
+		name: input.name,
+		description: input.description || null,
+		habit: input.habit,
+		sizeClasses: input.sizeClasses,
+		blossomTypes: input.blossomTypes,
+		blossomColours: input.blossomColours,
+		foliage: input.foliage,
+		minCrowns: input.minCrowns,
+		maxCrowns: input.maxCrowns,
+		collectionSize: input.collectionSize,
+		speciesOnly: input.speciesOnly,
+		maxDiameterIn: input.maxDiameterIn === null ? null : String(input.maxDiameterIn),
+		scaleId: input.scaleId
+	};
+}
+
+/** Adds a class, or changes one (when `classId` is given), with its eligibility rules. */
+export async function saveClass(
+	show: Show,
+	classId: string | null,
+	input: ClassInput,
+	options: { transaction: Transaction }
+): Promise<ShowClass> {
+	const { transaction } = options;
+	const division = await Division.findOne({
+		where: { id: input.divisionId, showId: show.id },
+		transaction
+	});
+	if (!division) throw new ScheduleProblem('Choose a division of this show.', 'divisionId');
+	if (input.scaleId) {
+		const scale = await Scale.findOne({
+			where: { id: input.scaleId, [Op.or]: [{ societyId: show.societyId }, { societyId: null }] },
+			transaction
+		});
+		if (!scale) throw new ScheduleProblem('Choose one of the society’s scales.', 'scaleId');
+	}
+	await assertCodeFree(ShowClass, show.id, input.code, classId, transaction);
+	if (classId) {
+		const existing = await ShowClass.findOne({
+			where: { id: classId, showId: show.id },
+			transaction
+		});
+		if (!existing) throw new ScheduleProblem('That class is not part of this show.');
+		return existing.update({ ...classValues(input), divisionId: division.id }, { transaction });
+	}
+	const position = await nextPosition(ShowClass, show.id, transaction);
+	return ShowClass.create(
+		{ ...classValues(input), position, showId: show.id, divisionId: division.id },
+		{ transaction }
+	);
+}
+
+/** Removes a class that has no entries. */
+export async function deleteClass(
+	showId: string,
+	classId: string,
+	options: { transaction: Transaction }
+): Promise<void> {
+	const { transaction } = options;
+	const existing = await ShowClass.findOne({ where: { id: classId, showId }, transaction });
+	if (!existing) throw new ScheduleProblem('That class is not part of this show.');
+	if ((await Entry.count({ where: { classId }, transaction })) > 0) {
+		throw new ScheduleProblem('This class has entries; move or withdraw them before removing it.');
+	}
+	await existing.destroy({ transaction });
+}

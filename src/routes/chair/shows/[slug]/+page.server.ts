@@ -1,0 +1,79 @@
+import { fail } from '@sveltejs/kit';
+import { showSettingsSchema } from '$lib/schemas/show';
+import { sequelize } from '$lib/server/db';
+import { fieldErrors, textFields } from '$lib/server/forms';
+import { requireShowRole } from '$lib/server/policies/show';
+import {
+	ScheduleProblem,
+	setSchedulePublished,
+	settingsOf,
+	updateShowSettings
+} from '$lib/server/services/schedule';
+import type { Actions, PageServerLoad } from './$types';
+
+const FIELDS = [
+	'name',
+	'venue',
+	'publicHours',
+	'entriesOpen',
+	'entriesClose',
+	'entryDay',
+	'judgingDay',
+	'possessionMonths',
+	'maxEntriesPerClass',
+	'maxEntriesPerVariety',
+	'awardSystem',
+	'blue',
+	'red',
+	'white',
+	'first',
+	'second',
+	'third',
+	'honourable'
+] as const;
+
+export const load: PageServerLoad = async (event) => {
+	const { show } = await requireShowRole(event, event.params.slug, ['chair']);
+	return { show: settingsOf(show) };
+};
+
+export const actions: Actions = {
+	save: async (event) => {
+		const { show } = await requireShowRole(event, event.params.slug, ['chair']);
+		const form = await event.request.formData();
+		const values = textFields(form, FIELDS);
+		const parsed = showSettingsSchema.safeParse({
+			...values,
+			requireGoodStanding: form.get('requireGoodStanding') === 'on'
+		});
+		if (!parsed.success) {
+			return fail(400, {
+				message: 'Check the highlighted fields; nothing was saved.',
+				errors: fieldErrors(parsed.error),
+				values
+			});
+		}
+		try {
+			await sequelize.transaction((transaction) =>
+				updateShowSettings(show, parsed.data, { transaction })
+			);
+		} catch (e) {
+			if (!(e instanceof ScheduleProblem)) throw e;
+			return fail(400, { message: e.message, errors: { [e.field]: e.message }, values });
+		}
+		return { saved: 'The show’s dates and rules are saved.' };
+	},
+	publish: async (event) => {
+		const { show } = await requireShowRole(event, event.params.slug, ['chair']);
+		const form = await event.request.formData();
+		const published = form.get('published') === 'yes';
+		await sequelize.transaction((transaction) =>
+			setSchedulePublished(show, published, { transaction })
+		);
+		return {
+			saved: published
+				? 'The schedule is public now.'
+				: 'The schedule is hidden from the public again.'
+		};
+	}
+};

@@ -1,0 +1,116 @@
+import { fail } from '@sveltejs/kit';
+import { z } from 'zod';
+import { classSchema, divisionSchema } from '$lib/schemas/show';
+import { sequelize } from '$lib/server/db';
+import { fieldErrors, textFields } from '$lib/server/forms';
+import { requireShowRole } from '$lib/server/policies/show';
+import {
+	ScheduleProblem,
+	deleteClass,
+	deleteDivision,
+	listScales,
+	loadSchedule,
+	saveClass,
+	saveDivision
+} from '$lib/server/services/schedule';
+import type { Actions, PageServerLoad } from './$types';
+
+const CLASS_FIELDS = [
+	'divisionId',
+	'code',
+	'name',
+	'description',
+	'habit',
+	'blossomTypes',
+	'blossomColours',
+	'foliage',
+	'minCrowns',
+	'maxCrowns',
+	'collectionSize',
+	'maxDiameterIn',
+	'scaleId'
+] as const;
+const optionalId = z.uuid().nullable().catch(null);
+
+export const load: PageServerLoad = async (event) => {
+	const { show } = await requireShowRole(event, event.params.slug, ['chair']);
+	const [divisions, scales] = await Promise.all([
+		loadSchedule(show.id),
+		listScales(show.societyId)
+	]);
+	return { show: { name: show.name, slug: show.slug }, divisions, scales };
+};
+
+/** Runs a schedule change in one transaction; a ScheduleProblem becomes a 400 with its field. */
+async function attempt(
+	change: (transaction: import('sequelize').Transaction) => Promise<unknown>,
+	extra: Record<string, unknown> = {}
+) {
+	try {
+		await sequelize.transaction(change);
+		return null;
+	} catch (e) {
+		if (!(e instanceof ScheduleProblem)) throw e;
+		return fail(400, { message: e.message, errors: { [e.field]: e.message }, ...extra });
+	}
+}
+
+export const actions: Actions = {
+	saveDivision: async (event) => {
+		const { show } = await requireShowRole(event, event.params.slug, ['chair']);
+		const form = await event.request.formData();
+		const values = textFields(form, ['code', 'name', 'kind']);
+		const parsed = divisionSchema.safeParse(values);
+		if (!parsed.success) {
+			return fail(400, {
+				message: 'Check the division’s fields.',
+				errors: fieldErrors(parsed.error),
+				division: values
+			});
+		}
+		const id = optionalId.parse(form.get('id') || null);
+		const failed = await attempt(
+			(t) => saveDivision(show.id, id, parsed.data, { transaction: t }),
+			{
+				division: values
+			}
+		);
+		return failed ?? { saved: `Division ${parsed.data.code} is saved.` };
+	},
+	deleteDivision: async (event) => {
+		const { show } = await requireShowRole(event, event.params.slug, ['chair']);
+		const id = optionalId.parse((await event.request.formData()).get('id'));
+		if (!id) return fail(400, { message: 'Say which division to remove.' });
+		const failed = await attempt((t) => deleteDivision(show.id, id, { transaction: t }));
+		return failed ?? { saved: 'The division is removed.' };
+	},
+	saveClass: async (event) => {
+		const { show } = await requireShowRole(event, event.params.slug, ['chair']);
+		const form = await event.request.formData();
+		const values = textFields(form, CLASS_FIELDS);
+		const parsed = classSchema.safeParse({
+			...values,
+			sizeClasses: form.getAll('sizeClasses'),
+			speciesOnly: form.get('speciesOnly') === 'on'
+		});
+		if (!parsed.success) {
+			return fail(400, {
+				message: 'Check the highlighted fields; the class was not saved.',
+				errors: fieldErrors(parsed.error),
+				classValues: values
+			});
+		}
+		const id = optionalId.parse(form.get('id') || null);
+		const failed = await attempt((t) => saveClass(show, id, parsed.data, { transaction: t }), {
+			classValues: values
+		});
+		return failed ?? { saved: `Class ${parsed.data.code} is saved.` };
+	},
+	deleteClass: async (event) => {
+		const { show } = await requireShowRole(event, event.params.slug, ['chair']);
+		const id = optionalId.parse((await event.request.formData()).get('id'));
+		if (!id) return fail(400, { message: 'Say which class to remove.' });
+		const failed = await attempt((t) => deleteClass(show.id, id, { transaction: t }));
+		return failed ?? { saved: 'The class is removed.' };
+	}
+};

@@ -1,0 +1,92 @@
+import { error, fail } from '@sveltejs/kit';
+import { checkInSchema, moveSchema, scratchSchema } from '$lib/schemas/desk';
+import { sequelize } from '$lib/server/db';
+import { fieldErrors, textFields } from '$lib/server/forms';
+import { requireShowRole } from '$lib/server/policies/show';
+import {
+	DeskProblem,
+	checkInEntry,
+	loadDeskEntry,
+	moveEntry,
+	scratchEntry
+} from '$lib/server/services/desk';
+import type { Actions, PageServerLoad } from './$types';
+
+const ROLES = ['clerk', 'chair'] as const;
+
+async function deskEntry(event: Parameters<PageServerLoad>[0] | Parameters<Actions[string]>[0]) {
+	const { show, user } = await requireShowRole(event, event.params.slug!, ROLES);
+	const number = /^\d{1,9}$/.test(event.params.number ?? '') ? Number(event.params.number) : NaN;
+	const entry = Number.isNaN(number) ? null : await loadDeskEntry(show, number);
+	if (!entry) error(404, `There is no entry ${event.params.number} in this show.`);
+	return { show, user, entry };
+}
+
+/** Runs a desk change in one transaction; a DeskProblem becomes a 400 with its sentence. */
+async function attempt(change: (t: import('sequelize').Transaction) => Promise<unknown>) {
+	try {
+		await sequelize.transaction(change);
+		return null;
+	} catch (e) {
+		if (e instanceof DeskProblem) return fail(400, { message: e.message });
+		throw e;
+	}
+}
+
+export const load: PageServerLoad = async (event) => {
+	const { show, entry } = await deskEntry(event);
+	return { show: { name: show.name, slug: show.slug }, entry };
+};
+
+export const actions: Actions = {
+	checkIn: async (event) => {
+		const { show, user, entry } = await deskEntry(event);
+		const values = textFields(await event.request.formData(), [
+			'diameter',
+			'crowns',
+			'potSize',
+			'unit'
+		]);
+		const parsed = checkInSchema.safeParse(values);
+		if (!parsed.success) {
+			return fail(400, {
+				message: 'Check the measurements; nothing was saved.',
+				errors: fieldErrors(parsed.error),
+				values
+			});
+		}
+		const failed = await attempt((t) =>
+			checkInEntry(show, entry.id, user.id, parsed.data, { transaction: t })
+		);
+		return failed ?? { saved: `Entry ${entry.number} is checked in.` };
+	},
+	move: async (event) => {
+		const { show, entry } = await deskEntry(event);
+		const parsed = moveSchema.safeParse({
+			classId: (await event.request.formData()).get('classId')
+		});
+		if (!parsed.success) return fail(400, { message: 'Choose one of the proposed classes.' });
+		let label = '';
+		const failed = await attempt(async (t) => {
+			const target = await moveEntry(show, entry.id, parsed.data.classId, { transaction: t });
+			label = `${target.code} ${target.name}`;
+		});
+		return failed ?? { saved: `Entry ${entry.number} is moved to class ${label}.` };
+	},
+	scratch: async (event) => {
+		const { show, entry } = await deskEntry(event);
+		const parsed = scratchSchema.safeParse({
+			reason: (await event.request.formData()).get('reason') ?? ''
+		});
+		if (!parsed.success) {
+			return fail(400, {
+				message: 'Say briefly why the entry is scratched.',
+				errors: fieldErrors(parsed.error)
+			});
+		}
+		const failed = await attempt((t) =>
+			scratchEntry(show, entry.id, parsed.data.reason, { transaction: t })
+		);
+		return failed ?? { saved: `Entry ${entry.number} is scratched.` };
+	}
+};

@@ -1,0 +1,26 @@
+import { error, redirect } from '@sveltejs/kit';
+import { Entry } from '$lib/server/db';
+import { hasRole, requireUser } from '$lib/server/policies';
+import { findShowOr404 } from '$lib/server/policies/show';
+import type { RequestHandler } from './$types';
+
+/**
+ * Where an entry tag's QR code leads: a judge of the society to the judging page of the entry,
+ * a clerk or chair to the entry at the desk, anyone else to sign-in or a refusal.
+ */
+export const GET: RequestHandler = async (event) => {
+	const user = requireUser(event);
+	const show = await findShowOr404(event.params.slug);
+	const number = /^\d{1,9}$/.test(event.params.number) ? Number(event.params.number) : NaN;
+	if (hasRole(user, ['clerk', 'chair'], show.societyId)) {
+		redirect(303, `/desk/${show.slug}/entries/${event.params.number}`);
+	}
+	if (hasRole(user, ['judge'], show.societyId)) {
+		const entry = Number.isNaN(number)
+			? null
+			: await Entry.findOne({ where: { showId: show.id, number }, attributes: ['id'] });
+		if (!entry) error(404, `There is no entry ${event.params.number} in this show.`);
+		redirect(303, `/judging/entry/${entry.id}`);
+	}
+	error(403, 'Only the show’s clerks, chair and judges can open an entry from its tag.');
+};

@@ -1,0 +1,74 @@
+import { error, fail, type RequestEvent } from '@sveltejs/kit';
+import { z } from 'zod';
+import { Entry, EntryPhoto, Show, ShowClass, Variety, sequelize } from '$lib/server/db';
+import { requireRole } from '$lib/server/policies';
+import {
+	MAX_PHOTO_BYTES,
+	MAX_PHOTOS_PER_ENTRY,
+	PhotoProblem,
+	addEntryPhoto,
+	deleteEntryPhoto,
+	listEntryPhotos
+} from '$lib/server/services/photos';
+import type { Actions, PageServerLoad } from './$types';
+
+/** The signed-in member's own entry, or 404 (another person's entry is never shown). */
+async function ownEntry(event: Pick<RequestEvent, 'url' | 'locals'>, id: string): Promise<Entry> {
+	const user = requireRole(event, ['member']);
+	const entry = z.uuid().safeParse(id).success
+		? await Entry.findOne({ where: { id, exhibitorId: user.id } })
+		: null;
+	if (!entry) error(404, 'You have no entry at this address.');
+	return entry;
+}
+
+export const load: PageServerLoad = async (event) => {
+	const entry = await ownEntry(event, event.params.id);
+	const [show, showClass, variety, photos] = await Promise.all([
+		Show.findByPk(entry.showId, { attributes: ['name', 'slug'] }),
+		ShowClass.findByPk(entry.classId, { attributes: ['code', 'name'] }),
+		entry.varietyId ? Variety.findByPk(entry.varietyId, { attributes: ['name'] }) : null,
+		listEntryPhotos(entry.id)
+	]);
+	return {
+		entry: {
+			id: entry.id,
+			number: entry.number,
+			status: entry.status,
+			plant: variety?.name ?? entry.title ?? '',
+			classLabel: showClass ? `${showClass.code} ${showClass.name}` : '',
+			showName: show?.name ?? '',
+			showSlug: show?.slug ?? ''
+		},
+		photos,
+		limits: { maxBytes: MAX_PHOTO_BYTES, maxPhotos: MAX_PHOTOS_PER_ENTRY }
+	};
+};
+
+export const actions: Actions = {
+	upload: async (event) => {
+		const entry = await ownEntry(event, event.params.id);
+		const user = requireRole(event, ['member']);
+		const file = (await event.request.formData()).get('photo');
+		if (!(file instanceof File)) return fail(400, { message: 'Choose a photo to upload.' });
+		try {
+			await sequelize.transaction((transaction) =>
+				addEntryPhoto(entry, user.id, file, { transaction })
+			);
+		} catch (e) {
+			if (e instanceof PhotoProblem) return fail(400, { message: e.message });
+			throw e;
+		}
+		return { saved: 'The photo is added.' };
+	},
+	deletePhoto: async (event) => {
+		const entry = await ownEntry(event, event.params.id);
+		const id = z.uuid().safeParse((await event.request.formData()).get('photoId'));
+		const photo = id.success
+			? await EntryPhoto.findOne({ where: { id: id.data, entryId: entry.id } })
+			: null;
+		if (!photo) return fail(400, { message: 'That photo is not part of this entry.' });
+		await sequelize.transaction((transaction) => deleteEntryPhoto(photo, { transaction }));
+		return { saved: 'The photo is removed.' };
+	}
+};

@@ -1,0 +1,90 @@
+import { fail } from '@sveltejs/kit';
+import { z } from 'zod';
+import { entryRequestSchema } from '$lib/schemas/entry';
+import { sequelize } from '$lib/server/db';
+import { fieldErrors, textFields } from '$lib/server/forms';
+import { requireShowRole } from '$lib/server/policies/show';
+import {
+	EntryInputProblem,
+	EntryRefused,
+	enterPlant,
+	entriesStillOpen,
+	listMyEntriesInShow,
+	todayIso,
+	withdrawEntry
+} from '$lib/server/services/entries';
+import { sendRequestedRefunds } from '$lib/server/services/refunds';
+import { loadSchedule } from '$lib/server/services/schedule';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	const { show, user } = await requireShowRole(event, event.params.slug, ['member']);
+	const [divisions, entries] = await Promise.all([
+		loadSchedule(show.id),
+		listMyEntriesInShow(show.id, user.id)
+	]);
+	const today = todayIso();
+	return {
+		show: {
+			slug: show.slug,
+			name: show.name,
+			societyId: show.societyId,
+			entriesOpen: show.entriesOpen,
+			entriesClose: show.entriesClose,
+			judgingDay: show.judgingDay
+		},
+		open: today >= show.entriesOpen && entriesStillOpen(show, today),
+		classes: divisions
+			.filter((d) => d.kind === 'horticulture')
+			.flatMap((d) =>
+				d.classes
+					.filter((c) => c.collectionSize === null)
+					.map((c) => ({ value: c.id, label: `${d.code} · ${c.code}. ${c.name}` }))
+			),
+		entries
+	};
+};
+
+export const actions: Actions = {
+	enter: async (event) => {
+		const { show, user } = await requireShowRole(event, event.params.slug, ['member']);
+		const form = await event.request.formData();
+		const values = textFields(form, ['classId', 'varietyId', 'acquiredOn']);
+		const parsed = entryRequestSchema.safeParse({ ...values, showSlug: show.slug });
+		if (!parsed.success) {
+			return fail(400, {
+				message: 'Check the highlighted fields; nothing was entered.',
+				errors: fieldErrors(parsed.error),
+				values
+			});
+		}
+		try {
+			const entry = await enterPlant(show.id, user.id, parsed.data);
+			return { entered: `Entered as number ${entry.number}.`, number: entry.number };
+		} catch (e) {
+			if (e instanceof EntryRefused) {
+				return fail(400, {
+					message: 'This entry was refused; nothing was entered.',
+					failures: e.failures,
+					values
+				});
+			}
+			if (e instanceof EntryInputProblem) {
+				return fail(400, { message: e.message, errors: { [e.field]: e.message }, values });
+			}
+			throw e;
+		}
+	},
+	withdraw: async (event) => {
+		const { user } = await requireShowRole(event, event.params.slug, ['member']);
+		const id = z.uuid().safeParse((await event.request.formData()).get('entryId'));
+		if (!id.success) return fail(400, { message: 'Say which entry to withdraw.' });
+		const problem = await sequelize.transaction((transaction) =>
+			withdrawEntry(user.id, id.data, { transaction })
+		);
+		if (problem) return fail(400, { message: problem });
+		// A refund the withdrawal asked for goes to the payment service now (retried later if need be).
+		await sendRequestedRefunds().catch(() => undefined);
+		return { withdrawn: 'The entry is withdrawn.' };
+	}
+};

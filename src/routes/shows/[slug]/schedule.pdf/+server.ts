@@ -1,0 +1,11 @@
+import { pdfResponse, renderPdf } from '$lib/server/pdf/render';
+import { scheduleDocument } from '$lib/server/pdf/schedule';
+import { loadPublicSchedule } from '$lib/server/services/public-schedule';
+import type { RequestHandler } from './$types';
+
+/** The schedule as a PDF, made from the same data as the page. */
+export const GET: RequestHandler = async ({ params, locals }) => {
+	const { show, divisions } = await loadPublicSchedule(params.slug, locals.user);
+	const pdf = await renderPdf(scheduleDocument(show, divisions));
+	return pdfResponse(pdf, `schedule-${show.slug}.pdf`);
+};
