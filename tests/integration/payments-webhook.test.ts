@@ -398,12 +398,12 @@ describe('entry fees and refunds for withdrawn entries', () => {
 		expect(problem).toBeNull();
 		await entries[0].reload();
 		expect([entries[0].status, entries[0].feeStatus]).toEqual(['withdrawn', 'refund_pending']);
-		// On the day entries close the policy still allows it.
+		// Settling it again changes nothing.
 		expect(
 			await sequelize.transaction((transaction) =>
 				settleFeeOfWithdrawnEntry(entries[0].id, { transaction, today: show.entriesClose })
 			)
-		).toBe('none'); // already settled: nothing more happens
+		).toBe('none');
 		// A day later the other entry keeps its fee.
 		const late = await sequelize.transaction((transaction) =>
 			settleFeeOfWithdrawnEntry(entries[1].id, {
