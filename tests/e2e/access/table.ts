@@ -4,7 +4,7 @@ import type { Visitor } from './people';
  * What each visitor gets from a route: a status code, or 'signin' for a redirect to the sign-in
  * page. Every route of the app must have a row (the access test fails otherwise).
  */
-export type Answer = 200 | 303 | 'signin' | 400 | 401 | 403 | 404 | 405;
+export type Answer = 200 | 303 | 'signin' | 400 | 401 | 403 | 404 | 405 | 409;
 
 export interface AccessRow {
 	/** The route id, as in src/routes (with [params]). */
@@ -168,7 +168,17 @@ export const ACCESS_TABLE: AccessRow[] = [
 	{ route: '/my/payments', answers: pageFor('member', 'clerk', 'chair', 'admin', 'other') },
 	// Public, but only a correctly signed event changes anything.
 	{ route: '/api/payments/webhook', answers: all(405) },
-	{ route: '/api/payments/webhook', method: 'POST', answers: all(400) }
+	{ route: '/api/payments/webhook', method: 'POST', answers: all(400) },
+	// Results (the spring show's are not published: the public page says so, the CSV is 404).
+	{ route: '/shows/[slug]/results', answers: all(200) },
+	{ route: '/shows/[slug]/results/results.csv', answers: all(404) },
+	{ route: '/chair/shows/[slug]/results', answers: pageFor('chair') },
+	{
+		route: '/chair/shows/[slug]/results/[document]',
+		params: { document: 'award-sheets.pdf' },
+		answers: { ...pageFor('chair'), chair: 409 }
+	},
+	{ route: '/api/chair/shows/[slug]/results-mail', answers: apiFor('chair') }
 ];
 
 export { all, apiFor, pageFor };

@@ -5,9 +5,9 @@ import {
 	awardsOf,
 	describeAwards,
 	loadPublishedAwards,
-	loadShowJudging,
-	publishResults
+	loadShowJudging
 } from '$lib/server/services/results';
+import { publishResultsAndTell } from '$lib/server/services/show-results';
 import { requireShowRole } from '$lib/server/services/show-access';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -39,11 +39,15 @@ export const actions: Actions = {
 		const allowIncomplete = form.get('allowIncomplete') === 'on';
 		try {
 			const outcome = await sequelize.transaction((transaction) =>
-				publishResults(user, show.id, { transaction, allowIncomplete })
+				publishResultsAndTell(user, show.id, {
+					transaction,
+					allowIncomplete,
+					origin: event.url.origin
+				})
 			);
 			return {
 				ok: true,
-				message: `Results published: ${outcome.awards} awards stored${outcome.ties ? `, ${outcome.ties} ties left for the judges` : ''}. Scores are locked.`
+				message: `Results published: ${outcome.awards} awards stored${outcome.ties ? `, ${outcome.ties} ties left for the judges` : ''}. Scores are locked. ${outcome.queued} placements ${outcome.queued === 1 ? 'e-mail is' : 'e-mails are'} on their way.`
 			};
 		} catch (err) {
 			if (isRefusal(err)) return fail(409, { message: err.message });

@@ -1,0 +1,101 @@
+import { describe, expect, it } from 'vitest';
+import { PDFParse } from 'pdf-parse';
+import { generateShow } from '$lib/results/generated-show';
+import { eachEntry } from '$lib/results/assemble';
+import { entryAwards } from '$lib/results/labels';
+import { renderAwardCards } from './award-cards';
+import { renderAwardSheets } from './award-sheets';
+import { renderRibbonLabels, ribbonLabels } from './ribbon-labels';
+
+async function textOf(buffer: Buffer): Promise<{ text: string; pages: number }> {
+	const parser = new PDFParse({ data: new Uint8Array(buffer) });
+	const result = await parser.getText();
+	await parser.destroy();
+	return { text: result.text.replace(/\s+/g, ' '), pages: result.total };
+}
+
+describe('results documents of a small show', () => {
+	const { results } = generateShow({ entries: 60, classesPerDivision: 4, exhibitors: 8 });
+	const all = [...eachEntry(results)];
+	const awarded = all.filter(({ entry }) => entryAwards(entry).length > 0);
+
+	it('award sheets hold every class, the top awards and the sweepstakes', async () => {
+		const { text } = await textOf(await renderAwardSheets(results));
+		expect(text).toContain('Award sheets: Generated Autumn Show');
+		const top = results.topAwards[0];
+		expect(top).toBeDefined();
+		expect(text).toMatch(new RegExp(`Best in show ${top.classCode} ${top.number} `));
+		for (const d of results.divisions) {
+			expect(text).toContain(`Sweepstakes, division ${d.code}`);
+			const winner = d.sweepstakes.find((s) => s.winner);
+			if (winner) expect(text).toContain(`${winner.exhibitor} ${winner.blue} ${winner.red}`);
+		}
+		// Each entry's row: number, variety, exhibitor, score and award, in that order.
+		for (const { entry } of all.slice(0, 20)) {
+			const score = entry.score === null ? '–' : String(entry.score);
+			expect(text).toContain(`${entry.number} ${entry.plant} ${entry.exhibitor} ${score}`);
+		}
+		// Blue ribbon from 90 (national handbook, from memory): a 90+ entry's row says so.
+		const blue = all.find(({ entry }) => entry.score !== null && entry.score >= 90)!;
+		expect(text).toMatch(
+			new RegExp(
+				`${blue.entry.number} ${blue.entry.plant} ${blue.entry.exhibitor} [\\d.]+ [^]*?Blue ribbon`
+			)
+		);
+	});
+
+	it('award cards: one per awarded entry with award, class, variety, score and comment', async () => {
+		const { text, pages } = await textOf(await renderAwardCards(results));
+		expect(pages).toBe(Math.ceil(awarded.length / 4));
+		for (const { cls, entry } of awarded) {
+			expect(text).toContain(`Class ${cls.code}: ${cls.name}`);
+			expect(text).toContain(`Entry ${entry.number} Score ${entry.score}`);
+		}
+		const commented = awarded.find(({ entry }) => entry.comments.length > 0)!;
+		expect(text).toContain(commented.entry.comments[0]);
+		expect(text.match(/Entry \d+ Score/g)).toHaveLength(awarded.length);
+	});
+
+	it('ribbon labels: one per award, thirty to a page', async () => {
+		const labels = ribbonLabels(results);
+		const expected = awarded.reduce((n, { entry }) => n + entryAwards(entry).length, 0);
+		expect(labels).toHaveLength(expected);
+		const { text, pages } = await textOf(await renderRibbonLabels(results));
+		expect(pages).toBe(Math.ceil(expected / 30));
+		expect(text.match(/Class \d+ · Entry \d+/g)).toHaveLength(expected);
+		expect(text.match(/Best in class/g)?.length).toBe(
+			labels.filter((l) => l.award === 'Best in class').length
+		);
+	});
+});
+
+// Generous timeouts: the machine may be busy. Speed is measured by the benchmark, not here.
+describe('results documents of a large show (2,000 entries)', { timeout: 180_000 }, () => {
+	const { results } = generateShow({
+		entries: 2000,
+		divisions: 3,
+		classesPerDivision: 40,
+		exhibitors: 150,
+		seed: 11
+	});
+	const all = [...eachEntry(results)];
+
+	it('award sheets list every entry', async () => {
+		const { text } = await textOf(await renderAwardSheets(results));
+		// Every entry's row, and the top awards table's rows, which name the entry too.
+		const rows = text.match(/\b\d+ (?:[A-Z][a-z]+ ){2}Exhibitor \d+ Testwood /g) ?? [];
+		expect(results.topAwards.length).toBeGreaterThan(0);
+		expect(rows).toHaveLength(2000 + results.topAwards.length);
+		const last = all[all.length - 1].entry;
+		expect(text).toContain(`${last.number} ${last.plant} ${last.exhibitor}`);
+	});
+
+	it('award cards and labels cover every awarded entry', async () => {
+		const awarded = all.filter(({ entry }) => entryAwards(entry).length > 0).length;
+		expect(awarded).toBeGreaterThan(500);
+		const cards = await textOf(await renderAwardCards(results));
+		expect(cards.text.match(/Entry \d+ Score/g)).toHaveLength(awarded);
+		const labels = await textOf(await renderRibbonLabels(results));
+		expect(labels.text.match(/Class \d+ · Entry \d+/g)).toHaveLength(ribbonLabels(results).length);
+	});
+});

@@ -1,0 +1,41 @@
+import { fail } from '@sveltejs/kit';
+import { z } from 'zod';
+import { sequelize } from '$lib/server/db';
+import { requireChairShow } from '$lib/server/results/chair-access';
+import {
+	loadResultsMail,
+	loadShowResults,
+	resendResultsMail
+} from '$lib/server/services/show-results';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	const { show } = await requireChairShow(event, event.params.slug);
+	if (!show.publishedAt) {
+		return { show: { slug: show.slug, name: show.name, published: false }, results: null };
+	}
+	const [results, mail] = await Promise.all([loadShowResults(show.id), loadResultsMail(show.id)]);
+	return {
+		show: { slug: show.slug, name: show.name, published: true },
+		results,
+		mail
+	};
+};
+
+const resendSchema = z.object({ id: z.uuid({ error: 'Choose a message to send again.' }) });
+
+export const actions: Actions = {
+	/** Puts one placements e-mail back in line to be sent again now. */
+	resend: async (event) => {
+		const { show } = await requireChairShow(event, event.params.slug);
+		const parsed = resendSchema.safeParse(Object.fromEntries(await event.request.formData()));
+		if (!parsed.success) return fail(400, { message: parsed.error.issues[0].message });
+		const done = await sequelize.transaction((transaction) =>
+			resendResultsMail(show.id, parsed.data.id, { transaction })
+		);
+		if (!done) {
+			return fail(400, { message: 'That message is not one of this show, or it is being sent.' });
+		}
+		return { ok: true, message: 'The message is back in line and goes out in a moment.' };
+	}
+};
