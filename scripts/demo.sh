@@ -15,11 +15,15 @@ export SMTP_FAKE_PORT="${SMTP_FAKE_PORT:-2525}" SMTP_FAKE_HTTP_PORT="${SMTP_FAKE
 export SMTP_URL="smtp://127.0.0.1:$SMTP_FAKE_PORT"
 export CB_DEV_MAIL_URL="http://127.0.0.1:$SMTP_FAKE_HTTP_PORT"
 export AUTH_SECRET="${AUTH_SECRET:-$(auth_secret)}"
+export PAYMENT_FAKE_PORT="${PAYMENT_FAKE_PORT:-12111}"
+export PAYMENT_FAKE_WEBHOOK_URL="http://127.0.0.1:$PORT/api/payments/webhook"
+use_payment_fake
 
 echo "demo: loading the demo society and its spring show (this replaces earlier demo data)"
 npx tsx scripts/db.ts reset
 
 start_smtp_fake
+start_payment_fake
 trap stop_background EXIT INT TERM
 
 echo "demo: building the app"
@@ -38,6 +42,9 @@ cat <<MSG
     member@crownbench.test    member and exhibitor
     lapsed@crownbench.test    member whose dues have lapsed
   Any other address gets a new account with no role.
+
+  Payments go to the local payment fake at http://127.0.0.1:$PAYMENT_FAKE_PORT (no card, no
+  money): lapsed@crownbench.test can pay dues at $ORIGIN/my/membership.
 
   Press Ctrl-C to stop. The database keeps running: ./docker-less-db.sh stop ends it.
 

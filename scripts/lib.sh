@@ -35,6 +35,22 @@ start_smtp_fake() {
 	wait_for_url "http://127.0.0.1:$SMTP_FAKE_HTTP_PORT/health" 15
 }
 
+# The local payment fake (scripts/payment-fake.js) on PAYMENT_FAKE_PORT; it signs webhooks with
+# STRIPE_WEBHOOK_SECRET and posts them to PAYMENT_FAKE_WEBHOOK_URL.
+start_payment_fake() {
+	mkdir -p .data
+	node scripts/payment-fake.js >".data/payment-fake-$PAYMENT_FAKE_PORT.log" 2>&1 &
+	background_pids+=($!)
+	wait_for_url "http://127.0.0.1:$PAYMENT_FAKE_PORT/health" 15
+}
+
+# Points the app's payment SDK at the local fake (exports the STRIPE_* settings).
+use_payment_fake() {
+	export STRIPE_SECRET_KEY="sk_test_crownbench_local_fake"
+	export STRIPE_WEBHOOK_SECRET="whsec_crownbench_local_fake_$RANDOM$RANDOM"
+	export STRIPE_API_HOST=127.0.0.1 STRIPE_API_PORT="$PAYMENT_FAKE_PORT" STRIPE_API_PROTOCOL=http
+}
+
 # Stops a process: SIGTERM, then SIGKILL if it has not ended within 10 s.
 stop_pid() {
 	local pid="$1" i

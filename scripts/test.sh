@@ -28,10 +28,14 @@ export SMTP_FAKE_PORT="${TEST_SMTP_PORT:-2535}" SMTP_FAKE_HTTP_PORT="${TEST_SMTP
 export SMTP_URL="smtp://127.0.0.1:$SMTP_FAKE_PORT"
 export CB_DEV_MAIL_URL="http://127.0.0.1:$SMTP_FAKE_HTTP_PORT"
 export AUTH_SECRET="test-secret-$(date +%s)-$RANDOM"
+export PAYMENT_FAKE_PORT="${TEST_PAYMENT_PORT:-12112}"
+export PAYMENT_FAKE_WEBHOOK_URL="http://127.0.0.1:${TEST_APP_PORT:-4173}/api/payments/webhook"
+use_payment_fake
 # Browser tests sign the same demo people in many times: a roomier limit per address, and all
 # of them come from 127.0.0.1. A test checks that the limit per address still bites.
 export CB_SIGNIN_LIMIT_PER_ADDRESS="${CB_SIGNIN_LIMIT_PER_ADDRESS:-30}" CB_SIGNIN_LIMIT_PER_IP="${CB_SIGNIN_LIMIT_PER_IP:-100000}"
 start_smtp_fake
+start_payment_fake
 trap stop_background EXIT INT TERM
 set +e
 

@@ -7,6 +7,7 @@ import { DATABASE_DOWN_MESSAGE, isDatabaseDown } from '$lib/server/db/connection
 import { AREA_ROLES, areaOf, requireRole, requireUser } from '$lib/server/policies';
 import { startOutboxWorker } from '$lib/server/mail/outbox';
 import { loadSessionUser, loadSignedInUser } from '$lib/server/services/people';
+import { startRefundSender } from '$lib/server/services/refunds';
 import { startReminderSchedule } from '$lib/server/services/reminders';
 import { todayIso } from '$lib/schemas/plants';
 
@@ -92,13 +93,16 @@ export const handleError: HandleServerError = ({ error: err, status }) => {
  * `npm run worker` as its own process). Several senders are safe: rows are claimed with SKIP LOCKED.
  */
 export const init: ServerInit = () => {
-	const stopWorker = process.env.CB_OUTBOX_WORKER !== 'off' ? startOutboxWorker() : () => {};
+	const off = process.env.CB_OUTBOX_WORKER === 'off';
+	const stopWorker = off ? () => {} : startOutboxWorker();
+	const stopRefunds = off ? () => {} : startRefundSender();
 	// Entry reminders: an hourly check queues them once per show and member (CB_REMINDERS=off stops it).
 	const stopReminders =
 		process.env.CB_REMINDERS !== 'off' ? startReminderSchedule(todayIso) : () => {};
 	// adapter-node emits this after it stops taking requests (SIGTERM, SIGINT): let the process end.
 	process.once('sveltekit:shutdown', () => {
 		stopWorker();
+		stopRefunds();
 		stopReminders();
 		void sequelize.close();
 	});

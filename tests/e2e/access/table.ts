@@ -142,6 +142,33 @@ export const ACCESS_TABLE: AccessRow[] = [
 		route: '/api/chair/shows/[showId]/entry-reminders',
 		answers: { ...apiFor(), chair: 405, other: 405 }
 	},
+	{ route: '/admin/members', answers: pageFor('admin', 'other') },
+	{
+		route: '/admin/members',
+		query: 'society=cedar-ridge',
+		answers: { ...pageFor('other'), admin: 403 }
+	},
+	{ route: '/admin/dues', answers: pageFor('admin', 'other') },
+	{
+		route: '/admin/dues',
+		query: 'society=cedar-ridge',
+		answers: { ...pageFor('other'), admin: 403 }
+	},
+	{
+		route: '/api/admin/members',
+		query: 'society=larkspur-valley&sort=duesPaidThrough',
+		answers: apiFor('admin')
+	},
+	{
+		route: '/api/admin/members',
+		query: 'sort=nonsense',
+		answers: { ...apiFor(), admin: 400, other: 400 }
+	},
+	{ route: '/my/membership', answers: pageFor('member', 'clerk', 'chair', 'admin', 'other') },
+	{ route: '/my/payments', answers: pageFor('member', 'clerk', 'chair', 'admin', 'other') },
+	// Public, but only a correctly signed event changes anything.
+	{ route: '/api/payments/webhook', answers: all(405) },
+	{ route: '/api/payments/webhook', method: 'POST', answers: all(400) },
 	// Results (the spring show's are not published: the public page says so, the CSV is 404).
 	{ route: '/shows/[slug]/results', answers: all(200) },
 	{ route: '/shows/[slug]/results/results.csv', answers: all(404) },

@@ -1,10 +1,13 @@
 import { createSequelize } from './connection';
 import { Account, Session, VerificationToken } from './models/auth-records';
 import { Division } from './models/division';
+import { DuesPeriod } from './models/dues-period';
 import { Entry } from './models/entry';
 import { MailPreference } from './models/mail-preference';
 import { EntryPhoto } from './models/entry-photo';
 import { Membership } from './models/membership';
+import { Payment } from './models/payment';
+import { Refund } from './models/refund';
 import { Plant } from './models/plant';
 import { PlantEvent } from './models/plant-event';
 import { PlantPhoto } from './models/plant-photo';
@@ -34,6 +37,9 @@ Show.initModel(sequelize);
 Division.initModel(sequelize);
 ShowClass.initModel(sequelize);
 Entry.initModel(sequelize);
+DuesPeriod.initModel(sequelize);
+Payment.initModel(sequelize);
+Refund.initModel(sequelize);
 // The member's collection (issue 6)
 Plant.initModel(sequelize);
 PlantEvent.initModel(sequelize);
@@ -70,6 +76,10 @@ ShowClass.hasMany(Entry, { foreignKey: 'classId', as: 'entries' });
 EntryPhoto.belongsTo(Entry, { foreignKey: 'entryId', as: 'entry' });
 Entry.hasMany(EntryPhoto, { foreignKey: 'entryId', as: 'photos' });
 
+DuesPeriod.belongsTo(Society, { foreignKey: 'societyId', as: 'society' });
+Payment.belongsTo(Society, { foreignKey: 'societyId', as: 'society' });
+Payment.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+Refund.belongsTo(Payment, { foreignKey: 'paymentId', as: 'payment' });
 Plant.belongsTo(User, { foreignKey: 'ownerId', as: 'owner' });
 Plant.belongsTo(Variety, { foreignKey: 'varietyId', as: 'variety' });
 Plant.belongsTo(Plant, { foreignKey: 'parentId', as: 'parent' });
@@ -84,10 +94,13 @@ Show.hasMany(Panel, { foreignKey: 'showId', as: 'panels' });
 export {
 	Account,
 	Division,
+	DuesPeriod,
 	Entry,
 	MailPreference,
 	EntryPhoto,
 	Membership,
+	Payment,
+	Refund,
 	Plant,
 	PlantEvent,
 	PlantPhoto,

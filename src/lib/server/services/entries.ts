@@ -13,6 +13,8 @@ import type { EntryRequest } from '$lib/schemas/entry';
 import { Entry, Show, ShowClass, Variety, sequelize } from '../db';
 import { classRulesOf } from './schedule';
 import { MEMBERSHIP_PAGE, isInGoodStanding } from './standing';
+import { initialFeeStatus } from '$lib/domain/dues';
+import { settleFeeOfWithdrawnEntry } from './refunds';
 
 /** Statuses that no longer count towards an exhibitor's limits. */
 export const INACTIVE_STATUSES = ['withdrawn', 'scratched'] as const;
@@ -205,7 +207,8 @@ export async function createEntry(
 			potSizeIn: null,
 			checkedInAt: null,
 			checkedInBy: null,
-			varietyId: resolved.variety.id
+			varietyId: resolved.variety.id,
+			feeStatus: initialFeeStatus(show.entryFeeCents)
 		},
 		{ transaction }
 	);
@@ -296,5 +299,8 @@ export async function withdrawEntry(
 	if (entry.status !== 'entered')
 		return 'Only an entry that is not yet checked in can be withdrawn.';
 	await entry.update({ status: 'withdrawn' }, { transaction });
+	// A fee not yet paid is no longer owed; a paid one is refunded where the show allows it
+	// (sent after the commit by sendRequestedRefunds).
+	await settleFeeOfWithdrawnEntry(entry.id, { transaction });
 	return null;
 }

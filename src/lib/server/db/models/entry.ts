@@ -8,6 +8,8 @@ import {
 	type Sequelize
 } from 'sequelize';
 
+export type EntryFeeStatus = 'not_required' | 'due' | 'paid' | 'refund_pending' | 'refunded';
+
 export type EntryStatus = 'entered' | 'checked_in' | 'scratched' | 'withdrawn';
 
 /** A plant (or collection, or design) entered by an exhibitor in a class; known to judges only by number. */
@@ -27,6 +29,8 @@ export class Entry extends Model<InferAttributes<Entry>, InferCreationAttributes
 	declare potSizeIn: string | null;
 	declare checkedInAt: Date | null;
 	declare checkedInBy: string | null;
+	declare feeStatus: CreationOptional<EntryFeeStatus>;
+	declare feePaymentId: CreationOptional<string | null>;
 	declare shownSizeClass: CreationOptional<
 		'miniature' | 'semiminiature' | 'standard' | 'large' | null
 	>;
@@ -52,6 +56,8 @@ export class Entry extends Model<InferAttributes<Entry>, InferCreationAttributes
 				potSizeIn: { type: DataTypes.DECIMAL(4, 2) },
 				checkedInAt: { type: DataTypes.DATE },
 				checkedInBy: { type: DataTypes.UUID },
+				feeStatus: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'not_required' },
+				feePaymentId: { type: DataTypes.UUID },
 				shownSizeClass: { type: DataTypes.STRING(16) },
 				deskNote: { type: DataTypes.STRING(240) },
 				createdAt: { type: DataTypes.DATE, defaultValue: DataTypes.NOW },

@@ -27,6 +27,8 @@ export class Show extends Model<InferAttributes<Show>, InferCreationAttributes<S
 	declare awardRules: CreationOptional<Record<string, unknown>>;
 	declare panelScoreMethod: CreationOptional<'mean' | 'consensus'>;
 	declare nextEntryNumber: CreationOptional<number>;
+	declare entryFeeCents: CreationOptional<number>;
+	declare entryFeeRefund: CreationOptional<'none' | 'until_entries_close' | 'until_entry_day'>;
 	declare schedulePublishedAt: Date | null;
 	declare resultsPublishedAt: Date | null;
 	declare createdAt: CreationOptional<Date>;
@@ -51,6 +53,8 @@ export class Show extends Model<InferAttributes<Show>, InferCreationAttributes<S
 				awardRules: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
 				panelScoreMethod: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'mean' },
 				nextEntryNumber: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
+				entryFeeCents: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+				entryFeeRefund: { type: DataTypes.STRING(24), allowNull: false, defaultValue: 'none' },
 				schedulePublishedAt: { type: DataTypes.DATE },
 				resultsPublishedAt: { type: DataTypes.DATE },
 				createdAt: { type: DataTypes.DATE, defaultValue: DataTypes.NOW },

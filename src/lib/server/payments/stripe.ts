@@ -1,0 +1,50 @@
+import Stripe from 'stripe';
+
+/** The local payment fake (scripts/payment-fake.js) that development uses when nothing is set. */
+const DEV_SECRET_KEY = 'sk_test_crownbench_development_only';
+const DEV_WEBHOOK_SECRET = 'whsec_crownbench_development_only';
+
+let client: Stripe | null = null;
+
+/** True when no real payment service is configured, so the local fake is used. */
+export function usesLocalFake(): boolean {
+	return !process.env.STRIPE_SECRET_KEY || Boolean(process.env.STRIPE_API_HOST);
+}
+
+/**
+ * The payment service client. STRIPE_SECRET_KEY selects the account; STRIPE_API_HOST, _PORT and
+ * _PROTOCOL point the SDK elsewhere (the local fake). Without a key, outside production, it talks
+ * to the local fake on 127.0.0.1:12111.
+ */
+export function stripe(): Stripe {
+	if (client) return client;
+	const key = process.env.STRIPE_SECRET_KEY;
+	if (!key && process.env.NODE_ENV === 'production' && !process.env.STRIPE_API_HOST) {
+		throw new Error('Payments are not set up: set STRIPE_SECRET_KEY.');
+	}
+	const fakeDefaults = !key;
+	const host = process.env.STRIPE_API_HOST || (fakeDefaults ? '127.0.0.1' : undefined);
+	const port = process.env.STRIPE_API_PORT || (fakeDefaults ? '12111' : undefined);
+	const protocol = (process.env.STRIPE_API_PROTOCOL || (fakeDefaults ? 'http' : undefined)) as
+		'http' | 'https' | undefined;
+	client = new Stripe(key || DEV_SECRET_KEY, {
+		...(host ? { host } : {}),
+		...(port ? { port } : {}),
+		...(protocol ? { protocol } : {}),
+		maxNetworkRetries: 2,
+		timeout: 15_000,
+		appInfo: { name: 'Crownbench' }
+	});
+	return client;
+}
+
+/** The secret that signs webhooks; null when payments are not set up in production. */
+export function webhookSecret(): string | null {
+	if (process.env.STRIPE_WEBHOOK_SECRET) return process.env.STRIPE_WEBHOOK_SECRET;
+	return process.env.NODE_ENV === 'production' ? null : DEV_WEBHOOK_SECRET;
+}
+
+/** Verifies a webhook's signature and returns the event; throws when it does not verify. */
+export function verifyWebhook(rawBody: string, signature: string, secret: string): Stripe.Event {
+	return stripe().webhooks.constructEvent(rawBody, signature, secret);
+}

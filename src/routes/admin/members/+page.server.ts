@@ -1,0 +1,91 @@
+import { fail } from '@sveltejs/kit';
+import { z } from 'zod';
+import { ROLE_LABELS, ROLES } from '$lib/roles';
+import { changeRolesSchema, inviteSchema, memberQuerySchema } from '$lib/schemas/members';
+import { sequelize } from '$lib/server/db';
+import { requireRole } from '$lib/server/policies';
+import {
+	MemberChangeError,
+	changeMemberRoles,
+	inviteMember,
+	listMembers
+} from '$lib/server/services/members';
+import { chooseSociety } from '$lib/server/society-choice';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	const user = requireRole(event, ['admin']);
+	const society = chooseSociety(user, ['admin'], event.url.searchParams.get('society'));
+	const params = Object.fromEntries(event.url.searchParams);
+	const parsed = memberQuerySchema.safeParse({
+		...params,
+		role: params.role || undefined,
+		standing: params.standing || undefined
+	});
+	const query = parsed.success ? parsed.data : memberQuerySchema.parse({});
+	return {
+		society,
+		query,
+		members: await listMembers(society.societyId, query),
+		roleOptions: ROLES.map((r) => ({ value: r, label: ROLE_LABELS[r] }))
+	};
+};
+
+export const actions: Actions = {
+	invite: async (event) => {
+		const form = await event.request.formData();
+		const parsed = inviteSchema.safeParse({
+			societyId: form.get('societyId'),
+			email: form.get('email'),
+			name: form.get('name') ?? '',
+			roles: form.getAll('roles')
+		});
+		const email = String(form.get('email') ?? '');
+		if (!parsed.success) {
+			const errors = z.flattenError(parsed.error).fieldErrors;
+			return fail(400, { invite: { message: 'Check the highlighted fields.', errors, email } });
+		}
+		const admin = requireRole(event, ['admin'], parsed.data.societyId);
+		try {
+			const invited = await sequelize.transaction((transaction) =>
+				inviteMember(
+					{ ...parsed.data, invitedBy: admin.name ?? admin.email, origin: event.url.origin },
+					{ transaction }
+				)
+			);
+			return { invite: { saved: `Invitation sent to ${invited.email}.` } };
+		} catch (err) {
+			if (!(err instanceof MemberChangeError)) throw err;
+			return fail(400, {
+				invite: { message: err.message, errors: { email: [err.message] }, email }
+			});
+		}
+	},
+
+	changeRoles: async (event) => {
+		const form = await event.request.formData();
+		const parsed = changeRolesSchema.safeParse({
+			societyId: form.get('societyId'),
+			userId: form.get('userId'),
+			roles: form.getAll('roles'),
+			confirm: form.get('confirm') ?? ''
+		});
+		if (!parsed.success) {
+			return fail(400, {
+				roles: { message: 'Choose roles from the list and try again.', saved: null }
+			});
+		}
+		requireRole(event, ['admin'], parsed.data.societyId);
+		try {
+			const result = await sequelize.transaction((transaction) =>
+				changeMemberRoles({ ...parsed.data, confirmed: parsed.data.confirm }, { transaction })
+			);
+			const label = (roles: typeof result.roles) =>
+				roles.map((r) => ROLE_LABELS[r]).join(', ') || 'no role';
+			return { roles: { saved: `Roles saved: ${label(result.roles)}.`, message: null } };
+		} catch (err) {
+			if (!(err instanceof MemberChangeError)) throw err;
+			return fail(400, { roles: { message: err.message, saved: null } });
+		}
+	}
+};

@@ -1,0 +1,29 @@
+import { json } from '@sveltejs/kit';
+import { z } from 'zod';
+import { memberQuerySchema } from '$lib/schemas/members';
+import { requireRole } from '$lib/server/policies';
+import { listMembers } from '$lib/server/services/members';
+import { chooseSociety } from '$lib/server/society-choice';
+import type { RequestHandler } from './$types';
+
+/**
+ * The admin's members table (?society=<slug>): sorted, filtered and paged in the database.
+ * 403 for a society the person is not an admin of; 400 with the problems for bad filters.
+ */
+export const GET: RequestHandler = async (event) => {
+	const user = requireRole(event, ['admin']);
+	const society = chooseSociety(user, ['admin'], event.url.searchParams.get('society'));
+	const params = Object.fromEntries(event.url.searchParams);
+	const parsed = memberQuerySchema.safeParse({
+		...params,
+		role: params.role || undefined,
+		standing: params.standing || undefined
+	});
+	if (!parsed.success) {
+		return json(
+			{ message: 'Check the filters.', errors: z.flattenError(parsed.error).fieldErrors },
+			{ status: 400 }
+		);
+	}
+	return json(await listMembers(society.societyId, parsed.data));
+};
