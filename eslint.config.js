@@ -31,7 +31,8 @@ export default ts.config(
 					allowDefaultProject: [
 						'playwright.config.ts',
 						'vitest.integration.config.ts',
-						'scripts/*.ts'
+						'scripts/*.ts',
+						'scripts/bench/*.ts'
 					]
 				},
 				extraFileExtensions: ['.svelte'],

@@ -1,21 +1,35 @@
 import { error, type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
-import { authHandle } from '$lib/server/auth';
+import { authHandle, SESSION_MAX_AGE_SECONDS, SESSION_UPDATE_AGE_SECONDS } from '$lib/server/auth';
+import { resultsPageCache } from '$lib/server/cache/results-page';
 import { sequelize } from '$lib/server/db';
 import { DATABASE_DOWN_MESSAGE, isDatabaseDown } from '$lib/server/db/connection';
 import { AREA_ROLES, areaOf, requireRole, requireUser } from '$lib/server/policies';
 import { startOutboxWorker } from '$lib/server/mail/outbox';
-import { loadSignedInUser } from '$lib/server/services/people';
+import { loadSessionUser, loadSignedInUser } from '$lib/server/services/people';
 import { startRefundSender } from '$lib/server/services/refunds';
 import { startReminderSchedule } from '$lib/server/services/reminders';
 import { todayIso } from '$lib/schemas/plants';
 
 const SESSION_COOKIES = ['authjs.session-token', '__Secure-authjs.session-token'];
 
-/** Fills locals.user from the database session; visitors without a session cookie cost nothing. */
+/**
+ * Fills locals.user from the database session; visitors without a session cookie cost nothing.
+ * A valid session that is not yet due for its rolling extension is read in one query; anything
+ * else (unknown, expired, due) goes through Auth.js, which extends or clears it.
+ */
 const userHandle: Handle = async ({ event, resolve }) => {
 	event.locals.user = null;
-	if (SESSION_COOKIES.some((name) => event.cookies.get(name))) {
+	const token = SESSION_COOKIES.map((name) => event.cookies.get(name)).find(Boolean);
+	if (token) {
+		const found = await loadSessionUser(token, {
+			maxAgeSeconds: SESSION_MAX_AGE_SECONDS,
+			updateAgeSeconds: SESSION_UPDATE_AGE_SECONDS
+		});
+		if (found && !found.due) {
+			event.locals.user = found.user;
+			return resolve(event);
+		}
 		const session = await event.locals.auth();
 		const id = session?.user?.id;
 		if (id) event.locals.user = await loadSignedInUser(id);
@@ -57,7 +71,14 @@ const headersHandle: Handle = async ({ event, resolve }) => {
 	return response;
 };
 
-export const handle = sequence(headersHandle, authHandle, userHandle, guardHandle);
+export const handle = sequence(
+	headersHandle,
+	// Anonymous visitors of published results get the page's current copy (see the module).
+	resultsPageCache(SESSION_COOKIES),
+	authHandle,
+	userHandle,
+	guardHandle
+);
 
 /** Unexpected errors: a plain message, and the command to run when the database is down. */
 export const handleError: HandleServerError = ({ error: err, status }) => {

@@ -143,8 +143,8 @@ export async function buildFixture(
 	const otherEntry = randomUUID();
 	await run(
 		`INSERT INTO entries (id, show_id, class_id, exhibitor_id, title, number, status)
-		 VALUES (:id, :showId, :classId, :ex, 'Household plant', 100, 'checked_in')`,
-		{ id: otherEntry, showId, classId: otherClassId, ex: exhibitors[2].id }
+		 VALUES (:id, :showId, :classId, :ex, 'Household plant', :number, 'checked_in')`,
+		{ id: otherEntry, showId, classId: otherClassId, ex: exhibitors[2].id, number: count + 100 }
 	);
 	const panelId = randomUUID();
 	await run(

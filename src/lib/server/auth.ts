@@ -8,6 +8,10 @@ import { mailFrom, sendMail, smtpUrl } from './mail/transport';
 /** How long a sign-in link works. */
 export const SIGN_IN_LINK_MINUTES = 30;
 
+/** How long a session lasts, and how often Auth.js pushes its end further out (rolling). */
+export const SESSION_MAX_AGE_SECONDS = 30 * 24 * 60 * 60;
+export const SESSION_UPDATE_AGE_SECONDS = 24 * 60 * 60;
+
 function authSecret(): string | undefined {
 	if (process.env.AUTH_SECRET) return process.env.AUTH_SECRET;
 	// Development only: production refuses to start without AUTH_SECRET (Auth.js checks).
@@ -41,7 +45,11 @@ export const {
 			}
 		})
 	],
-	session: { strategy: 'database', maxAge: 30 * 24 * 60 * 60, updateAge: 24 * 60 * 60 },
+	session: {
+		strategy: 'database',
+		maxAge: SESSION_MAX_AGE_SECONDS,
+		updateAge: SESSION_UPDATE_AGE_SECONDS
+	},
 	secret: authSecret(),
 	trustHost: true,
 	pages: { signIn: '/signin', verifyRequest: '/signin/check-mail', error: '/signin/problem' },

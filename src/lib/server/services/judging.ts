@@ -183,7 +183,27 @@ function sheetKindFor(access: Access): 'judge' | 'consensus' | null {
 	return access.role === 'judge' ? 'judge' : null;
 }
 
-function toView(scale: ScaleOfPoints, sheet: ScoreSheet, viewerId: string): SheetView {
+/** The fields of a stored sheet that a view needs (a ScoreSheet model or a raw row). */
+type SheetRecord = Pick<
+	ScoreSheet,
+	| 'id'
+	| 'entryId'
+	| 'kind'
+	| 'deductions'
+	| 'comment'
+	| 'notJudgedReason'
+	| 'notJudgedNote'
+	| 'judgesChoiceRank'
+	| 'version'
+	| 'updatedBy'
+>;
+
+/** The columns of a sheet, named as SheetRecord names them. */
+const SHEET_COLUMNS = `id, entry_id AS "entryId", kind, deductions, comment,
+	not_judged_reason AS "notJudgedReason", not_judged_note AS "notJudgedNote",
+	judges_choice_rank AS "judgesChoiceRank", version, updated_by AS "updatedBy"`;
+
+function toView(scale: ScaleOfPoints, sheet: SheetRecord, viewerId: string): SheetView {
 	const deductions = sheet.deductions ?? {};
 	const notJudged = sheet.notJudgedReason
 		? { reason: sheet.notJudgedReason, note: sheet.notJudgedNote ?? '' }
@@ -382,23 +402,30 @@ function auditState(view: SheetView | null) {
  * - a change id seen before is answered with the stored answer and applied no second time;
  * - the change must be made on the sheet's current version, else 409 with the current sheet;
  * - the new version is stored with an audit row (who, when, before, after).
- * Writes to one entry's sheets are serialised by locking the entry row.
+ * Writes to one entry's sheets are serialised by locking the entry row (FOR NO KEY UPDATE: it
+ * does not block the foreign-key checks of publishing, which inserts awards naming the entry
+ * while holding the show; a plain FOR UPDATE here deadlocked a save against a publish).
  */
 export async function saveSheet(
 	actor: { id: string; email: string },
 	change: SheetChange
 ): Promise<SaveResult> {
 	return sequelize.transaction(async (transaction) => {
-		const [entry] = await sequelize.query<{ id: string; show_id: string; class_id: string }>(
-			`SELECT e.id, e.show_id, e.class_id FROM entries e WHERE e.id = :entryId AND ${ACTIVE} FOR UPDATE`,
+		// One statement locks the entry (serialising its sheets) and shares the show's row.
+		const [entry] = await sequelize.query<{
+			id: string;
+			show_id: string;
+			class_id: string;
+			published: Date | null;
+		}>(
+			`SELECT e.id, e.show_id, e.class_id, s.results_published_at AS published
+			   FROM entries e JOIN shows s ON s.id = e.show_id
+			  WHERE e.id = :entryId AND ${ACTIVE}
+			    FOR NO KEY UPDATE OF e FOR SHARE OF s`,
 			{ replacements: { entryId: change.entryId }, type: QueryTypes.SELECT, transaction }
 		);
 		if (!entry) throw new Refusal('This entry is not in your classes.', 403);
-		const [show] = await sequelize.query<{ published: Date | null }>(
-			'SELECT results_published_at AS published FROM shows WHERE id = :id FOR SHARE',
-			{ replacements: { id: entry.show_id }, type: QueryTypes.SELECT, transaction }
-		);
-		if (show.published) {
+		if (entry.published) {
 			throw new Refusal('Results are published: scores are locked and cannot change.', 423);
 		}
 		const access = await requireClassAccess(actor.id, entry.class_id, transaction);
@@ -427,13 +454,17 @@ export async function saveSheet(
 		}
 		const deductions = change.deductions as Record<string, number>;
 
-		const current = await ScoreSheet.findOne({
-			where:
-				kind === 'judge'
-					? { entryId: entry.id, kind, judgeId: actor.id }
-					: { entryId: entry.id, kind },
-			transaction
-		});
+		const [current] = await sequelize.query<SheetRecord>(
+			kind === 'judge'
+				? `SELECT ${SHEET_COLUMNS} FROM score_sheets
+				    WHERE entry_id = :entryId AND kind = 'judge' AND judge_id = :judgeId`
+				: `SELECT ${SHEET_COLUMNS} FROM score_sheets WHERE entry_id = :entryId AND kind = 'consensus'`,
+			{
+				replacements: { entryId: entry.id, judgeId: actor.id },
+				type: QueryTypes.SELECT,
+				transaction
+			}
+		);
 		const before = current
 			? toView(access.scale, current, actor.id)
 			: blankSheet(access.scale, entry.id, kind);
@@ -447,34 +478,45 @@ export async function saveSheet(
 		}
 
 		let result: SaveResult;
+		let sheetId: string;
 		if (current && sameState(before, change)) {
 			result = { status: 'unchanged', sheet: before };
+			sheetId = current.id;
 		} else {
 			const values = {
-				deductions,
+				deductions: JSON.stringify(deductions),
 				comment: change.comment,
-				notJudgedReason: change.notJudged?.reason ?? null,
-				notJudgedNote: change.notJudged ? change.notJudged.note || null : null,
-				judgesChoiceRank: change.judgesChoiceRank,
-				updatedBy: actor.id
+				reason: change.notJudged?.reason ?? null,
+				note: change.notJudged ? change.notJudged.note || null : null,
+				rank: change.judgesChoiceRank,
+				actorId: actor.id
 			};
-			let sheet: ScoreSheet;
-			if (current) {
-				current.set({ ...values, version: current.version + 1 });
-				sheet = await current.save({ transaction });
-			} else {
-				sheet = await ScoreSheet.create(
-					{
+			const [sheet] = await sequelize.query<SheetRecord>(
+				current
+					? `UPDATE score_sheets
+					      SET deductions = CAST(:deductions AS jsonb), comment = :comment,
+					          not_judged_reason = :reason, not_judged_note = :note, judges_choice_rank = :rank,
+					          updated_by = :actorId, version = version + 1, updated_at = now()
+					    WHERE id = :id RETURNING ${SHEET_COLUMNS}`
+					: `INSERT INTO score_sheets (show_id, entry_id, kind, judge_id, deductions, comment,
+					          not_judged_reason, not_judged_note, judges_choice_rank, updated_by, version)
+					   VALUES (:showId, :entryId, :kind, :judgeId, CAST(:deductions AS jsonb), :comment,
+					          :reason, :note, :rank, :actorId, 1)
+					   RETURNING ${SHEET_COLUMNS}`,
+				{
+					replacements: {
 						...values,
+						id: current?.id ?? null,
 						showId: entry.show_id,
 						entryId: entry.id,
 						kind,
-						judgeId: kind === 'judge' ? actor.id : null,
-						version: 1
+						judgeId: kind === 'judge' ? actor.id : null
 					},
-					{ transaction }
-				);
-			}
+					type: QueryTypes.SELECT,
+					transaction
+				}
+			);
+			sheetId = sheet.id;
 			const after = toView(access.scale, sheet, actor.id);
 			await sequelize.query(
 				`INSERT INTO score_audit (show_id, sheet_id, entry_id, actor_id, actor_email, change_id, before, after)
@@ -497,15 +539,12 @@ export async function saveSheet(
 		}
 		await sequelize.query(
 			`INSERT INTO applied_changes (change_id, user_id, sheet_id, response)
-			 VALUES (:changeId, :userId, (SELECT id FROM score_sheets WHERE entry_id = :entryId AND kind = :kind
-			   AND judge_id IS NOT DISTINCT FROM CAST(:judgeId AS uuid)), :response)`,
+			 VALUES (:changeId, :userId, :sheetId, :response)`,
 			{
 				replacements: {
 					changeId: change.changeId,
 					userId: actor.id,
-					entryId: entry.id,
-					kind,
-					judgeId: kind === 'judge' ? actor.id : null,
+					sheetId,
 					response: JSON.stringify(result.sheet)
 				},
 				transaction

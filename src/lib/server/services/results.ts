@@ -404,33 +404,40 @@ export async function publishResults(
 		replacements: { showId },
 		transaction
 	});
-	let position = 0;
-	for (const a of result.awards) {
+	// All awards in one statement (a convention show gives about as many awards as entries).
+	if (result.awards.length > 0) {
 		await sequelize.query(
 			`INSERT INTO awards (show_id, kind, entry_id, exhibitor_id, class_id, division_id, top_award_id,
 			                     top_award_name, level, score, reason, position)
-			 VALUES (:showId, :kind, :entryId, :exhibitorId, :classId, :divisionId, :topAwardId,
-			         :topAwardName, :level, :score, :reason, :position)`,
+			 SELECT :showId, r.kind, r.entry_id, r.exhibitor_id, r.class_id, r.division_id, r.top_award_id,
+			        r.top_award_name, r.level, r.score, r.reason, r.position
+			   FROM jsonb_to_recordset(CAST(:rows AS jsonb)) AS r(kind varchar, entry_id uuid,
+			        exhibitor_id uuid, class_id uuid, division_id uuid, top_award_id varchar,
+			        top_award_name varchar, level varchar, score numeric, reason text, position int)`,
 			{
 				replacements: {
 					showId,
-					kind: a.kind,
-					entryId: a.entryId ?? null,
-					exhibitorId: a.exhibitorId ?? null,
-					classId: a.classId ?? null,
-					divisionId: a.divisionId ?? null,
-					topAwardId: a.topAwardId ?? null,
-					topAwardName: a.topAwardId ? (topName.get(a.topAwardId) ?? null) : null,
-					level: a.level ?? null,
-					score: a.score ?? null,
-					reason: a.reason,
-					position: position++
+					rows: JSON.stringify(
+						result.awards.map((a, position) => ({
+							kind: a.kind,
+							entry_id: a.entryId ?? null,
+							exhibitor_id: a.exhibitorId ?? null,
+							class_id: a.classId ?? null,
+							division_id: a.divisionId ?? null,
+							top_award_id: a.topAwardId ?? null,
+							top_award_name: a.topAwardId ? (topName.get(a.topAwardId) ?? null) : null,
+							level: a.level ?? null,
+							score: a.score ?? null,
+							reason: a.reason,
+							position
+						}))
+					)
 				},
 				transaction
 			}
 		);
 	}
-	position = 0;
+	let position = 0;
 	for (const t of result.ties) {
 		await sequelize.query(
 			`INSERT INTO award_ties (show_id, kind, class_id, division_id, top_award_id, levels, entry_ids,

@@ -1,0 +1,392 @@
+/**
+ * The benchmark's bare baseline: node:http and pg, nothing else. It answers the same requests the
+ * benchmark sends to the app with the same PostgreSQL queries the app runs, and returns the same
+ * JSON, so the app's figures can be read as a ratio of this bare limit.
+ *   PUT /api/judging/sheets          session cookie, the judge's memberships, then the app's save
+ *                                    transaction (lock entry, show, access, replay, sheet, update,
+ *                                    audit row, applied change)
+ *   GET /shows/<slug>/results        the public results of a published show (the app's queries)
+ * DATABASE_URL, PORT (4891) and DB_POOL_MAX (10, as the app) set it up; it listens on 127.0.0.1.
+ */
+import http from 'node:http';
+import pg from 'pg';
+
+const pool = new pg.Pool({
+	connectionString: process.env.DATABASE_URL,
+	max: Number(process.env.DB_POOL_MAX ?? 10)
+});
+const port = Number(process.env.PORT ?? 4891);
+const ACTIVE = `e.status NOT IN ('withdrawn', 'scratched')`;
+const DEFAULT_CRITERIA = [
+	{ key: 'symmetry', maxPoints: 25 },
+	{ key: 'condition', maxPoints: 25 },
+	{ key: 'quantity_of_bloom', maxPoints: 25 },
+	{ key: 'size_and_type_of_blossom', maxPoints: 15 },
+	{ key: 'color_of_blossom', maxPoints: 10 }
+];
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+class Refusal extends Error {
+	/** @param {string} message @param {number} status @param {unknown} [details] */
+	constructor(message, status, details) {
+		super(message);
+		this.status = status;
+		this.details = details;
+	}
+}
+
+/** @param {http.ServerResponse} res @param {number} status @param {unknown} body */
+function send(res, status, body) {
+	const text = JSON.stringify(body);
+	res.writeHead(status, {
+		'content-type': 'application/json',
+		'content-length': Buffer.byteLength(text)
+	});
+	res.end(text);
+}
+
+/** @param {http.IncomingMessage} req */
+function readBody(req) {
+	return new Promise((resolve, reject) => {
+		/** @type {Buffer[]} */
+		const chunks = [];
+		req.on('data', (c) => chunks.push(c));
+		req.on('end', () => resolve(Buffer.concat(chunks).toString('utf8')));
+		req.on('error', reject);
+	});
+}
+
+/** The signed-in person from the session cookie: one query, as the app's hook runs it. */
+async function signedInUser(/** @type {http.IncomingMessage} */ req) {
+	const cookie = req.headers.cookie ?? '';
+	const token = /(?:^|;\s*)authjs\.session-token=([^;]+)/.exec(cookie)?.[1];
+	if (!token) return null;
+	const { rows } = await pool.query(
+		`SELECT s.expires, u.id, u.email, u.name, m.roles,
+		        so.id AS society_id, so.slug AS society_slug, so.name AS society_name
+		   FROM sessions s
+		   JOIN users u ON u.id = s.user_id
+		   LEFT JOIN memberships m ON m.user_id = u.id
+		   LEFT JOIN societies so ON so.id = m.society_id
+		  WHERE s.session_token = $1 AND s.expires > now()`,
+		[token]
+	);
+	if (rows.length === 0) return null;
+	return { id: rows[0].id, email: rows[0].email, roles: rows.flatMap((r) => r.roles ?? []) };
+}
+
+function scaleOf(/** @type {unknown} */ criteria) {
+	return Array.isArray(criteria) ? criteria : DEFAULT_CRITERIA;
+}
+
+/** The sheet as the app answers it (SheetView). */
+function view(/** @type {any[]} */ criteria, /** @type {any} */ s, /** @type {string} */ viewer) {
+	const deductions = s.deductions ?? {};
+	let total = 0;
+	for (const c of criteria) total += c.maxPoints - (deductions[c.key] ?? 0);
+	return {
+		entryId: s.entry_id,
+		kind: s.kind,
+		version: s.version,
+		deductions,
+		comment: s.comment,
+		notJudged: s.not_judged_reason
+			? { reason: s.not_judged_reason, note: s.not_judged_note ?? '' }
+			: null,
+		judgesChoiceRank: s.judges_choice_rank,
+		total,
+		complete:
+			s.not_judged_reason !== null || criteria.every((c) => typeof deductions[c.key] === 'number'),
+		changedByOther: s.updated_by !== null && s.updated_by !== viewer
+	};
+}
+
+/** The same checks as the app's schema and scale validation, in short. */
+function validChange(/** @type {any} */ c) {
+	return (
+		c &&
+		UUID.test(c.changeId ?? '') &&
+		UUID.test(c.entryId ?? '') &&
+		Number.isInteger(c.baseVersion) &&
+		c.baseVersion >= 0 &&
+		c.deductions &&
+		typeof c.deductions === 'object'
+	);
+}
+
+/** The app's save transaction, statement for statement. */
+async function saveSheet(/** @type {{id: string, email: string}} */ actor, /** @type {any} */ c) {
+	const db = await pool.connect();
+	try {
+		await db.query('START TRANSACTION');
+		const { rows: entries } = await db.query(
+			`SELECT e.id, e.show_id, e.class_id, s.results_published_at AS published
+			   FROM entries e JOIN shows s ON s.id = e.show_id
+			  WHERE e.id = $1 AND ${ACTIVE}
+			    FOR NO KEY UPDATE OF e FOR SHARE OF s`,
+			[c.entryId]
+		);
+		const entry = entries[0];
+		if (!entry) throw new Refusal('This entry is not in your classes.', 403);
+		if (entry.published) throw new Refusal('Results are published.', 423);
+		const { rows: access } = await db.query(
+			`SELECT s.id AS show_id, s.name AS show_name, s.society_id, s.panel_score_method AS method,
+			        s.results_published_at AS published, p.id AS panel_id, p.name AS panel_name,
+			        EXISTS (SELECT 1 FROM panel_judges pj WHERE pj.panel_id = p.id AND pj.user_id = $1) AS is_judge,
+			        p.clerk_id IS NOT DISTINCT FROM CAST($1 AS uuid) AS is_clerk,
+			        c.code, c.name, d.code || ' ' || d.name AS division,
+			        sc.id AS scale_id, sc.name AS scale_name, sc.criteria,
+			        EXISTS (
+			          SELECT 1 FROM entries e
+			            LEFT JOIN memberships me ON me.user_id = e.exhibitor_id AND me.society_id = s.society_id
+			            LEFT JOIN memberships mj ON mj.user_id = $1 AND mj.society_id = s.society_id
+			           WHERE e.class_id = c.id AND ${ACTIVE}
+			             AND (e.exhibitor_id = $1
+			                  OR (coalesce(trim(mj.household), '') <> ''
+			                      AND lower(trim(me.household)) = lower(trim(mj.household))))
+			        ) AS conflict
+			   FROM panel_classes pc
+			   JOIN panels p ON p.id = pc.panel_id
+			   JOIN classes c ON c.id = pc.class_id
+			   JOIN divisions d ON d.id = c.division_id
+			   JOIN shows s ON s.id = p.show_id
+			   LEFT JOIN scales sc ON sc.id = c.scale_id
+			  WHERE pc.class_id = $2`,
+			[actor.id, entry.class_id]
+		);
+		const a = access[0];
+		if (!a || (!a.is_judge && !a.is_clerk) || a.conflict) {
+			throw new Refusal('This entry is not in your classes.', 403);
+		}
+		// The benchmark's show scores each judge's own sheet (mean of the panel).
+		if (a.method !== 'mean' || !a.is_judge) throw new Refusal('Judges of mean panels only.', 403);
+		const criteria = scaleOf(a.criteria);
+		const { rows: applied } = await db.query(
+			'SELECT user_id, response FROM applied_changes WHERE change_id = $1',
+			[c.changeId]
+		);
+		if (applied[0]) {
+			await db.query('COMMIT');
+			return { status: 'replayed', sheet: applied[0].response };
+		}
+		for (const [key, value] of Object.entries(c.deductions)) {
+			const criterion = criteria.find((k) => k.key === key);
+			if (!criterion || typeof value !== 'number' || value < 0 || value > criterion.maxPoints) {
+				throw new Refusal(`Deduction ${key} is not allowed.`, 400);
+			}
+		}
+		const { rows: current } = await db.query(
+			`SELECT id, entry_id, kind, deductions, comment, not_judged_reason, not_judged_note,
+			        judges_choice_rank, version, updated_by
+			   FROM score_sheets WHERE entry_id = $1 AND kind = 'judge' AND judge_id = $2`,
+			[entry.id, actor.id]
+		);
+		const sheet = current[0];
+		const before = sheet ? view(criteria, sheet, actor.id) : null;
+		const version = before?.version ?? 0;
+		if (c.baseVersion !== version) {
+			throw new Refusal('This sheet was changed meanwhile.', 409, before);
+		}
+		if (!sheet) throw new Refusal('The baseline only updates existing sheets.', 400);
+		const { rows: updated } = await db.query(
+			`UPDATE score_sheets
+			    SET deductions = $1, comment = $2, not_judged_reason = $3, not_judged_note = $4,
+			        judges_choice_rank = $5, updated_by = $6, version = version + 1, updated_at = now()
+			  WHERE id = $7
+			  RETURNING id, entry_id, kind, deductions, comment, not_judged_reason, not_judged_note,
+			            judges_choice_rank, version, updated_by`,
+			[
+				JSON.stringify(c.deductions),
+				c.comment ?? '',
+				c.notJudged?.reason ?? null,
+				c.notJudged?.note || null,
+				c.judgesChoiceRank ?? null,
+				actor.id,
+				sheet.id
+			]
+		);
+		const after = view(criteria, updated[0], actor.id);
+		const audit = (/** @type {any} */ v) => ({
+			version: v.version,
+			deductions: v.deductions,
+			total: v.total,
+			comment: v.comment,
+			notJudged: v.notJudged,
+			judgesChoiceRank: v.judgesChoiceRank
+		});
+		await db.query(
+			`INSERT INTO score_audit (show_id, sheet_id, entry_id, actor_id, actor_email, change_id, before, after)
+			 VALUES ($1, $2, $3, $4, $5, $6, $7, $8)`,
+			[
+				entry.show_id,
+				sheet.id,
+				entry.id,
+				actor.id,
+				actor.email,
+				c.changeId,
+				JSON.stringify(audit(before)),
+				JSON.stringify(audit(after))
+			]
+		);
+		await db.query(
+			`INSERT INTO applied_changes (change_id, user_id, sheet_id, response)
+			 VALUES ($1, $2, $3, $4)`,
+			[c.changeId, actor.id, sheet.id, JSON.stringify(after)]
+		);
+		await db.query('COMMIT');
+		return { status: 'saved', sheet: after };
+	} catch (err) {
+		await db.query('ROLLBACK').catch(() => {});
+		throw err;
+	} finally {
+		db.release();
+	}
+}
+
+/** @type {Map<string, (req: http.IncomingMessage, res: http.ServerResponse, match: RegExpExecArray) => Promise<void>>} */
+const routes = new Map();
+
+routes.set('PUT /api/judging/sheets', async (req, res) => {
+	const user = await signedInUser(req);
+	if (!user) return send(res, 401, { message: 'Sign in first.' });
+	if (!user.roles.includes('judge') && !user.roles.includes('clerk')) {
+		return send(res, 403, { message: 'Judges and clerks only.' });
+	}
+	let change;
+	try {
+		change = JSON.parse(await readBody(req));
+	} catch {
+		return send(res, 400, { message: 'Send the change as JSON.' });
+	}
+	if (!validChange(change)) return send(res, 400, { message: 'Bad change.' });
+	try {
+		send(res, 200, await saveSheet(user, change));
+	} catch (err) {
+		if (!(err instanceof Refusal)) throw err;
+		send(res, err.status, { message: err.message, current: err.details });
+	}
+});
+
+/**
+ * The public results of a published show: the queries the app's results loader runs when its
+ * cache is cold (show by address; classes, judges, entries and sheets; divisions, plants and
+ * comments, awards, ties), on every request, grouped into division, class and entry as JSON.
+ */
+routes.set('GET /shows/:slug/results', async (_req, res, match) => {
+	const { rows: shows } = await pool.query(
+		`SELECT s.id, s.society_id, s.slug, s.name, so.name AS society_name, s.venue, s.judging_day,
+		        s.schedule_published_at, s.results_published_at
+		   FROM shows s JOIN societies so ON so.id = s.society_id WHERE s.slug = $1`,
+		[match[1]]
+	);
+	const show = shows[0];
+	if (!show || !show.results_published_at) return send(res, 404, { message: 'Not found' });
+	const q = (/** @type {string} */ sql) => pool.query(sql, [show.id]).then((r) => r.rows);
+	const [rules, classes, judges, entries, sheets, divisions, extras, awards, ties] =
+		await Promise.all([
+			q(`SELECT id, name, slug, panel_score_method AS method, award_rules, results_published_at AS published
+			     FROM shows WHERE id = $1`),
+			q(`SELECT c.id, c.code, c.name, d.id AS division_id, d.code || ' ' || d.name AS division,
+			          p.id AS panel_id, p.name AS panel_name, sc.id AS scale_id, sc.name AS scale_name, sc.criteria
+			     FROM classes c JOIN divisions d ON d.id = c.division_id
+			     LEFT JOIN panel_classes pc ON pc.class_id = c.id
+			     LEFT JOIN panels p ON p.id = pc.panel_id
+			     LEFT JOIN scales sc ON sc.id = c.scale_id
+			    WHERE c.show_id = $1 ORDER BY d.position, c.position`),
+			q(`SELECT pj.panel_id, pj.user_id FROM panel_judges pj JOIN panels p ON p.id = pj.panel_id
+			    WHERE p.show_id = $1`),
+			q(`SELECT e.id, e.number, e.class_id, e.exhibitor_id, coalesce(u.name, u.email) AS exhibitor
+			     FROM entries e JOIN users u ON u.id = e.exhibitor_id
+			    WHERE e.show_id = $1 AND ${ACTIVE} ORDER BY e.number`),
+			q(`SELECT entry_id, judge_id, deductions, not_judged_reason, judges_choice_rank
+			     FROM score_sheets WHERE show_id = $1`),
+			q('SELECT id, code, name FROM divisions WHERE show_id = $1 ORDER BY position, code'),
+			q(`SELECT e.id, coalesce(v.name, e.title, '') AS plant, u.name AS exhibitor,
+			          coalesce(array_agg(ss.comment ORDER BY ss.created_at, ss.id)
+			                   FILTER (WHERE ss.comment <> '' AND ss.kind = (CASE WHEN sh.panel_score_method = 'consensus' THEN 'consensus' ELSE 'judge' END)),
+			                   '{}') AS comments
+			     FROM entries e
+			     JOIN shows sh ON sh.id = e.show_id
+			     JOIN users u ON u.id = e.exhibitor_id
+			     LEFT JOIN varieties v ON v.id = e.variety_id
+			     LEFT JOIN score_sheets ss ON ss.entry_id = e.id
+			    WHERE e.show_id = $1 AND ${ACTIVE}
+			    GROUP BY e.id, v.name, u.name`),
+			q(`SELECT kind, entry_id, exhibitor_id, class_id, division_id, top_award_id, top_award_name,
+			          level, score
+			     FROM awards WHERE show_id = $1 ORDER BY position`),
+			q('SELECT reason FROM award_ties WHERE show_id = $1 ORDER BY position')
+		]);
+	// The panel score: the mean of the judges' totals, as the app combines them.
+	const criteriaOf = new Map(classes.map((c) => [c.id, scaleOf(c.criteria)]));
+	/** @type {Map<string, any[]>} */
+	const sheetsOf = new Map();
+	for (const s of sheets) sheetsOf.set(s.entry_id, [...(sheetsOf.get(s.entry_id) ?? []), s]);
+	const extra = new Map(extras.map((x) => [x.id, x]));
+	/** @type {Map<string, any[]>} */
+	const awardsOf = new Map();
+	for (const a of awards) {
+		if (a.entry_id) awardsOf.set(a.entry_id, [...(awardsOf.get(a.entry_id) ?? []), a]);
+	}
+	/** @type {Map<string, any[]>} */
+	const entriesOf = new Map();
+	for (const e of entries) {
+		const criteria = criteriaOf.get(e.class_id) ?? DEFAULT_CRITERIA;
+		const mine = sheetsOf.get(e.id) ?? [];
+		const sum = mine.reduce(
+			(n, s) => n + criteria.reduce((t, c) => t + c.maxPoints - (s.deductions[c.key] ?? 0), 0),
+			0
+		);
+		const x = extra.get(e.id);
+		const list = entriesOf.get(e.class_id) ?? [];
+		list.push({
+			number: e.number,
+			plant: x?.plant ?? '',
+			exhibitor: x?.exhibitor ?? e.exhibitor,
+			score: mine.length ? Math.round((sum / mine.length) * 10) / 10 : null,
+			awards: (awardsOf.get(e.id) ?? []).map((a) => a.level ?? a.kind),
+			comments: x?.comments ?? []
+		});
+		entriesOf.set(e.class_id, list);
+	}
+	send(res, 200, {
+		show: {
+			slug: show.slug,
+			name: show.name,
+			societyName: show.society_name,
+			rules: rules[0].award_rules
+		},
+		judges: judges.length,
+		divisions: divisions.map((d) => ({
+			code: d.code,
+			name: d.name,
+			classes: classes
+				.filter((c) => c.division_id === d.id)
+				.map((c) => ({ code: c.code, name: c.name, entries: entriesOf.get(c.id) ?? [] }))
+		})),
+		topAwards: awards.filter((a) => !a.entry_id || a.kind === 'top_award'),
+		undecided: ties.map((t) => t.reason)
+	});
+});
+
+const server = http.createServer((req, res) => {
+	const url = new URL(req.url ?? '/', 'http://127.0.0.1');
+	const results = /^\/shows\/([a-z0-9-]+)\/results$/.exec(url.pathname);
+	const key = results ? `${req.method} /shows/:slug/results` : `${req.method} ${url.pathname}`;
+	const route = routes.get(key);
+	/** @type {Promise<void>} */
+	let done;
+	if (route) done = route(req, res, results ?? /** @type {RegExpExecArray} */ (/./.exec('.')));
+	else if (req.method === 'GET' && url.pathname === '/health') {
+		done = Promise.resolve(send(res, 200, { ok: true }));
+	} else done = Promise.resolve(send(res, 404, { message: 'Not found' }));
+	done.catch((err) => {
+		console.error(err);
+		if (!res.headersSent) send(res, 500, { message: 'Something went wrong.' });
+	});
+});
+
+server.listen(port, '127.0.0.1', () => console.log(`baseline on http://127.0.0.1:${port}`));
+const stop = () => server.close(() => void pool.end().then(() => process.exit(0)));
+process.on('SIGTERM', stop);
+process.on('SIGINT', stop);

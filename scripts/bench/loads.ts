@@ -1,0 +1,276 @@
+/**
+ * The benchmark's loads, driven by autocannon on loopback and bounded in time, and the size of a
+ * page's JavaScript and CSS as shipped (gzip).
+ * - saves: each connection is one of the show's judges saving their own sheets through
+ *   PUT /api/judging/sheets with their session cookie; every request is a fresh change (new change
+ *   id, the sheet's current version, other deductions and comment), so every save is real.
+ * - results: visitors reading the public results page of the published show.
+ */
+import { randomUUID } from 'node:crypto';
+import http from 'node:http';
+import { createRequire } from 'node:module';
+import { gzipSync } from 'node:zlib';
+import pg from 'pg';
+import { CRITERIA, type BenchShow } from './generate';
+
+/** The parts of autocannon (CommonJS, no types shipped) the benchmark uses. */
+interface Request {
+	method?: string;
+	path?: string;
+	headers?: Record<string, string>;
+	body?: string;
+	setupRequest?: (req: Request, context: Context) => Request;
+	onResponse?: (status: number, body: string, context: Context) => void;
+}
+/** autocannon's result without aggregation: the latencies come as an encoded histogram. */
+interface Result {
+	latencies: string;
+	totalCompletedRequests: number;
+	duration: number;
+	non2xx: number;
+	errors: number;
+	timeouts: number;
+}
+type Autocannon = (options: object, done: (err: Error | null, result: Result) => void) => void;
+interface Histogram {
+	add(other: Histogram): void;
+	getValueAtPercentile(p: number): number;
+	maxValue: number;
+	totalCount: number;
+}
+
+const requireHere = createRequire(import.meta.url);
+const autocannon = requireHere('autocannon') as Autocannon;
+// autocannon's own histogram helpers, so the percentiles come from the latencies it recorded.
+const { decodeHist } = requireHere('autocannon/lib/histUtil.js') as {
+	decodeHist(encoded: string): Histogram;
+};
+
+/** The current version of every judge's sheet, keyed judge:entry. */
+async function sheetVersions(dbUrl: string): Promise<Map<string, number>> {
+	const client = new pg.Client({ connectionString: dbUrl });
+	await client.connect();
+	try {
+		const { rows } = await client.query<{ judge_id: string; entry_id: string; version: number }>(
+			`SELECT judge_id, entry_id, version FROM score_sheets WHERE kind = 'judge'`
+		);
+		return new Map(rows.map((r) => [`${r.judge_id}:${r.entry_id}`, r.version]));
+	} finally {
+		await client.end();
+	}
+}
+
+interface Context {
+	key?: string;
+}
+
+/** Counts saves across every load of the run, so no two changes of a run are the same. */
+let n = 0;
+
+/** The requests of one load: a function that makes each request fresh. */
+async function requestsFor(
+	kind: 'saves' | 'results',
+	show: BenchShow,
+	dbUrl: string,
+	counter: { saved: number }
+): Promise<Request[]> {
+	if (kind === 'results') return [{ method: 'GET', path: `/shows/${show.slug}/results` }];
+	const versions = await sheetVersions(dbUrl);
+	const position = show.judges.map(() => 0);
+	return [
+		{
+			method: 'PUT',
+			path: '/api/judging/sheets',
+			setupRequest: (req: Request, context: Context) => {
+				const j = n % show.judges.length;
+				const judge = show.judges[j];
+				const entryId = judge.entryIds[position[j]++ % judge.entryIds.length];
+				const key = `${judge.id}:${entryId}`;
+				context.key = key;
+				const deductions: Record<string, number> = {};
+				CRITERIA.forEach((c, i) => (deductions[c.key] = ((n + i) % 8) / 2));
+				n++;
+				return {
+					...req,
+					headers: {
+						'content-type': 'application/json',
+						cookie: `authjs.session-token=${judge.sessionToken}`
+					},
+					body: JSON.stringify({
+						changeId: randomUUID(),
+						entryId,
+						baseVersion: versions.get(key) ?? 0,
+						deductions,
+						comment: `Benchmark round ${n}`,
+						notJudged: null,
+						judgesChoiceRank: null
+					})
+				};
+			},
+			onResponse: (status: number, body: string, context: Context) => {
+				if (status !== 200 || !context.key) return;
+				const answer = JSON.parse(body) as { status: string; sheet: { version: number } };
+				versions.set(context.key, answer.sheet.version);
+				if (answer.status === 'saved') counter.saved++;
+			}
+		}
+	];
+}
+
+function once(options: object): Promise<Result> {
+	return new Promise((resolve, reject) => {
+		autocannon({ ...options, skipAggregateResult: true }, (err, result) =>
+			err ? reject(err) : resolve(result)
+		);
+	});
+}
+
+/** Lets requests still in flight when a load stops land before the next load begins. */
+export const settle = () => new Promise((r) => setTimeout(r, 1500));
+
+/**
+ * The same load against several servers, taken in turns so that a noisy machine weighs on each
+ * alike: 2 s of warm-up each (not counted), then `rounds` turns of `seconds / rounds` each.
+ * Latency percentiles come from every measured request of a server, across its turns.
+ */
+export async function compareLoads(input: {
+	kind: 'saves' | 'results';
+	targets: { name: string; url: string }[];
+	show: BenchShow;
+	seconds: number;
+	rounds: number;
+	connections: number;
+	dbUrl: string;
+}): Promise<Record<string, LoadFigures>> {
+	const { kind, targets, show, seconds, rounds, connections, dbUrl } = input;
+	const options = (url: string) => ({ url, connections, pipelining: 1, timeout: 10 });
+	for (const t of targets) {
+		// The first visitor after publishing fills the app's results cache; the load reads after.
+		if (kind === 'results')
+			await fetch(`${t.url}/shows/${show.slug}/results`).then((r) => r.text());
+		const requests = await requestsFor(kind, show, dbUrl, { saved: 0 });
+		await once({ ...options(t.url), duration: 2, requests });
+		await settle();
+	}
+	const totals = new Map(
+		targets.map((t) => [
+			t.name,
+			{
+				requests: 0,
+				duration: 0,
+				non2xx: 0,
+				errors: 0,
+				timeouts: 0,
+				saved: 0,
+				latencies: null as Histogram | null
+			}
+		])
+	);
+	for (let round = 0; round < rounds; round++) {
+		for (const t of targets) {
+			const total = totals.get(t.name)!;
+			const counter = { saved: 0 };
+			const requests = await requestsFor(kind, show, dbUrl, counter);
+			const result = await once({ ...options(t.url), duration: seconds / rounds, requests });
+			await settle();
+			total.requests += result.totalCompletedRequests;
+			total.duration += result.duration;
+			total.non2xx += result.non2xx;
+			total.errors += result.errors;
+			total.timeouts += result.timeouts;
+			total.saved += counter.saved;
+			const latencies = decodeHist(result.latencies);
+			if (total.latencies) total.latencies.add(latencies);
+			else total.latencies = latencies;
+		}
+	}
+	const figures: Record<string, LoadFigures> = {};
+	for (const [name, t] of totals) {
+		const h = t.latencies!;
+		figures[name] = {
+			requests: t.requests,
+			requestsPerSecond: Math.round((t.requests / t.duration) * 10) / 10,
+			latencyMs: {
+				p50: h.getValueAtPercentile(50),
+				p95: h.getValueAtPercentile(95),
+				p99: h.getValueAtPercentile(99),
+				max: h.maxValue
+			},
+			non2xx: t.non2xx,
+			errors: t.errors,
+			timeouts: t.timeouts,
+			...(kind === 'saves' ? { saved: t.saved } : {})
+		};
+	}
+	return figures;
+}
+
+/** GETs a URL and returns the raw bytes as sent (not decompressed) and the headers. */
+function getRaw(url: string, headers: Record<string, string>) {
+	return new Promise<{ status: number; body: Buffer; encoding: string | undefined }>(
+		(resolve, reject) => {
+			http
+				.get(url, { headers }, (res) => {
+					const chunks: Buffer[] = [];
+					res.on('data', (c: Buffer) => chunks.push(c));
+					res.on('end', () =>
+						resolve({
+							status: res.statusCode ?? 0,
+							body: Buffer.concat(chunks),
+							encoding: res.headers['content-encoding']
+						})
+					);
+				})
+				.on('error', reject);
+		}
+	);
+}
+
+/**
+ * The JavaScript and CSS a page ships: the page's modulepreload, script and stylesheet links and
+ * every module they import statically, each fetched as a browser would (accept-encoding gzip) and
+ * counted as sent; an asset the server sends uncompressed is counted gzip-compressed by us.
+ */
+export async function pageAssetBytes(pageUrl: string, cookie: string) {
+	const page = await getRaw(pageUrl, { cookie });
+	if (page.status !== 200) throw new Error(`${pageUrl} answered ${page.status}`);
+	const html = page.body.toString('utf8');
+	const origin = new URL(pageUrl).origin;
+	const queue: string[] = [];
+	for (const m of html.matchAll(/<link[^>]+>/g)) {
+		const href = /href="([^"]+)"/.exec(m[0])?.[1];
+		if (href && /rel="(modulepreload|stylesheet)"/.test(m[0]))
+			queue.push(new URL(href, pageUrl).href);
+	}
+	for (const m of html.matchAll(/import\(\s*"([^"]+)"\s*\)/g))
+		queue.push(new URL(m[1], pageUrl).href);
+	const seen = new Set<string>();
+	const files: { path: string; gzipBytes: number; rawBytes: number }[] = [];
+	let jsGzipBytes = 0;
+	let cssGzipBytes = 0;
+	while (queue.length > 0) {
+		const url = queue.shift()!;
+		if (seen.has(url) || !url.startsWith(origin)) continue;
+		seen.add(url);
+		const sent = await getRaw(url, { 'accept-encoding': 'gzip' });
+		if (sent.status !== 200) throw new Error(`${url} answered ${sent.status}`);
+		const gz = sent.encoding === 'gzip' ? sent.body : gzipSync(sent.body);
+		const plain = (await getRaw(url, {})).body;
+		files.push({ path: new URL(url).pathname, gzipBytes: gz.length, rawBytes: plain.length });
+		if (url.endsWith('.css')) cssGzipBytes += gz.length;
+		else {
+			jsGzipBytes += gz.length;
+			const code = plain.toString('utf8');
+			for (const m of code.matchAll(/(?:import|from)\s*["']([^"']+\.js)["']/g)) {
+				queue.push(new URL(m[1], url).href);
+			}
+		}
+	}
+	return {
+		url: new URL(pageUrl).pathname.replace(/[0-9a-f-]{36}/, '<classId>'),
+		jsGzipBytes,
+		cssGzipBytes,
+		htmlGzipBytes: gzipSync(page.body).length,
+		files: files.length
+	};
+}

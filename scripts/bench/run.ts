@@ -1,0 +1,276 @@
+/**
+ * The benchmark (npm run bench; scripts/bench.sh starts the database and the SMTP fake and builds
+ * the app first). It seeds the convention show into the benchmark database, starts the built app
+ * and the bare baseline on loopback, measures, and prints one JSON document. Nothing here is a
+ * test: timings belong to this command only.
+ *
+ * Settings: CB_BENCH_DB_URL, CB_BENCH_APP_PORT (4890), CB_BENCH_BASELINE_PORT (4891),
+ * CB_BENCH_SECONDS (10 per load and server), CB_BENCH_ROUNDS (2 turns), CB_BENCH_CONNECTIONS (30).
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { cpus, totalmem } from 'node:os';
+import { generateShow, type BenchShow } from './generate';
+import { compareLoads, pageAssetBytes, settle, type LoadFigures } from './loads';
+
+const dbUrl = process.env.CB_BENCH_DB_URL ?? 'postgres://postgres@127.0.0.1:54329/crownbench_bench';
+const appPort = Number(process.env.CB_BENCH_APP_PORT ?? 4890);
+const basePort = Number(process.env.CB_BENCH_BASELINE_PORT ?? 4891);
+const seconds = Number(process.env.CB_BENCH_SECONDS ?? 10);
+const connections = Number(process.env.CB_BENCH_CONNECTIONS ?? 30);
+const rounds = Number(process.env.CB_BENCH_ROUNDS ?? 2);
+const app = `http://127.0.0.1:${appPort}`;
+const base = `http://127.0.0.1:${basePort}`;
+const children: ChildProcess[] = [];
+
+function log(message: string): void {
+	process.stderr.write(`bench: ${message}\n`);
+}
+
+function start(name: string, args: string[], env: Record<string, string>): ChildProcess {
+	const child = spawn(process.execPath, args, {
+		env: { ...process.env, ...env },
+		stdio: ['ignore', 'ignore', 'pipe']
+	});
+	child.stderr?.on('data', (d: Buffer) => process.stderr.write(`[${name}] ${d.toString()}`));
+	children.push(child);
+	return child;
+}
+
+async function waitFor(url: string, limitMs = 30_000): Promise<void> {
+	const until = Date.now() + limitMs;
+	while (Date.now() < until) {
+		try {
+			await fetch(url);
+			return;
+		} catch {
+			await new Promise((r) => setTimeout(r, 200));
+		}
+	}
+	throw new Error(`no answer from ${url}`);
+}
+
+function median(values: number[]): number {
+	const s = [...values].sort((a, b) => a - b);
+	const m = Math.floor(s.length / 2);
+	return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
+}
+
+const round = (n: number, digits = 2) => Math.round(n * 10 ** digits) / 10 ** digits;
+
+/** Times the awards engine in this process: median of repeated runs on the show's judging. */
+async function timeAwards(show: BenchShow) {
+	const { loadShowJudging, awardsOf } = await import('../../src/lib/server/services/results');
+	const judging = await loadShowJudging(show.showId);
+	for (let i = 0; i < 5; i++) awardsOf(judging);
+	const engine: number[] = [];
+	let awards = 0;
+	for (let i = 0; i < 31; i++) {
+		const t = performance.now();
+		awards = awardsOf(judging).awards.length;
+		engine.push(performance.now() - t);
+	}
+	const withReads: number[] = [];
+	for (let i = 0; i < 11; i++) {
+		const t = performance.now();
+		awardsOf(await loadShowJudging(show.showId));
+		withReads.push(performance.now() - t);
+	}
+	return {
+		entries: judging.entries.length,
+		awards,
+		engineMedianMs: round(median(engine), 3),
+		withDatabaseReadsMedianMs: round(median(withReads), 1),
+		runs: engine.length
+	};
+}
+
+/** Publishes the show's results in one transaction, as the chair's publish button does. */
+async function publish(show: BenchShow): Promise<number> {
+	const { sequelize } = await import('../../src/lib/server/db');
+	const { publishResults } = await import('../../src/lib/server/services/results');
+	const t = performance.now();
+	await sequelize.transaction((transaction) =>
+		publishResults({ id: show.chairId }, show.showId, { transaction })
+	);
+	return round(performance.now() - t, 0);
+}
+
+/** Runs the award-sheet PDF in a child process of its own, for its time and peak memory. */
+function measurePdf(show: BenchShow): Promise<Record<string, unknown>> {
+	return new Promise((resolve) => {
+		const child = spawn(
+			process.execPath,
+			['--import', 'tsx', 'scripts/bench/measure-pdf.ts', show.showId],
+			{ env: { ...process.env, DATABASE_URL: dbUrl }, stdio: ['ignore', 'pipe', 'inherit'] }
+		);
+		let out = '';
+		child.stdout.on('data', (d: Buffer) => (out += d.toString()));
+		child.on('close', (code) => {
+			try {
+				resolve(JSON.parse(out) as Record<string, unknown>);
+			} catch {
+				resolve({ measured: false, reason: `the PDF process ended with code ${code}` });
+			}
+		});
+	});
+}
+
+function ratio(appFigure: number, baseFigure: number): number {
+	return baseFigure > 0 ? round(appFigure / baseFigure, 3) : 0;
+}
+
+/** A load counts only when both servers answered every request with success. */
+function answered(load: Record<string, LoadFigures>): boolean {
+	return Object.values(load).every((f) => f.requests > 0 && f.non2xx === 0 && f.errors === 0);
+}
+
+function comparison(a: LoadFigures, b: LoadFigures) {
+	return {
+		app: a,
+		baseline: b,
+		ratio: {
+			throughput: ratio(a.requestsPerSecond, b.requestsPerSecond),
+			p50: ratio(a.latencyMs.p50, b.latencyMs.p50),
+			p95: ratio(a.latencyMs.p95, b.latencyMs.p95),
+			p99: ratio(a.latencyMs.p99, b.latencyMs.p99)
+		}
+	};
+}
+
+async function main(): Promise<void> {
+	process.env.DATABASE_URL = dbUrl;
+	const started = Date.now();
+	log('seeding the convention show');
+	const show = await generateShow(dbUrl);
+	log(`seeded ${JSON.stringify(show.counts)} in ${Date.now() - started} ms`);
+
+	const env = {
+		DATABASE_URL: dbUrl,
+		NODE_ENV: 'production',
+		HOST: '127.0.0.1',
+		CB_OUTBOX_WORKER: 'off',
+		CB_REMINDERS: 'off',
+		AUTH_SECRET: process.env.AUTH_SECRET ?? 'benchmark-only-secret'
+	};
+	start('app', ['build'], { ...env, PORT: String(appPort), ORIGIN: app });
+	start('baseline', ['scripts/bench/baseline.js'], { ...env, PORT: String(basePort) });
+	await Promise.all([waitFor(`${app}/`), waitFor(`${base}/health`)]);
+
+	log('timing the awards engine');
+	const awards = await timeAwards(show);
+
+	log('measuring the judge’s page');
+	const judge = show.judges[0];
+	const judgePage = await pageAssetBytes(
+		`${app}/judging/class/${judge.firstClassId}`,
+		`authjs.session-token=${judge.sessionToken}`
+	);
+
+	const targets = [
+		{ name: 'app', url: app },
+		{ name: 'baseline', url: base }
+	];
+	log(`scoresheet saves: ${connections} judges, ${seconds} s each for the app and the baseline`);
+	const saves = await compareLoads({
+		kind: 'saves',
+		targets,
+		show,
+		seconds,
+		rounds,
+		connections,
+		dbUrl
+	});
+
+	log('publishing the results');
+	const publishMs = await publish(show);
+
+	log(`results page: ${connections} visitors, ${seconds} s each for the app and the baseline`);
+	const page = await compareLoads({
+		kind: 'results',
+		targets,
+		show,
+		seconds,
+		rounds,
+		connections,
+		dbUrl
+	});
+	await settle();
+
+	log('award sheets PDF in a process of its own');
+	const pdf = await measurePdf(show);
+
+	const report = {
+		date: new Date().toISOString(),
+		machine: {
+			cores: cpus().length,
+			memoryGb: round(totalmem() / 1024 ** 3, 1),
+			node: process.version
+		},
+		show: show.counts,
+		settings: { loadSeconds: seconds, rounds, connections, loopback: true },
+		awardsEngine: { ...awards, targetMs: 50, met: awards.engineMedianMs < 50 },
+		scoresheetSaves: {
+			...comparison(saves.app, saves.baseline),
+			target: { p95Ms: 50, throughputRatio: 0.6 },
+			met:
+				answered(saves) &&
+				saves.app.latencyMs.p95 < 50 &&
+				ratio(saves.app.requestsPerSecond, saves.baseline.requestsPerSecond) >= 0.6
+		},
+		resultsPage: {
+			...comparison(page.app, page.baseline),
+			publishMs,
+			target: { throughputRatio: 0.5 },
+			...(answered(page)
+				? {}
+				: { measured: false, reason: 'the app or the baseline answered with errors (see non2xx)' }),
+			met:
+				answered(page) && ratio(page.app.requestsPerSecond, page.baseline.requestsPerSecond) >= 0.5
+		},
+		awardSheetsPdf: {
+			...pdf,
+			target: { seconds: 10, peakRssMb: 400 },
+			met:
+				typeof pdf.seconds === 'number' &&
+				typeof pdf.peakRssMb === 'number' &&
+				pdf.seconds < 10 &&
+				pdf.peakRssMb < 400
+		},
+		judgePage: {
+			...judgePage,
+			target: { jsGzipBytes: 80 * 1024 },
+			met: judgePage.jsGzipBytes < 80 * 1024
+		},
+		totalSeconds: round((Date.now() - started) / 1000, 0)
+	};
+	const text = `${JSON.stringify(report, null, 2)}\n`;
+	mkdirSync('.data', { recursive: true });
+	writeFileSync('.data/bench-last.json', text);
+	process.stdout.write(text);
+}
+
+function stopChildren(): Promise<void> {
+	return Promise.all(
+		children.map(
+			(c) =>
+				new Promise<void>((resolve) => {
+					if (c.exitCode !== null) return resolve();
+					c.once('exit', () => resolve());
+					c.kill('SIGTERM');
+					setTimeout(() => c.kill('SIGKILL'), 10_000).unref();
+				})
+		)
+	).then(() => undefined);
+}
+
+main()
+	.catch((err: unknown) => {
+		console.error(err);
+		process.exitCode = 1;
+	})
+	.finally(async () => {
+		await stopChildren();
+		const { sequelize } = await import('../../src/lib/server/db');
+		await sequelize.close();
+	});
