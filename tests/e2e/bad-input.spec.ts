@@ -85,7 +85,7 @@ async function problemWith(target: InputTarget, response: Response): Promise<str
 		}
 		if (body.type !== 'failure') return `accepted (${body.type} ${body.location ?? ''})`;
 		if (!(body.status! >= 400 && body.status! < 500)) return `failure with status ${body.status}`;
-		if (!/"(message|errors|error)"/.test(body.data ?? ''))
+		if (!/message|errors|error/i.test(body.data ?? ''))
 			return `failure without a message: ${body.data}`;
 		return null;
 	}

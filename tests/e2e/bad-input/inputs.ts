@@ -221,7 +221,7 @@ export function badQuery(fields: readonly string[]): fc.Arbitrary<string> {
 export const badParam = fc
 	.oneof(
 		fc.uuid(),
-		fc.constantFrom('not-an-id', '..', '%2e%2e', '-1', '0', '99999999999', 'NaN', ' ', "'"),
+		fc.constantFrom('not-an-id', '%2e%2e', '.x', '-1', '0', '99999999999', 'NaN', ' ', "'"),
 		fc.string({ minLength: 1, maxLength: 300 }),
 		huge(1_000)
 	)
