@@ -13,6 +13,8 @@ export interface BadInputTarget {
 	corrupt: 'form' | 'json' | 'path' | 'query+path';
 	/** Route params (a leading $ names a value looked up by access/params.ts). */
 	params?: Record<string, string>;
+	/** Samples always carry at least one of the fields (an empty form is a valid one here). */
+	needsField?: boolean;
 	/** A reason this target takes no input that could be bad (the test then skips it). */
 	noInput?: string;
 }
@@ -228,7 +230,12 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 		fields: ['photoId'],
 		params: { id: '$memberEntryId' }
 	},
-	'/my/mail action:default': { as: 'member', corrupt: 'form', fields: ['reminders', 'results'] },
+	'/my/mail action:default': {
+		as: 'member',
+		corrupt: 'form',
+		fields: ['reminders', 'results'],
+		needsField: true // nothing ticked is a valid answer
+	},
 	'/my/plants/[plantId] action:log': {
 		as: 'member',
 		corrupt: 'form',

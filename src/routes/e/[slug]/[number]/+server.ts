@@ -11,7 +11,7 @@ import type { RequestHandler } from './$types';
 export const GET: RequestHandler = async (event) => {
 	const user = requireUser(event);
 	const show = await findShowOr404(event.params.slug);
-	const number = /^\d{1,9}$/.test(event.params.number) ? Number(event.params.number) : NaN;
+	const number = /^[1-9]\d{0,8}$/.test(event.params.number) ? Number(event.params.number) : NaN;
 	if (Number.isNaN(number)) error(404, `There is no entry ${event.params.number} in this show.`);
 	if (hasRole(user, ['clerk', 'chair'], show.societyId)) {
 		redirect(303, `/desk/${show.slug}/entries/${number}`);
