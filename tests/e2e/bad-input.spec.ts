@@ -67,7 +67,8 @@ function formBody(sample: FormSample): { body: BodyInit; headers: Record<string,
 	}
 	const form = new FormData();
 	for (const [k, v] of sample.fields) form.append(k, v);
-	for (const [k, f] of sample.files) form.append(k, new Blob([f.bytes], { type: f.type }), f.name);
+	for (const [k, f] of sample.files)
+		form.append(k, new Blob([new Uint8Array(f.bytes)], { type: f.type }), f.name);
 	return { body: form, headers: {} };
 }
 

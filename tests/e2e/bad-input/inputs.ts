@@ -156,21 +156,22 @@ export function badForm(fields: readonly string[]): fc.Arbitrary<FormSample> {
 			}
 		)
 	);
-	const extra = fc
+	const extra: fc.Arbitrary<[string, string][]> = fc
 		.subarray(KNOWN_FIELDS, { maxLength: 6 })
 		.chain((names) =>
-			names.length
-				? fc.tuple(...names.map((n) => badValue(n).map((v) => [n, v] as [string, string])))
-				: fc.constant([])
-		);
+			fc.tuple(...names.map((n) => badValue(n).map((v) => [n, v] as [string, string])))
+		)
+		.map((pairs) => [...pairs]);
 	const unknown = fc.array(fc.tuple(fc.string({ minLength: 1, maxLength: 30 }), anyBad), {
 		maxLength: 3
 	});
-	const files = fc.array(fc.tuple(fc.constantFrom('photo', 'file', 'photos'), badFile), {
-		maxLength: 2
-	});
+	const fileFields = fields.filter((f) => f === 'photo' || f === 'file');
+	const files: fc.Arbitrary<[string, BadFile][]> = fileFields.length
+		? fc.array(fc.tuple(fc.constantFrom(...fileFields), badFile), { maxLength: 3 })
+		: fc.constant([]);
+	const owned: fc.Arbitrary<[string, string][][]> = fc.tuple(...own).map((o) => [...o]);
 	return fc
-		.tuple(fc.tuple(...own), extra, unknown, files)
+		.tuple(owned, extra, unknown, files)
 		.map(([o, e, u, f]) => ({ fields: [...o.flat(), ...e, ...u], files: f }));
 }
 
