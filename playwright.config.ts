@@ -30,6 +30,14 @@ export default defineConfig({
 	projects: [
 		{
 			name: 'laptop',
+			testIgnore: /bad-input\.spec\.ts/,
+			use: { ...devices['Desktop Chrome'], viewport: { width: 1280, height: 800 } }
+		},
+		{
+			// Compares the whole database before and after: runs alone, after every other test.
+			name: 'bad-input',
+			testMatch: /bad-input\.spec\.ts/,
+			dependencies: ['laptop'],
 			use: { ...devices['Desktop Chrome'], viewport: { width: 1280, height: 800 } }
 		}
 	]

@@ -231,7 +231,10 @@ test('the chair sets up the show; the public schedule, its PDF and the entries t
 		page.getByText('The ribbon marks must fall from blue to red to white.')
 	).toBeVisible();
 
-	await page.getByRole('link', { name: 'Divisions and classes' }).click();
+	await page
+		.getByRole('navigation', { name: 'This show' })
+		.getByRole('link', { name: 'Divisions and classes' })
+		.click();
 	await expect(page.getByText(/Class 15\. Miniatures, plain foliage/)).toBeVisible();
 	await expectAccessible(page);
 

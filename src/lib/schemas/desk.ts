@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { CONTROL_CHARS_MESSAGE, hasNoControlChars } from './text';
 import { LENGTH_UNITS } from '$lib/domain/units';
 
 const measure = (label: string, max: number) =>
@@ -25,7 +26,12 @@ export const moveSchema = z.object({ classId: z.uuid('Choose a class.') });
 
 /** Form: scratch an entry, with a short reason for the record. */
 export const scratchSchema = z.object({
-	reason: z.string().trim().min(2, 'Say briefly why.').max(240, 'Keep the reason short.')
+	reason: z
+		.string()
+		.trim()
+		.min(2, 'Say briefly why.')
+		.max(240, 'Keep the reason short.')
+		.refine(hasNoControlChars, CONTROL_CHARS_MESSAGE)
 });
 
 /** Query of the entries table: sorting, filters and paging, all done by the server. */

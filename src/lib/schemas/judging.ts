@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { CONTROL_CHARS_MESSAGE, hasNoControlChars } from './text';
 import { NOT_JUDGED_REASONS } from '$lib/domain/scoring';
 
 /**
@@ -31,7 +32,12 @@ export type SheetChange = z.infer<typeof sheetChangeSchema>;
 
 /** Form: a new panel. */
 export const panelNameSchema = z.object({
-	name: z.string().trim().min(1, 'Name the panel.').max(80, 'Keep the name under 80 characters.')
+	name: z
+		.string()
+		.trim()
+		.min(1, 'Name the panel.')
+		.max(80, 'Keep the name under 80 characters.')
+		.refine(hasNoControlChars, CONTROL_CHARS_MESSAGE)
 });
 
 /** Form: a person added to (or removed from) a panel. */

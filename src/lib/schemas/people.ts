@@ -8,6 +8,8 @@ export const setRolesSchema = z.object({
 		.string()
 		.trim()
 		.toLowerCase()
+		.min(1, 'Enter an e-mail address.')
+		.max(254, 'That address is too long.')
 		.pipe(z.email('Enter a complete e-mail address, like name@example.org.')),
 	name: z.string().trim().max(120, 'Keep the name under 120 characters.').optional().default(''),
 	roles: z.array(z.enum(ROLES, 'Unknown role.')).max(ROLES.length)

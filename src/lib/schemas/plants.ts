@@ -14,7 +14,10 @@ const pastDate = (what: string) =>
 	z
 		.string(`Give the date ${what}.`)
 		.trim()
-		.refine(isIsoDate, `Give the date ${what} as a real date.`)
+		.refine((d) => isIsoDate(d) && d >= '1900-01-01', {
+			error: `Give the date ${what} as a real date.`,
+			abort: true
+		})
 		.refine(
 			(d) => compareIsoDates(d, addCalendarDays(todayIso(), 1)) <= 0,
 			`The date ${what} cannot be in the future.`

@@ -303,6 +303,8 @@ export async function setPlantGone(
 	options: { transaction: Transaction }
 ): Promise<void> {
 	const plant = await ownPlantOr404(ownerId, plantId, options.transaction);
+	if (goneOn === null && plant.goneOn === null)
+		throw new PlantInputError('goneOn', 'This plant is in the collection already.');
 	plant.goneOn = goneOn;
 	await plant.save({ transaction: options.transaction });
 }

@@ -1,3 +1,4 @@
+import { fail } from '@sveltejs/kit';
 import { mailPreferencesSchema } from '$lib/schemas/plants';
 import { sequelize } from '$lib/server/db';
 import { requireRole } from '$lib/server/policies';
@@ -13,6 +14,12 @@ export const actions: Actions = {
 	default: async (event) => {
 		const user = requireRole(event, ['member']);
 		const form = await event.request.formData();
+		// A ticked box sends 'on', an unticked one nothing: anything else is not this form.
+		for (const name of ['reminders', 'results']) {
+			const values = form.getAll(name);
+			if (values.length > 1 || (values.length === 1 && values[0] !== 'on'))
+				return fail(400, { message: 'Tick or untick the boxes and save again.' });
+		}
 		const preferences = mailPreferencesSchema.parse({
 			reminders: form.get('reminders') === 'on',
 			results: form.get('results') === 'on'

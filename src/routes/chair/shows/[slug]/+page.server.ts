@@ -66,7 +66,11 @@ export const actions: Actions = {
 	publish: async (event) => {
 		const { show } = await requireShowRole(event, event.params.slug, ['chair']);
 		const form = await event.request.formData();
-		const published = form.get('published') === 'yes';
+		const choice = form.get('published');
+		if (choice !== 'yes' && choice !== 'no') {
+			return fail(400, { message: 'Choose whether the schedule is public.' });
+		}
+		const published = choice === 'yes';
 		await sequelize.transaction((transaction) =>
 			setSchedulePublished(show, published, { transaction })
 		);

@@ -11,14 +11,13 @@ import type { RequestHandler } from './$types';
 export const GET: RequestHandler = async (event) => {
 	const user = requireUser(event);
 	const show = await findShowOr404(event.params.slug);
-	const number = /^\d{1,9}$/.test(event.params.number) ? Number(event.params.number) : NaN;
+	const number = /^[1-9]\d{0,8}$/.test(event.params.number) ? Number(event.params.number) : NaN;
+	if (Number.isNaN(number)) error(404, `There is no entry ${event.params.number} in this show.`);
 	if (hasRole(user, ['clerk', 'chair'], show.societyId)) {
-		redirect(303, `/desk/${show.slug}/entries/${event.params.number}`);
+		redirect(303, `/desk/${show.slug}/entries/${number}`);
 	}
 	if (hasRole(user, ['judge'], show.societyId)) {
-		const entry = Number.isNaN(number)
-			? null
-			: await Entry.findOne({ where: { showId: show.id, number }, attributes: ['id'] });
+		const entry = await Entry.findOne({ where: { showId: show.id, number }, attributes: ['id'] });
 		if (!entry) error(404, `There is no entry ${event.params.number} in this show.`);
 		redirect(303, `/judging/entry/${entry.id}`);
 	}

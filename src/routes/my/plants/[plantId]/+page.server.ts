@@ -1,7 +1,7 @@
 import { error, fail, type RequestEvent } from '@sveltejs/kit';
 import type { Transaction } from 'sequelize';
 import { z } from 'zod';
-import { isIsoDate } from '$lib/domain/dates';
+import { addCalendarDays, compareIsoDates, isIsoDate } from '$lib/domain/dates';
 import {
 	lengthField,
 	photoSchema,
@@ -77,7 +77,8 @@ export const actions: Actions = {
 		if (!parsed.success) return fail(400, { action: 'events', message: 'Choose a log line.' });
 		return write(event, 'events', async (owner, plantId, transaction) => {
 			const removed = await deletePlantEvent(owner, plantId, parsed.data.id, { transaction });
-			return removed ? 'Removed from the log.' : 'That log line was already gone.';
+			if (!removed) throw new PlantInputError('id', 'That log line is not in this plant’s log.');
+			return 'Removed from the log.';
 		});
 	},
 	potSucker: async (event) => {
@@ -111,14 +112,21 @@ export const actions: Actions = {
 		const parsed = idField.safeParse({ id: (await event.request.formData()).get('id') });
 		if (!parsed.success) return fail(400, { action: 'photo', message: 'Choose a photo.' });
 		return write(event, 'photo', async (owner, plantId, transaction) => {
-			await deletePlantPhoto(owner, plantId, parsed.data.id, { transaction });
+			const removed = await deletePlantPhoto(owner, plantId, parsed.data.id, { transaction });
+			if (!removed) throw new PlantInputError('id', 'That photo is not among this plant’s photos.');
 			return 'Photo deleted.';
 		});
 	},
 	gone: async (event) => {
-		const value = (await event.request.formData()).get('goneOn');
-		const goneOn = value ? String(value) : null;
-		if (goneOn !== null && !isIsoDate(goneOn)) {
+		const values = (await event.request.formData()).getAll('goneOn');
+		const goneOn = values[0] ? String(values[0]) : null;
+		// The form always sends one goneOn: a date (no longer grown) or empty (back again).
+		const realDate =
+			goneOn !== null &&
+			isIsoDate(goneOn) &&
+			goneOn >= '1900-01-01' &&
+			compareIsoDates(goneOn, addCalendarDays(todayIso(), 1)) <= 0;
+		if (values.length !== 1 || (goneOn !== null && !realDate)) {
 			return fail(400, { action: 'gone', message: 'Give the date as a real date.' });
 		}
 		return write(event, 'gone', async (owner, plantId, transaction) => {

@@ -1,0 +1,290 @@
+import type { Visitor } from '../access/people';
+
+/**
+ * How the bad-input test reaches each form action and endpoint: who sends it (someone allowed to
+ * use it, so the input itself is what gets checked), which fields the input has, and what is
+ * corrupted. Every action and endpoint method of the app needs an entry (the test fails otherwise).
+ */
+export interface BadInputTarget {
+	as: Visitor;
+	/** The fields the action or endpoint reads; samples corrupt them and add others. */
+	fields: string[];
+	/** body: the form or JSON; path: the route's params (and query); query: the query string. */
+	corrupt: 'form' | 'json' | 'path' | 'query+path';
+	/** Route params (a leading $ names a value looked up by access/params.ts). */
+	params?: Record<string, string>;
+	/** Samples always carry at least one of the fields (an empty form is a valid one here). */
+	needsField?: boolean;
+	/** A reason this target takes no input that could be bad (the test then skips it). */
+	noInput?: string;
+}
+
+/** A well-formed id that names nothing. */
+const NOTHING = '00000000-0000-4000-8000-000000000000';
+
+const PLANT_FIELDS = [
+	'name',
+	'varietyId',
+	'obtainedOn',
+	'obtainedHow',
+	'potSize',
+	'unit',
+	'crowns',
+	'diameter',
+	'note',
+	'parentId',
+	'label'
+];
+const CLASS_FIELDS = [
+	'id',
+	'divisionId',
+	'code',
+	'name',
+	'sizeClasses',
+	'habit',
+	'speciesOnly',
+	'blossomTypes',
+	'maxCrowns',
+	'sort'
+];
+
+export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
+	'/admin action:setRoles': {
+		as: 'admin',
+		corrupt: 'form',
+		fields: ['societyId', 'email', 'name', 'roles']
+	},
+	'/api/chair/shows/[showId]/entry-reminders api:POST': {
+		as: 'chair',
+		corrupt: 'path',
+		fields: []
+	},
+	'/api/chair/shows/[slug]/board api:GET': { as: 'chair', corrupt: 'path', fields: [] },
+	'/api/desk/shows/[slug]/entries api:GET': { as: 'clerk', corrupt: 'path', fields: [] },
+	'/api/judging/classes/[classId] api:GET': { as: 'judge', corrupt: 'path', fields: [] },
+	'/api/judging/sheets api:PUT': {
+		as: 'judge',
+		corrupt: 'json',
+		fields: [
+			'changeId',
+			'entryId',
+			'baseVersion',
+			'deductions',
+			'comment',
+			'notJudged',
+			'judgesChoiceRank'
+		]
+	},
+	'/api/my/entries api:POST': {
+		as: 'member',
+		corrupt: 'json',
+		fields: ['showSlug', 'classId', 'varietyId', 'acquiredOn']
+	},
+	'/api/my/entries/check api:POST': {
+		as: 'member',
+		corrupt: 'json',
+		fields: ['showSlug', 'classId', 'varietyId', 'acquiredOn']
+	},
+	'/api/photos/[id] api:GET': {
+		as: 'member',
+		corrupt: 'path',
+		fields: [],
+		params: { id: NOTHING }
+	},
+	'/api/varieties api:GET': { as: 'member', corrupt: 'query+path', fields: ['society', 'q'] },
+	'/chair/shows/[slug] action:save': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: [
+			'name',
+			'venue',
+			'entryDay',
+			'judgingDay',
+			'entriesOpen',
+			'entriesClose',
+			'possessionMonths',
+			'maxEntriesPerClass',
+			'requireGoodStanding',
+			'publicHours'
+		]
+	},
+	'/chair/shows/[slug] action:publish': { as: 'chair', corrupt: 'form', fields: ['published'] },
+	'/chair/shows/[slug]/awards action:publish': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: ['allowIncomplete']
+	},
+	'/chair/shows/[slug]/awards/rules action:default': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: [
+			'awardSystem',
+			'blue',
+			'red',
+			'white',
+			'honourable',
+			'bestInClassMin',
+			'topAwards',
+			'tieBreak',
+			'useJudgesChoice'
+		]
+	},
+	'/chair/shows/[slug]/panels action:createPanel': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: ['name']
+	},
+	'/chair/shows/[slug]/panels action:deletePanel': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: ['panelId']
+	},
+	'/chair/shows/[slug]/panels action:addJudge': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: ['panelId', 'userId']
+	},
+	'/chair/shows/[slug]/panels action:removeJudge': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: ['panelId', 'userId']
+	},
+	'/chair/shows/[slug]/panels action:setClerk': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: ['panelId', 'userId']
+	},
+	'/chair/shows/[slug]/panels action:assignClass': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: ['classId', 'panelId']
+	},
+	'/chair/shows/[slug]/schedule action:saveDivision': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: ['id', 'code', 'name', 'sort']
+	},
+	'/chair/shows/[slug]/schedule action:deleteDivision': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: ['id']
+	},
+	'/chair/shows/[slug]/schedule action:saveClass': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: CLASS_FIELDS
+	},
+	'/chair/shows/[slug]/schedule action:deleteClass': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: ['id']
+	},
+	'/chair/varieties action:save': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: [
+			'societyId',
+			'id',
+			'name',
+			'hybridizer',
+			'isSpecies',
+			'sizeClass',
+			'habit',
+			'blossomType',
+			'blossomColours',
+			'foliage',
+			'description'
+		]
+	},
+	'/chair/varieties action:import': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: ['societyId', 'file', 'goodRowsOnly']
+	},
+	'/desk/[slug]/entries/[number] action:checkIn': {
+		as: 'clerk',
+		corrupt: 'form',
+		fields: ['crowns', 'diameter', 'unit', 'note']
+	},
+	'/desk/[slug]/entries/[number] action:move': {
+		as: 'clerk',
+		corrupt: 'form',
+		fields: ['classId']
+	},
+	'/desk/[slug]/entries/[number] action:scratch': {
+		as: 'clerk',
+		corrupt: 'form',
+		fields: ['reason']
+	},
+	'/desk/[slug]/tags api:GET': { as: 'clerk', corrupt: 'query+path', fields: ['numbers'] },
+	'/e/[slug]/[number] api:GET': { as: 'clerk', corrupt: 'path', fields: [] },
+	'/my/entries/[id] action:upload': {
+		as: 'member',
+		corrupt: 'form',
+		fields: ['photo'],
+		params: { id: '$memberEntryId' }
+	},
+	'/my/entries/[id] action:deletePhoto': {
+		as: 'member',
+		corrupt: 'form',
+		fields: ['photoId'],
+		params: { id: '$memberEntryId' }
+	},
+	'/my/mail action:default': {
+		as: 'member',
+		corrupt: 'form',
+		fields: ['reminders', 'results'],
+		needsField: true // nothing ticked is a valid answer
+	},
+	'/my/plants/[plantId] action:log': {
+		as: 'member',
+		corrupt: 'form',
+		fields: ['kind', 'happenedOn', 'diameter', 'unit', 'crowns', 'potSize', 'note']
+	},
+	'/my/plants/[plantId] action:deleteEvent': { as: 'member', corrupt: 'form', fields: ['id'] },
+	'/my/plants/[plantId] action:potSucker': {
+		as: 'member',
+		corrupt: 'form',
+		fields: ['happenedOn', 'potSize', 'label']
+	},
+	'/my/plants/[plantId] action:photo': {
+		as: 'member',
+		corrupt: 'form',
+		fields: ['photo', 'caption']
+	},
+	'/my/plants/[plantId] action:deletePhoto': { as: 'member', corrupt: 'form', fields: ['id'] },
+	'/my/plants/[plantId] action:gone': { as: 'member', corrupt: 'form', fields: ['goneOn', 'note'] },
+	'/my/plants/[plantId]/edit action:default': {
+		as: 'member',
+		corrupt: 'form',
+		fields: PLANT_FIELDS
+	},
+	'/my/plants/[plantId]/photos/[photoId] api:GET': {
+		as: 'member',
+		corrupt: 'path',
+		fields: [],
+		params: { photoId: NOTHING }
+	},
+	'/my/plants/labels/pdf api:GET': { as: 'member', corrupt: 'query+path', fields: ['plant'] },
+	'/my/plants/new action:default': { as: 'member', corrupt: 'form', fields: PLANT_FIELDS },
+	'/my/plants/readiness action:enter': {
+		as: 'member',
+		corrupt: 'form',
+		fields: ['plantId', 'classId', 'showId', 'show']
+	},
+	'/my/shows/[slug] action:enter': {
+		as: 'member',
+		corrupt: 'form',
+		fields: ['classId', 'varietyId', 'acquiredOn', 'plantId']
+	},
+	'/my/shows/[slug] action:withdraw': { as: 'member', corrupt: 'form', fields: ['entryId'] },
+	'/shows/[slug]/schedule.pdf api:GET': { as: 'anon', corrupt: 'path', fields: [] },
+	'/signin action:default': { as: 'anon', corrupt: 'form', fields: ['email', 'redirectTo'] },
+	'/signout action:default': {
+		as: 'member',
+		corrupt: 'form',
+		fields: [],
+		noInput:
+			'signing out reads no input: whatever is sent, the session ends (checked in sign-in-and-roles.spec.ts)'
+	}
+};
