@@ -49,11 +49,63 @@ const CLASS_FIELDS = [
 ];
 
 export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
-	'/admin action:setRoles': {
+	// Society admin: dues, fees and members (issue 7).
+	'/admin/dues action:addPeriod': {
+		as: 'admin',
+		corrupt: 'form',
+		fields: ['societyId', 'label', 'amountCents', 'startsOn', 'endsOn']
+	},
+	'/admin/dues action:removePeriod': {
+		as: 'admin',
+		corrupt: 'form',
+		fields: ['societyId', 'periodId']
+	},
+	'/admin/dues action:setCurrency': {
+		as: 'admin',
+		corrupt: 'form',
+		fields: ['societyId', 'currency']
+	},
+	'/admin/dues action:setFee': {
+		as: 'admin',
+		corrupt: 'form',
+		fields: ['societyId', 'showId', 'entryFeeCents', 'entryFeeRefund']
+	},
+	'/admin/members action:invite': {
 		as: 'admin',
 		corrupt: 'form',
 		fields: ['societyId', 'email', 'name', 'roles']
 	},
+	'/admin/members action:changeRoles': {
+		as: 'admin',
+		corrupt: 'form',
+		fields: ['societyId', 'userId', 'roles', 'confirm']
+	},
+	'/api/admin/members api:GET': {
+		as: 'admin',
+		corrupt: 'query+path',
+		fields: ['society', 'sort', 'dir', 'q', 'role', 'standing', 'page']
+	},
+	'/api/payments/webhook api:POST': {
+		as: 'anon',
+		corrupt: 'json',
+		fields: ['id', 'type', 'data', 'created']
+	},
+	'/my/membership action:pay': {
+		as: 'member',
+		corrupt: 'form',
+		fields: ['societyId', 'periodId']
+	},
+	'/my/payments action:pay': { as: 'member', corrupt: 'form', fields: ['showId'] },
+	// Results (issue 5).
+	'/api/chair/shows/[slug]/results-mail api:GET': { as: 'chair', corrupt: 'path', fields: [] },
+	'/chair/shows/[slug]/results action:resend': { as: 'chair', corrupt: 'form', fields: ['id'] },
+	'/chair/shows/[slug]/results/[document] api:GET': {
+		as: 'chair',
+		corrupt: 'path',
+		fields: [],
+		params: { document: 'award-sheets' }
+	},
+	'/shows/[slug]/results/results.csv api:GET': { as: 'member', corrupt: 'path', fields: [] },
 	'/api/chair/shows/[showId]/entry-reminders api:POST': {
 		as: 'chair',
 		corrupt: 'path',
