@@ -296,10 +296,14 @@ test('two judges on one consensus sheet: the later change is shown as a conflict
 	await other.getByRole('button', { name: 'Put my scores back' }).click();
 	await expect(other.locator('[data-sync]')).toHaveAttribute('data-sync', 'saved');
 	await expect(other.getByTestId('running-total')).toHaveText('99');
-	const versions = await withDb(
-		async (db) =>
-			(await db.query('SELECT version FROM score_sheets WHERE entry_id = $1', [entry.id])).rows
-	);
-	expect(versions).toEqual([{ version: 2 }]);
+	// The put-back is sent in the background: wait for it to reach the database.
+	await expect
+		.poll(() =>
+			withDb(
+				async (db) =>
+					(await db.query('SELECT version FROM score_sheets WHERE entry_id = $1', [entry.id])).rows
+			)
+		)
+		.toEqual([{ version: 2 }]);
 	await otherContext.close();
 });
