@@ -9,6 +9,8 @@ source scripts/lib.sh
 set -e
 
 ensure_node_modules
+# Type-aware lint reads the generated .svelte-kit/tsconfig.json; a fresh clone has none yet.
+npx svelte-kit sync
 if ! command -v chromium >/dev/null 2>&1; then
 	echo "setup: installing Debian's chromium for the browser tests"
 	if [ "$(id -u)" -ne 0 ]; then

@@ -69,9 +69,14 @@ test('an exhibitor enters a fitting and a non-fitting plant; a clerk measures, m
 	const clerk = await clerkContext.newPage();
 	await signIn(clerk, 'clerk@crownbench.test');
 	await clerk.goto(`/desk/${slug}`);
-	await clerk.getByLabel('Entry number or name').fill(String(number));
-	await clerk.getByRole('button', { name: 'Find' }).click();
-	await clerk.getByRole('link', { name: String(number), exact: true }).click();
+	// Text typed before the page has hydrated can be reset by it: type again until the search holds.
+	const found = clerk.getByRole('link', { name: String(number), exact: true });
+	await expect(async () => {
+		await clerk.getByLabel('Entry number or name').fill(String(number));
+		await clerk.getByRole('button', { name: 'Find' }).click();
+		await expect(found).toBeVisible({ timeout: 3000 });
+	}).toPass({ timeout: 20_000 });
+	await found.click();
 	await expect(clerk.getByRole('heading', { level: 1, name: `Entry ${number}` })).toBeVisible();
 	await clerk.getByLabel('centimetres').check();
 	await clerk.getByLabel('Diameter (cm)').fill('17.8');
