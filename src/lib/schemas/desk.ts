@@ -45,3 +45,17 @@ export const entriesQuerySchema = z.object({
 	size: z.coerce.number().int().min(5).max(100).catch(25)
 });
 export type EntriesQuery = z.infer<typeof entriesQuerySchema>;
+
+/** One row of the entries table for the chair and clerks, as the entries API answers it. */
+export interface EntryTableRow {
+	id: string;
+	number: number;
+	classCode: string;
+	className: string;
+	variety: string;
+	exhibitor: string;
+	status: string;
+	diameterIn: number | null;
+	crowns: number | null;
+	checkedInAt: string | null;
+}

@@ -1,21 +1,9 @@
 import Papa from 'papaparse';
 import { QueryTypes } from 'sequelize';
-import type { EntriesQuery } from '$lib/schemas/desk';
-import { sequelize } from '../db';
+import type { EntriesQuery, EntryTableRow } from '$lib/schemas/desk';
 
-/** One row of the entries table for the chair and clerks. */
-export interface EntryTableRow {
-	id: string;
-	number: number;
-	classCode: string;
-	className: string;
-	variety: string;
-	exhibitor: string;
-	status: string;
-	diameterIn: number | null;
-	crowns: number | null;
-	checkedInAt: string | null;
-}
+export type { EntryTableRow };
+import { sequelize } from '../db';
 
 /** A page of the entries table and how many rows match in all. */
 export interface EntryTablePage {

@@ -1,26 +1,18 @@
 import { Op, type Transaction } from 'sequelize';
 import { DEFAULT_AWARD_RULES, validateAwardRules, type AwardRules } from '$lib/domain/awards';
 import type { ClassRules, SizeClass } from '$lib/domain/eligibility';
+import type { ClassDescribed } from '$lib/schedule-text';
 import type { ClassInput, DivisionInput, ShowSettingsInput } from '$lib/schemas/show';
 import { Division, Entry, Scale, Show, ShowClass } from '../db';
 
 /** A class of the schedule as pages and PDFs show it. */
-export interface ScheduleClass {
+export interface ScheduleClass extends ClassDescribed {
 	id: string;
 	divisionId: string;
 	code: string;
 	name: string;
 	description: string | null;
-	habit: 'single_crown' | 'trailer' | 'any';
 	sizeClasses: SizeClass[];
-	blossomTypes: string[];
-	blossomColours: string[];
-	foliage: 'plain' | 'variegated' | 'any';
-	minCrowns: number | null;
-	maxCrowns: number | null;
-	collectionSize: number | null;
-	speciesOnly: boolean;
-	maxDiameterIn: number | null;
 	scaleId: string | null;
 	scaleName: string | null;
 }
