@@ -132,6 +132,17 @@ async function newLapsedMember(tag: string): Promise<User> {
 	return user;
 }
 
+/** A new lapsed member who has started paying the open dues period and not finished yet. */
+async function lapsedMemberAtCheckout(tag: string) {
+	const member = await newLapsedMember(tag);
+	const started = await startDuesCheckout(
+		member,
+		{ societyId: society.id, periodId: period.id },
+		{ origin }
+	);
+	return { member, ...started };
+}
+
 async function paidThrough(userId: string): Promise<string | null> {
 	const m = await Membership.findOne({ where: { societyId: society.id, userId } });
 	return m?.duesPaidThrough ?? null;
@@ -178,12 +189,7 @@ describe('paying dues through the hosted checkout', () => {
 	});
 
 	it('a valid signed completion records the payment, moves standing and queues one receipt', async () => {
-		const member = await newLapsedMember('valid');
-		const { url, paymentId } = await startDuesCheckout(
-			member,
-			{ societyId: society.id, periodId: period.id },
-			{ origin }
-		);
+		const { member, url, paymentId } = await lapsedMemberAtCheckout('valid');
 		const completed = await payOnFake(url);
 		const answer = await deliver(JSON.stringify(completed));
 		expect(answer).toEqual({ status: 200, outcome: 'recorded dues payment' });
@@ -196,12 +202,7 @@ describe('paying dues through the hosted checkout', () => {
 	});
 
 	it('a bad signature, a tampered body or no signature changes nothing', async () => {
-		const member = await newLapsedMember('forged');
-		const { url, paymentId } = await startDuesCheckout(
-			member,
-			{ societyId: society.id, periodId: period.id },
-			{ origin }
-		);
+		const { member, url, paymentId } = await lapsedMemberAtCheckout('forged');
 		const completed = await payOnFake(url);
 		const body = JSON.stringify(completed);
 
@@ -230,12 +231,7 @@ describe('paying dues through the hosted checkout', () => {
 	});
 
 	it('a replayed event, and a second event for the same checkout, change nothing', async () => {
-		const member = await newLapsedMember('replay');
-		const { url, paymentId } = await startDuesCheckout(
-			member,
-			{ societyId: society.id, periodId: period.id },
-			{ origin }
-		);
+		const { member, url, paymentId } = await lapsedMemberAtCheckout('replay');
 		const completed = await payOnFake(url);
 		const body = JSON.stringify(completed);
 		expect((await deliver(body)).outcome).toBe('recorded dues payment');
@@ -257,12 +253,7 @@ describe('paying dues through the hosted checkout', () => {
 	});
 
 	it('refuses a completion whose amount differs from the payment', async () => {
-		const member = await newLapsedMember('amount');
-		const { url, paymentId } = await startDuesCheckout(
-			member,
-			{ societyId: society.id, periodId: period.id },
-			{ origin }
-		);
+		const { member, url, paymentId } = await lapsedMemberAtCheckout('amount');
 		const completed = await payOnFake(url);
 		const object = { ...completed.data.object, amount_total: 1 };
 		const answer = await deliver(event('checkout.session.completed', object));
@@ -272,12 +263,7 @@ describe('paying dues through the hosted checkout', () => {
 	});
 
 	it('handles events out of order: a stale expiry after payment, a refund before the payment', async () => {
-		const member = await newLapsedMember('order');
-		const { url, paymentId } = await startDuesCheckout(
-			member,
-			{ societyId: society.id, periodId: period.id },
-			{ origin }
-		);
+		const { member, url, paymentId } = await lapsedMemberAtCheckout('order');
 		const completed = await payOnFake(url);
 		const session = completed.data.object as { id: string; payment_intent: string };
 

@@ -103,16 +103,7 @@ function toScheduleClass(c: ShowClass, scales: Map<string, string>): ScheduleCla
 		code: c.code,
 		name: c.name,
 		description: c.description,
-		habit: c.habit,
-		sizeClasses: c.sizeClasses as SizeClass[],
-		blossomTypes: c.blossomTypes,
-		blossomColours: c.blossomColours,
-		foliage: c.foliage,
-		minCrowns: c.minCrowns,
-		maxCrowns: c.maxCrowns,
-		collectionSize: c.collectionSize,
-		speciesOnly: c.speciesOnly,
-		maxDiameterIn: c.maxDiameterIn === null ? null : Number(c.maxDiameterIn),
+		...classRulesOf(c),
 		scaleId: c.scaleId,
 		scaleName: c.scaleId ? (scales.get(c.scaleId) ?? null) : null
 	};
