@@ -15,6 +15,8 @@ describe('describeAuditDetails', () => {
 			'From class 1 Standards to class 12 Semiminiatures.'
 		],
 		['entry.withdraw', { fee: 'refund_requested' }, 'Fee: fee refund requested.'],
+		['panel.delete', { before: { judges: 1, classes: 2 } }, 'It had 1 judge and 2 classes.'],
+		['division.delete', { before: { classes: 1 } }, '1 class went with it.'],
 		['score.change', { before: null, after: 92 }, 'New sheet, total 92.'],
 		['score.change', { before: 92, after: 88.5, notJudged: null }, 'Total 92 → 88.5.'],
 		[

@@ -56,6 +56,8 @@ export interface AuditPage {
 const list = (value: unknown) =>
 	Array.isArray(value) && value.length ? value.map(String).join(', ') : 'none';
 const text = (value: unknown) => (value === null || value === undefined ? 'none' : String(value));
+const count = (value: unknown, word: string) =>
+	`${text(value)} ${Number(value) === 1 ? word : word.endsWith('s') ? `${word}es` : `${word}s`}`;
 const side = (details: Record<string, unknown>, which: 'before' | 'after') =>
 	(details[which] ?? {}) as Record<string, unknown>;
 
@@ -87,9 +89,9 @@ export function describeAuditDetails(
 		case 'panel.class_change':
 			return `Panel was ${text(before.panel)}; now ${text(after.panel)}.`;
 		case 'panel.delete':
-			return `It had ${text(before.judges)} judges and ${text(before.classes)} classes.`;
+			return `It had ${count(before.judges, 'judge')} and ${count(before.classes, 'class')}.`;
 		case 'division.delete':
-			return `Its ${text(before.classes)} classes went with it.`;
+			return `${count(before.classes, 'class')} went with it.`;
 		case 'results.publish':
 			return `${text(details.awards)} awards, ${text(details.ties)} ties; ${text(details.withoutScore)} entries without a score.`;
 		case 'score.change':
