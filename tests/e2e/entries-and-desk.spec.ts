@@ -90,6 +90,7 @@ test('an exhibitor enters a fitting and a non-fitting plant; a clerk measures, m
 
 	// The desk proposes the semiminiature class that fits its measured size, and moves it there.
 	await clerk.getByRole('button', { name: 'Move to class 12' }).click();
+	await clerk.getByRole('button', { name: 'Yes, move the entry' }).click();
 	await expect(clerk.getByText(`Entry ${number} is moved to class 12`)).toBeVisible();
 	await expect(clerk.getByText(/the plant fits class 12/)).toBeVisible();
 
@@ -209,6 +210,7 @@ test('an exhibitor adds a photo; a fake or huge image is refused', async ({ page
 		.getByRole('button', { name: /^Remove photo/ })
 		.last()
 		.click();
+	await page.getByRole('button', { name: 'Yes, remove the photo' }).click();
 	await expect(page.getByText('The photo is removed.')).toBeVisible();
 
 	// Another member may not see the photos of this entry.

@@ -170,6 +170,7 @@ test('a judge scores a class on a tablet, offline for part of it, and the board 
 	);
 	await chair.getByLabel('Publish anyway').check();
 	await chair.getByRole('button', { name: 'Publish results' }).click();
+	await chair.getByRole('button', { name: 'Yes, publish the results' }).click();
 	await expect(chair.getByText('Scores are locked.').first()).toBeVisible();
 	await chairContext.close();
 

@@ -44,6 +44,7 @@ test('the chair publishes results: public page, PDF download and placements e-ma
 	await expect(page.getByText('Results are not published yet')).toBeVisible();
 	await page.goto(`/chair/shows/${slug}/awards`);
 	await page.getByRole('button', { name: 'Publish results' }).click();
+	await page.getByRole('button', { name: 'Yes, publish the results' }).click();
 	await expect(page.getByText('6 placements e-mails are on their way.')).toBeVisible();
 
 	// The chair's results page: documents, charts and the sending progress.

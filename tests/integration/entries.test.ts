@@ -231,11 +231,11 @@ describe('the entry desk', () => {
 
 		await expect(
 			sequelize.transaction((transaction) =>
-				moveEntry(show, entry.id, classId['1'], { transaction })
+				moveEntry(show, entry.id, classId['1'], { transaction, actor: { id: entry.exhibitorId } })
 			)
 		).rejects.toBeInstanceOf(DeskProblem);
 		await sequelize.transaction((transaction) =>
-			moveEntry(show, entry.id, classId['12'], { transaction })
+			moveEntry(show, entry.id, classId['12'], { transaction, actor: { id: entry.exhibitorId } })
 		);
 		const moved = (await loadDeskEntry(show, entry.number))!;
 		expect(moved.classId).toBe(classId['12']);

@@ -51,7 +51,7 @@ describe('panels refuse a judge with an entry in the class', () => {
 		const show = (await Show.findByPk(f.showId)) as Show;
 		// judge3's household (Marrowgate) has the entry in class 2 (a judge must not judge their own: DOMAIN.md)
 		await sequelize.transaction((t) =>
-			assignClass(show, f.otherClassId, f.panelId, { transaction: t })
+			assignClass(show, f.otherClassId, f.panelId, { transaction: t, actor: f.judges[0] })
 		);
 		const refused = await refusalOf(
 			sequelize.transaction((t) => addJudge(show, f.panelId, f.judges[2].id, { transaction: t }))
@@ -73,12 +73,14 @@ describe('panels refuse a judge with an entry in the class', () => {
 			addJudge(show, f.panelId, f.judges[2].id, { transaction: t })
 		);
 		const refused = await refusalOf(
-			sequelize.transaction((t) => assignClass(show, f.otherClassId, f.panelId, { transaction: t }))
+			sequelize.transaction((t) =>
+				assignClass(show, f.otherClassId, f.panelId, { transaction: t, actor: f.judges[0] })
+			)
 		);
 		expect(refused.message).toMatch(/household has an entry/);
 		const own = await refusalOf(
 			sequelize.transaction((t) =>
-				setClerk(show, f.panelId, f.exhibitors[0].id, { transaction: t })
+				setClerk(show, f.panelId, f.exhibitors[0].id, { transaction: t, actor: f.judges[0] })
 			)
 		);
 		expect(own.message).toMatch(/clerk or judge/);

@@ -152,7 +152,10 @@ describe('invitations and roles', () => {
 		);
 		const change = (roles: ('member' | 'judge' | 'admin')[], confirmed: boolean) =>
 			sequelize.transaction((transaction) =>
-				changeMemberRoles({ societyId: society.id, userId, roles, confirmed }, { transaction })
+				changeMemberRoles(
+					{ societyId: society.id, userId, roles, confirmed },
+					{ transaction, actor: { id: userId } }
+				)
 			);
 		await expect(change(['member'], false)).rejects.toBeInstanceOf(MemberChangeError);
 		expect((await Membership.findOne({ where: { userId } }))?.roles).toEqual(['judge', 'member']);
@@ -165,7 +168,7 @@ describe('invitations and roles', () => {
 			sequelize.transaction((transaction) =>
 				changeMemberRoles(
 					{ societyId: society.id, userId: admin.id, roles: ['member'], confirmed: true },
-					{ transaction }
+					{ transaction, actor: admin }
 				)
 			)
 		).rejects.toThrow('only society admin');

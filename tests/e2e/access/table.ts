@@ -178,7 +178,20 @@ export const ACCESS_TABLE: AccessRow[] = [
 		params: { document: 'award-sheets.pdf' },
 		answers: { ...pageFor('chair'), chair: 409 }
 	},
-	{ route: '/api/chair/shows/[slug]/results-mail', answers: apiFor('chair') }
+	{ route: '/api/chair/shows/[slug]/results-mail', answers: apiFor('chair') },
+	// The audit log (issue 9): the society admin reads their society's; filters it does not
+	// understand are left out (the page says so), never a 5xx.
+	{ route: '/admin/audit', answers: pageFor('admin', 'other') },
+	{
+		route: '/admin/audit',
+		query: 'society=cedar-ridge',
+		answers: { ...pageFor('other'), admin: 403 }
+	},
+	{
+		route: '/admin/audit',
+		query: 'action=bogus&person=1%20OR%201%3D1&from=2026-13-45&page=-1',
+		answers: pageFor('admin', 'other')
+	}
 ];
 
 export { all, apiFor, pageFor };

@@ -58,7 +58,7 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 	'/admin/dues action:removePeriod': {
 		as: 'admin',
 		corrupt: 'form',
-		fields: ['societyId', 'periodId']
+		fields: ['societyId', 'periodId', 'confirm']
 	},
 	'/admin/dues action:setCurrency': {
 		as: 'admin',
@@ -160,11 +160,15 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 			'publicHours'
 		]
 	},
-	'/chair/shows/[slug] action:publish': { as: 'chair', corrupt: 'form', fields: ['published'] },
+	'/chair/shows/[slug] action:publish': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: ['published', 'confirm']
+	},
 	'/chair/shows/[slug]/awards action:publish': {
 		as: 'chair',
 		corrupt: 'form',
-		fields: ['allowIncomplete']
+		fields: ['allowIncomplete', 'confirm']
 	},
 	'/chair/shows/[slug]/awards/rules action:default': {
 		as: 'chair',
@@ -189,7 +193,7 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 	'/chair/shows/[slug]/panels action:deletePanel': {
 		as: 'chair',
 		corrupt: 'form',
-		fields: ['panelId']
+		fields: ['panelId', 'confirm']
 	},
 	'/chair/shows/[slug]/panels action:addJudge': {
 		as: 'chair',
@@ -199,17 +203,17 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 	'/chair/shows/[slug]/panels action:removeJudge': {
 		as: 'chair',
 		corrupt: 'form',
-		fields: ['panelId', 'userId']
+		fields: ['panelId', 'userId', 'confirm']
 	},
 	'/chair/shows/[slug]/panels action:setClerk': {
 		as: 'chair',
 		corrupt: 'form',
-		fields: ['panelId', 'userId']
+		fields: ['panelId', 'userId', 'confirm']
 	},
 	'/chair/shows/[slug]/panels action:assignClass': {
 		as: 'chair',
 		corrupt: 'form',
-		fields: ['classId', 'panelId']
+		fields: ['classId', 'panelId', 'confirm']
 	},
 	'/chair/shows/[slug]/schedule action:saveDivision': {
 		as: 'chair',
@@ -219,7 +223,7 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 	'/chair/shows/[slug]/schedule action:deleteDivision': {
 		as: 'chair',
 		corrupt: 'form',
-		fields: ['id']
+		fields: ['id', 'confirm']
 	},
 	'/chair/shows/[slug]/schedule action:saveClass': {
 		as: 'chair',
@@ -229,7 +233,7 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 	'/chair/shows/[slug]/schedule action:deleteClass': {
 		as: 'chair',
 		corrupt: 'form',
-		fields: ['id']
+		fields: ['id', 'confirm']
 	},
 	'/chair/varieties action:save': {
 		as: 'chair',
@@ -261,12 +265,12 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 	'/desk/[slug]/entries/[number] action:move': {
 		as: 'clerk',
 		corrupt: 'form',
-		fields: ['classId']
+		fields: ['classId', 'confirm']
 	},
 	'/desk/[slug]/entries/[number] action:scratch': {
 		as: 'clerk',
 		corrupt: 'form',
-		fields: ['reason']
+		fields: ['reason', 'confirm']
 	},
 	'/desk/[slug]/tags api:GET': { as: 'clerk', corrupt: 'query+path', fields: ['numbers'] },
 	'/e/[slug]/[number] api:GET': { as: 'clerk', corrupt: 'path', fields: [] },
@@ -279,7 +283,7 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 	'/my/entries/[id] action:deletePhoto': {
 		as: 'member',
 		corrupt: 'form',
-		fields: ['photoId'],
+		fields: ['photoId', 'confirm'],
 		params: { id: '$memberEntryId' }
 	},
 	'/my/mail action:default': {
@@ -293,7 +297,11 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 		corrupt: 'form',
 		fields: ['kind', 'happenedOn', 'diameter', 'unit', 'crowns', 'potSize', 'note']
 	},
-	'/my/plants/[plantId] action:deleteEvent': { as: 'member', corrupt: 'form', fields: ['id'] },
+	'/my/plants/[plantId] action:deleteEvent': {
+		as: 'member',
+		corrupt: 'form',
+		fields: ['id', 'confirm']
+	},
 	'/my/plants/[plantId] action:potSucker': {
 		as: 'member',
 		corrupt: 'form',
@@ -304,8 +312,16 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 		corrupt: 'form',
 		fields: ['photo', 'caption']
 	},
-	'/my/plants/[plantId] action:deletePhoto': { as: 'member', corrupt: 'form', fields: ['id'] },
-	'/my/plants/[plantId] action:gone': { as: 'member', corrupt: 'form', fields: ['goneOn', 'note'] },
+	'/my/plants/[plantId] action:deletePhoto': {
+		as: 'member',
+		corrupt: 'form',
+		fields: ['id', 'confirm']
+	},
+	'/my/plants/[plantId] action:gone': {
+		as: 'member',
+		corrupt: 'form',
+		fields: ['goneOn', 'note', 'confirm']
+	},
 	'/my/plants/[plantId]/edit action:default': {
 		as: 'member',
 		corrupt: 'form',
@@ -329,7 +345,11 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 		corrupt: 'form',
 		fields: ['classId', 'varietyId', 'acquiredOn', 'plantId']
 	},
-	'/my/shows/[slug] action:withdraw': { as: 'member', corrupt: 'form', fields: ['entryId'] },
+	'/my/shows/[slug] action:withdraw': {
+		as: 'member',
+		corrupt: 'form',
+		fields: ['entryId', 'confirm']
+	},
 	'/shows/[slug]/schedule.pdf api:GET': { as: 'anon', corrupt: 'path', fields: [] },
 	'/signin action:default': { as: 'anon', corrupt: 'form', fields: ['email', 'redirectTo'] },
 	'/signout action:default': {

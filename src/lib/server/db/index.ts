@@ -1,5 +1,6 @@
 import { createSequelize } from './connection';
 import { Account, Session, VerificationToken } from './models/auth-records';
+import { AuditEvent } from './models/audit-event';
 import { Division } from './models/division';
 import { DuesPeriod } from './models/dues-period';
 import { Entry } from './models/entry';
@@ -50,6 +51,8 @@ PanelJudge.initModel(sequelize);
 PanelClass.initModel(sequelize);
 ScoreSheet.initModel(sequelize);
 EntryPhoto.initModel(sequelize);
+// The audit log of destructive actions (issue 9)
+AuditEvent.initModel(sequelize);
 
 Membership.belongsTo(Society, { foreignKey: 'societyId', as: 'society' });
 Membership.belongsTo(User, { foreignKey: 'userId', as: 'user' });
@@ -93,6 +96,7 @@ Show.hasMany(Panel, { foreignKey: 'showId', as: 'panels' });
 
 export {
 	Account,
+	AuditEvent,
 	Division,
 	DuesPeriod,
 	Entry,

@@ -8,6 +8,7 @@ import {
 } from '$lib/domain/eligibility';
 import { toInches } from '$lib/domain/units';
 import type { CheckInInput } from '$lib/schemas/desk';
+import { recordAudit, type AuditActor } from '../audit';
 import { Division, Entry, Show, ShowClass, User, Variety, sequelize } from '../db';
 import { exhibitorContextFor, plantFactsOf, showContextOf, withStandingHint } from './entries';
 import { classRulesOf } from './schedule';
@@ -254,7 +255,7 @@ export async function moveEntry(
 	show: Show,
 	entryId: string,
 	classId: string,
-	options: { transaction: Transaction }
+	options: { transaction: Transaction; actor: AuditActor }
 ): Promise<ShowClass> {
 	const { transaction } = options;
 	const entry = await lockEntry(show, entryId, transaction);
@@ -274,23 +275,51 @@ export async function moveEntry(
 	}
 	const declared = variety!.sizeClass;
 	const shown = judged.plant.sizeClass;
+	const from = classes.find((c) => c.id === entry.classId);
 	await entry.update(
 		{ classId: target.id, shownSizeClass: shown === declared ? null : shown },
+		{ transaction }
+	);
+	await recordAudit(
+		{
+			societyId: show.societyId,
+			showId: show.id,
+			actor: options.actor,
+			action: 'entry.move',
+			target: { kind: 'entry', id: entry.id, label: `Entry ${entry.number}` },
+			details: {
+				before: { classId: from?.id ?? null, class: from ? label(from) : null },
+				after: { classId: target.id, class: label(target), shownSizeClass: entry.shownSizeClass }
+			}
+		},
 		{ transaction }
 	);
 	return target;
 }
 
-/** Scratches an entry (it stays on record, is not judged), with the clerk's reason. */
+/** Scratches an entry (it stays on record, is not judged), with the clerk's reason. Audited. */
 export async function scratchEntry(
 	show: Show,
 	entryId: string,
 	reason: string,
-	options: { transaction: Transaction }
+	options: { transaction: Transaction; actor: AuditActor }
 ): Promise<void> {
 	const { transaction } = options;
 	const entry = await lockEntry(show, entryId, transaction);
+	if (entry.status === 'scratched') throw new DeskProblem('The entry is scratched already.');
+	const before = entry.status;
 	await entry.update({ status: 'scratched', deskNote: reason }, { transaction });
+	await recordAudit(
+		{
+			societyId: show.societyId,
+			showId: show.id,
+			actor: options.actor,
+			action: 'entry.scratch',
+			target: { kind: 'entry', id: entry.id, label: `Entry ${entry.number}` },
+			details: { before: { status: before }, after: { status: 'scratched' }, reason }
+		},
+		{ transaction }
+	);
 }
 
 /** Entries for tags: number, class and variety, and the exhibitor for the fold-away stub. */

@@ -1,5 +1,6 @@
 import type { Transaction } from 'sequelize';
 import type { EntryFeeRefund } from '../../domain/dues';
+import { recordAudit, type AuditActor } from '../audit';
 import { DuesPeriod, Payment, Show, Society, User } from '../db';
 import type { PaymentRow } from './payments';
 
@@ -50,11 +51,11 @@ export async function addDuesPeriod(
 
 /**
  * Removes a dues period that nobody has started paying; returns false (and keeps it) when a
- * payment refers to it, since receipts and standing rest on it.
+ * payment refers to it, since receipts and standing rest on it. A removal is audited.
  */
 export async function removeDuesPeriod(
 	input: { societyId: string; periodId: string },
-	options: { transaction: Transaction }
+	options: { transaction: Transaction; actor: AuditActor }
 ): Promise<boolean> {
 	const { transaction } = options;
 	const period = await DuesPeriod.findOne({
@@ -65,6 +66,23 @@ export async function removeDuesPeriod(
 	const used = await Payment.count({ where: { duesPeriodId: period.id }, transaction });
 	if (used > 0) return false;
 	await period.destroy({ transaction });
+	await recordAudit(
+		{
+			societyId: input.societyId,
+			actor: options.actor,
+			action: 'dues_period.remove',
+			target: { kind: 'dues_period', id: period.id, label: period.label },
+			details: {
+				before: {
+					label: period.label,
+					amountCents: period.amountCents,
+					startsOn: period.startsOn,
+					endsOn: period.endsOn
+				}
+			}
+		},
+		{ transaction }
+	);
 	return true;
 }
 

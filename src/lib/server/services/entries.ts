@@ -10,6 +10,7 @@ import {
 	type ShowContext
 } from '$lib/domain/eligibility';
 import type { EntryRequest } from '$lib/schemas/entry';
+import { recordAudit } from '../audit';
 import { Entry, Show, ShowClass, Variety, sequelize } from '../db';
 import { classRulesOf } from './schedule';
 import { MEMBERSHIP_PAGE, isInGoodStanding } from './standing';
@@ -277,7 +278,8 @@ export function entriesStillOpen(
 }
 
 /**
- * Withdraws an exhibitor's own entry while entries are open; it stays on record as withdrawn.
+ * Withdraws an exhibitor's own entry while entries are open; it stays on record as withdrawn,
+ * and the audit log keeps who did it and what became of the fee (in the same transaction).
  * Returns a plain sentence when it cannot be withdrawn, otherwise null.
  */
 export async function withdrawEntry(
@@ -298,9 +300,25 @@ export async function withdrawEntry(
 	}
 	if (entry.status !== 'entered')
 		return 'Only an entry that is not yet checked in can be withdrawn.';
+	const feeBefore = entry.feeStatus;
 	await entry.update({ status: 'withdrawn' }, { transaction });
 	// A fee not yet paid is no longer owed; a paid one is refunded where the show allows it
 	// (sent after the commit by sendRequestedRefunds).
-	await settleFeeOfWithdrawnEntry(entry.id, { transaction });
+	const fee = await settleFeeOfWithdrawnEntry(entry.id, { transaction });
+	await recordAudit(
+		{
+			societyId: show.societyId,
+			showId: show.id,
+			actor: { id: exhibitorId },
+			action: 'entry.withdraw',
+			target: { kind: 'entry', id: entry.id, label: `Entry ${entry.number}` },
+			details: {
+				before: { status: 'entered', feeStatus: feeBefore },
+				after: { status: 'withdrawn' },
+				fee
+			}
+		},
+		{ transaction }
+	);
 	return null;
 }

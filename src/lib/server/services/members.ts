@@ -3,6 +3,7 @@ import type { IsoDate } from '../../domain/dates';
 import type { DuesStanding } from '../../domain/dues';
 import { ROLE_LABELS, isRole, type Role } from '../../roles';
 import type { MemberQuery } from '../../schemas/members';
+import { recordAudit, type AuditActor } from '../audit';
 import { Membership, Society, User, sequelize } from '../db';
 import { queueMail } from '../mail/outbox';
 import { invitationMessage } from '../mail/payment-messages';
@@ -195,12 +196,12 @@ export async function inviteMember(
 
 /**
  * Sets a member's roles. Taking a role away needs `confirmed` (the page asks first); the last
- * society admin cannot lose the admin role, so a society is never left without one.
- * Returns the roles taken away and given.
+ * society admin cannot lose the admin role, so a society is never left without one. Every change
+ * is audited in the same transaction. Returns the roles taken away and given.
  */
 export async function changeMemberRoles(
 	input: { societyId: string; userId: string; roles: Role[]; confirmed: boolean },
-	options: { transaction: Transaction }
+	options: { transaction: Transaction; actor: AuditActor }
 ): Promise<{ removed: Role[]; added: Role[]; roles: Role[] }> {
 	const { transaction } = options;
 	const membership = await Membership.findOne({
@@ -233,5 +234,21 @@ export async function changeMemberRoles(
 		}
 	}
 	await membership.update({ roles }, { transaction });
+	if (removed.length || added.length) {
+		const person = await User.findByPk(input.userId, {
+			attributes: ['name', 'email'],
+			transaction
+		});
+		await recordAudit(
+			{
+				societyId: input.societyId,
+				actor: options.actor,
+				action: 'roles.change',
+				target: { kind: 'person', id: input.userId, label: person?.name ?? person?.email ?? '' },
+				details: { before: { roles: before }, after: { roles }, removed, added }
+			},
+			{ transaction }
+		);
+	}
 	return { removed, added, roles };
 }

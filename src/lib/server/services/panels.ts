@@ -1,6 +1,7 @@
 import { QueryTypes, type Transaction } from 'sequelize';
 import { findJudgingConflicts, type JudgingConflict } from '$lib/domain/judging';
-import { Panel, PanelClass, PanelJudge, Show, ShowClass, sequelize } from '../db';
+import { recordAudit, type AuditActor } from '../audit';
+import { Panel, PanelClass, PanelJudge, Show, ShowClass, User, sequelize } from '../db';
 import { Refusal } from './refusal';
 
 /** A person as the panels page shows them to the chair. */
@@ -253,15 +254,38 @@ export async function createPanel(
 	return Panel.create({ showId: show.id, name, clerkId: null }, { transaction });
 }
 
-/** Deletes a panel; its classes become unassigned. Sheets already written stay. */
+/** The name (or address) of a person, for the audit log. */
+async function personLabel(userId: string | null, transaction: Transaction): Promise<string> {
+	if (!userId) return 'nobody';
+	const user = await User.findByPk(userId, { attributes: ['name', 'email'], transaction });
+	return user ? personName(user) : userId;
+}
+
+/** Deletes a panel; its classes become unassigned. Sheets already written stay. Audited. */
 export async function deletePanel(
 	show: Show,
 	panelId: string,
-	options: { transaction: Transaction }
+	options: { transaction: Transaction; actor: AuditActor }
 ): Promise<void> {
+	const { transaction } = options;
 	requireOpen(show);
-	const panel = await panelOfShow(show, panelId, options.transaction);
-	await panel.destroy({ transaction: options.transaction });
+	const panel = await panelOfShow(show, panelId, transaction);
+	const [judges, classes] = await Promise.all([
+		PanelJudge.count({ where: { panelId: panel.id }, transaction }),
+		PanelClass.count({ where: { panelId: panel.id }, transaction })
+	]);
+	await panel.destroy({ transaction });
+	await recordAudit(
+		{
+			societyId: show.societyId,
+			showId: show.id,
+			actor: options.actor,
+			action: 'panel.delete',
+			target: { kind: 'panel', id: panel.id, label: panel.name },
+			details: { before: { name: panel.name, judges, classes, clerkId: panel.clerkId } }
+		},
+		{ transaction }
+	);
 }
 
 /** Adds a judge to a panel, refused when the judge or their household has an entry in its classes. */
@@ -282,27 +306,41 @@ export async function addJudge(
 	await PanelJudge.findOrCreate({ where: { panelId: panel.id, userId }, transaction });
 }
 
-/** Takes a judge off a panel. */
+/** Takes a judge off a panel (audited; a judge who was not on it is refused). */
 export async function removeJudge(
 	show: Show,
 	panelId: string,
 	userId: string,
-	options: { transaction: Transaction }
+	options: { transaction: Transaction; actor: AuditActor }
 ): Promise<void> {
+	const { transaction } = options;
 	requireOpen(show);
-	const panel = await panelOfShow(show, panelId, options.transaction);
-	await PanelJudge.destroy({
-		where: { panelId: panel.id, userId },
-		transaction: options.transaction
-	});
+	const panel = await panelOfShow(show, panelId, transaction);
+	const removed = await PanelJudge.destroy({ where: { panelId: panel.id, userId }, transaction });
+	if (removed === 0) throw new Refusal('That judge is not on this panel.', 404, 'userId');
+	const judge = await personLabel(userId, transaction);
+	await recordAudit(
+		{
+			societyId: show.societyId,
+			showId: show.id,
+			actor: options.actor,
+			action: 'panel.judge_remove',
+			target: { kind: 'panel', id: panel.id, label: `${judge} from ${panel.name}` },
+			details: { before: { judgeId: userId, judge } }
+		},
+		{ transaction }
+	);
 }
 
-/** Sets (or clears) a panel's clerk; the clerk keeps consensus sheets, so the same rule applies. */
+/**
+ * Sets (or clears) a panel's clerk; the clerk keeps consensus sheets, so the same rule applies.
+ * Replacing or removing a clerk is audited.
+ */
 export async function setClerk(
 	show: Show,
 	panelId: string,
 	userId: string | null,
-	options: { transaction: Transaction }
+	options: { transaction: Transaction; actor: AuditActor }
 ): Promise<void> {
 	const { transaction } = options;
 	requireOpen(show);
@@ -314,8 +352,26 @@ export async function setClerk(
 		);
 		await refuseConflicts(show, [userId], classIds, transaction);
 	}
+	const before = panel.clerkId;
 	panel.clerkId = userId;
 	await panel.save({ transaction });
+	if (before && before !== userId) {
+		const [was, now] = [
+			await personLabel(before, transaction),
+			await personLabel(userId, transaction)
+		];
+		await recordAudit(
+			{
+				societyId: show.societyId,
+				showId: show.id,
+				actor: options.actor,
+				action: 'panel.clerk_change',
+				target: { kind: 'panel', id: panel.id, label: panel.name },
+				details: { before: { clerkId: before, clerk: was }, after: { clerkId: userId, clerk: now } }
+			},
+			{ transaction }
+		);
+	}
 }
 
 /**
@@ -326,20 +382,37 @@ export async function assignClass(
 	show: Show,
 	classId: string,
 	panelId: string | null,
-	options: { transaction: Transaction }
+	options: { transaction: Transaction; actor: AuditActor }
 ): Promise<void> {
 	const { transaction } = options;
 	requireOpen(show);
 	const cls = await ShowClass.findOne({ where: { id: classId, showId: show.id }, transaction });
 	if (!cls) throw new Refusal('That class is not part of this show.', 404, 'classId');
-	if (!panelId) {
-		await PanelClass.destroy({ where: { classId }, transaction });
-		return;
+	const current = await PanelClass.findOne({ where: { classId }, transaction });
+	let panel: Panel | null = null;
+	if (panelId) {
+		panel = await panelOfShow(show, panelId, transaction);
+		const judges = await PanelJudge.findAll({ where: { panelId: panel.id }, transaction });
+		const people = [...judges.map((j) => j.userId), ...(panel.clerkId ? [panel.clerkId] : [])];
+		await refuseConflicts(show, people, [classId], transaction);
 	}
-	const panel = await panelOfShow(show, panelId, transaction);
-	const judges = await PanelJudge.findAll({ where: { panelId: panel.id }, transaction });
-	const people = [...judges.map((j) => j.userId), ...(panel.clerkId ? [panel.clerkId] : [])];
-	await refuseConflicts(show, people, [classId], transaction);
 	await PanelClass.destroy({ where: { classId }, transaction });
-	await PanelClass.create({ classId, panelId: panel.id }, { transaction });
+	if (panel) await PanelClass.create({ classId, panelId: panel.id }, { transaction });
+	if (current && current.panelId !== panel?.id) {
+		const was = await Panel.findByPk(current.panelId, { attributes: ['name'], transaction });
+		await recordAudit(
+			{
+				societyId: show.societyId,
+				showId: show.id,
+				actor: options.actor,
+				action: 'panel.class_change',
+				target: { kind: 'class', id: cls.id, label: `${cls.code} ${cls.name}` },
+				details: {
+					before: { panelId: current.panelId, panel: was?.name ?? null },
+					after: { panelId: panel?.id ?? null, panel: panel?.name ?? null }
+				}
+			},
+			{ transaction }
+		);
+	}
 }

@@ -4,7 +4,8 @@ import path from 'node:path';
 import { fileTypeFromBuffer } from 'file-type';
 import sharp from 'sharp';
 import type { Transaction } from 'sequelize';
-import { Entry, EntryPhoto } from '../db';
+import { recordAudit, type AuditActor } from '../audit';
+import { Entry, EntryPhoto, Show } from '../db';
 
 /** Largest photo we accept, in bytes. */
 export const MAX_PHOTO_BYTES = 8 * 1024 * 1024;
@@ -112,11 +113,29 @@ export async function readEntryPhoto(
 	return data ? { photo, entry, data } : null;
 }
 
-/** Removes a photo record (in the transaction) and then its file. */
+/** Removes a photo record and writes the audit record (in the transaction), then its file. */
 export async function deleteEntryPhoto(
 	photo: EntryPhoto,
-	options: { transaction: Transaction }
+	options: { transaction: Transaction; actor: AuditActor }
 ): Promise<void> {
-	await photo.destroy({ transaction: options.transaction });
+	const { transaction } = options;
+	const entry = await Entry.findByPk(photo.entryId, { transaction });
+	const show = entry ? await Show.findByPk(entry.showId, { transaction }) : null;
+	await photo.destroy({ transaction });
+	await recordAudit(
+		{
+			societyId: show?.societyId ?? null,
+			showId: show?.id ?? null,
+			actor: options.actor,
+			action: 'entry_photo.delete',
+			target: {
+				kind: 'entry_photo',
+				id: photo.id,
+				label: entry ? `Photo of entry ${entry.number}` : 'Photo of an entry'
+			},
+			details: { before: { entryId: photo.entryId, width: photo.width, height: photo.height } }
+		},
+		{ transaction }
+	);
 	await rm(path.join(uploadDir(), photo.fileName), { force: true });
 }

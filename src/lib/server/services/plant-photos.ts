@@ -4,6 +4,7 @@ import path from 'node:path';
 import { fileTypeFromBuffer } from 'file-type';
 import sharp from 'sharp';
 import type { Transaction } from 'sequelize';
+import { recordAudit } from '../audit';
 import { Plant, PlantPhoto } from '../db';
 import { PlantInputError } from './plants';
 
@@ -110,7 +111,7 @@ export async function readPlantPhoto(
 	}
 }
 
-/** Deletes a photo of one of the member's plants, row and file. */
+/** Deletes a photo of one of the member's plants, row and file (audited). */
 export async function deletePlantPhoto(
 	ownerId: string,
 	plantId: string,
@@ -124,6 +125,17 @@ export async function deletePlantPhoto(
 	});
 	if (!photo) return false;
 	await photo.destroy({ transaction: options.transaction });
+	// The member's own collection belongs to no society: the record has none.
+	await recordAudit(
+		{
+			societyId: null,
+			actor: { id: ownerId },
+			action: 'plant_photo.delete',
+			target: { kind: 'plant_photo', id: photo.id, label: photo.caption || 'Plant photo' },
+			details: { before: { plantId, caption: photo.caption, byteSize: photo.byteSize } }
+		},
+		{ transaction: options.transaction }
+	);
 	await rm(photoPath(photo.fileName), { force: true });
 	return true;
 }

@@ -1,6 +1,7 @@
 import { QueryTypes, type Transaction } from 'sequelize';
 import type { ObtainedHow, PlantEventKind } from '$lib/domain/readiness';
 import type { PlantEventInput, PlantInput, PotSuckerInput } from '$lib/schemas/plants';
+import { recordAudit } from '../audit';
 import { Plant, PlantEvent, PlantPhoto, Variety, sequelize } from '../db';
 
 /** Bad input that only the database can find out (a variety or parent that is not the member's). */
@@ -305,8 +306,21 @@ export async function setPlantGone(
 	const plant = await ownPlantOr404(ownerId, plantId, options.transaction);
 	if (goneOn === null && plant.goneOn === null)
 		throw new PlantInputError('goneOn', 'This plant is in the collection already.');
+	const before = plant.goneOn;
 	plant.goneOn = goneOn;
 	await plant.save({ transaction: options.transaction });
+	if (goneOn !== null) {
+		await recordAudit(
+			{
+				societyId: null,
+				actor: { id: ownerId },
+				action: 'plant.gone',
+				target: { kind: 'plant', id: plant.id, label: plant.label ?? 'Plant' },
+				details: { before: { goneOn: before }, after: { goneOn } }
+			},
+			{ transaction: options.transaction }
+		);
+	}
 }
 
 /** Writes one event in a plant's log; a repotting with a pot size also sets the plant's pot size. */
@@ -340,19 +354,43 @@ export async function addPlantEvent(
 	return event;
 }
 
-/** Removes one event from the log of one of the member's plants (a mistaken tap). */
+/** Removes one event from the log of one of the member's plants (a mistaken tap); audited. */
 export async function deletePlantEvent(
 	ownerId: string,
 	plantId: string,
 	eventId: string,
 	options: { transaction: Transaction }
 ): Promise<boolean> {
-	await ownPlantOr404(ownerId, plantId, options.transaction);
-	const removed = await PlantEvent.destroy({
-		where: { id: eventId, plantId },
-		transaction: options.transaction
-	});
-	return removed > 0;
+	const { transaction } = options;
+	const plant = await ownPlantOr404(ownerId, plantId, transaction);
+	const event = await PlantEvent.findOne({ where: { id: eventId, plantId }, transaction });
+	if (!event) return false;
+	await event.destroy({ transaction });
+	await recordAudit(
+		{
+			societyId: null,
+			actor: { id: ownerId },
+			action: 'plant_event.delete',
+			target: {
+				kind: 'plant_event',
+				id: event.id,
+				label: `${event.kind} on ${event.happenedOn}, ${plant.label ?? 'plant'}`
+			},
+			details: {
+				before: {
+					plantId,
+					kind: event.kind,
+					happenedOn: event.happenedOn,
+					note: event.note,
+					diameterIn: event.diameterIn,
+					crowns: event.crowns,
+					potSizeIn: event.potSizeIn
+				}
+			}
+		},
+		{ transaction }
+	);
+	return true;
 }
 
 /**

@@ -23,6 +23,7 @@ import { readAwardRules } from '$lib/schemas/award-rules';
 import type { AwardLine, Board, BoardClass } from '$lib/judging/types';
 
 export type { AwardLine, Board, BoardClass };
+import { recordAudit, type AuditActor } from '../audit';
 import { sequelize } from '../db';
 import { Refusal } from './refusal';
 
@@ -371,16 +372,21 @@ export interface PublishOutcome {
  * awards with the engine, stores awards and unresolved ties, and sets results_published_at. From
  * then on scores and awards refuse changes (services and database triggers). Refused when the
  * results are already published, or while entries still wait for scores unless
- * `allowIncomplete` is set. Later work (e-mails to exhibitors) can join the same transaction.
+ * `allowIncomplete` is set. Writes the audit record in the same transaction. Later work (e-mails
+ * to exhibitors) can join the same transaction.
  */
 export async function publishResults(
-	actor: { id: string },
+	actor: AuditActor,
 	showId: string,
 	options: { transaction: Transaction; allowIncomplete?: boolean }
 ): Promise<PublishOutcome> {
 	const { transaction } = options;
-	const [locked] = await sequelize.query<{ published: Date | null }>(
-		'SELECT results_published_at AS published FROM shows WHERE id = :showId FOR UPDATE',
+	const [locked] = await sequelize.query<{
+		published: Date | null;
+		society_id: string;
+		name: string;
+	}>(
+		'SELECT results_published_at AS published, society_id, name FROM shows WHERE id = :showId FOR UPDATE',
 		{ replacements: { showId }, type: QueryTypes.SELECT, transaction }
 	);
 	if (!locked) throw new Refusal('This show does not exist.', 404);
@@ -466,35 +472,28 @@ export async function publishResults(
 		'UPDATE shows SET results_published_at = now(), updated_at = now() WHERE id = :showId RETURNING results_published_at',
 		{ replacements: { showId }, transaction }
 	)) as unknown as [{ results_published_at: Date }[]];
+	// Publishing cannot be taken back (scores lock): the audit log keeps who did it and how.
+	await recordAudit(
+		{
+			societyId: locked.society_id,
+			showId,
+			actor,
+			action: 'results.publish',
+			target: { kind: 'show', id: showId, label: locked.name },
+			details: {
+				awards: result.awards.length,
+				ties: result.ties.length,
+				withoutScore: waiting.length,
+				allowIncomplete: Boolean(options.allowIncomplete)
+			}
+		},
+		{ transaction }
+	);
 	return {
 		publishedAt: row.results_published_at,
 		awards: result.awards.length,
 		ties: result.ties.length
 	};
-}
-
-/** The latest score changes of a show, newest first (the audit log). */
-export async function listScoreAudit(showId: string, limit = 100) {
-	const rows = await sequelize.query<{
-		at: Date;
-		actor_email: string;
-		number: number;
-		before: { total: number } | null;
-		after: { total: number; notJudged: unknown };
-	}>(
-		`SELECT a.at, a.actor_email, e.number, a.before, a.after
-		   FROM score_audit a JOIN entries e ON e.id = a.entry_id
-		  WHERE a.show_id = :showId ORDER BY a.at DESC, a.id DESC LIMIT :limit`,
-		{ replacements: { showId, limit }, type: QueryTypes.SELECT }
-	);
-	return rows.map((r) => ({
-		at: r.at.toISOString(),
-		who: r.actor_email,
-		entryNumber: r.number,
-		before: r.before ? r.before.total : null,
-		after: r.after.total,
-		notJudged: r.after.notJudged !== null
-	}));
 }
 
 /** The award rules page: the show's rules, its classes and the criteria a tie-break may name. */

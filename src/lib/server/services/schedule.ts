@@ -3,6 +3,7 @@ import { DEFAULT_AWARD_RULES, validateAwardRules, type AwardRules } from '$lib/d
 import type { ClassRules, SizeClass } from '$lib/domain/eligibility';
 import type { ClassDescribed } from '$lib/schedule-text';
 import type { ClassInput, DivisionInput, ShowSettingsInput } from '$lib/schemas/show';
+import { recordAudit, type AuditActor } from '../audit';
 import { Division, Entry, Scale, Show, ShowClass } from '../db';
 
 /** A class of the schedule as pages and PDFs show it. */
@@ -192,16 +193,31 @@ export async function updateShowSettings(
 	);
 }
 
-/** Publishes (or withdraws) the schedule, making the public schedule page visible. */
+/**
+ * Publishes (or withdraws) the schedule, making the public schedule page visible. Hiding a
+ * published schedule is recorded in the audit log.
+ */
 export async function setSchedulePublished(
 	show: Show,
 	published: boolean,
-	options: { transaction: Transaction }
+	options: { transaction: Transaction; actor: AuditActor }
 ): Promise<void> {
-	await show.update(
-		{ schedulePublishedAt: published ? new Date() : null },
-		{ transaction: options.transaction }
-	);
+	const { transaction } = options;
+	const wasPublished = show.schedulePublishedAt;
+	await show.update({ schedulePublishedAt: published ? new Date() : null }, { transaction });
+	if (!published && wasPublished) {
+		await recordAudit(
+			{
+				societyId: show.societyId,
+				showId: show.id,
+				actor: options.actor,
+				action: 'schedule.unpublish',
+				target: { kind: 'show', id: show.id, label: show.name },
+				details: { before: { publishedAt: wasPublished.toISOString() } }
+			},
+			{ transaction }
+		);
+	}
 }
 
 async function nextPosition(
@@ -249,12 +265,15 @@ export async function saveDivision(
 
 /** Removes a division with no entries in any of its classes (its classes go with it). */
 export async function deleteDivision(
-	showId: string,
+	show: Show,
 	divisionId: string,
-	options: { transaction: Transaction }
+	options: { transaction: Transaction; actor: AuditActor }
 ): Promise<void> {
 	const { transaction } = options;
-	const division = await Division.findOne({ where: { id: divisionId, showId }, transaction });
+	const division = await Division.findOne({
+		where: { id: divisionId, showId: show.id },
+		transaction
+	});
 	if (!division) throw new ScheduleProblem('That division is not part of this show.');
 	const classIds = (
 		await ShowClass.findAll({ where: { divisionId }, attributes: ['id'], transaction })
@@ -266,6 +285,17 @@ export async function deleteDivision(
 	}
 	await ShowClass.destroy({ where: { divisionId }, transaction });
 	await division.destroy({ transaction });
+	await recordAudit(
+		{
+			societyId: show.societyId,
+			showId: show.id,
+			actor: options.actor,
+			action: 'division.delete',
+			target: { kind: 'division', id: division.id, label: `${division.code} ${division.name}` },
+			details: { before: { code: division.code, name: division.name, classes: classIds.length } }
+		},
+		{ transaction }
+	);
 }
 
 function classValues(input: ClassInput) {
@@ -325,15 +355,29 @@ export async function saveClass(
 
 /** Removes a class that has no entries. */
 export async function deleteClass(
-	showId: string,
+	show: Show,
 	classId: string,
-	options: { transaction: Transaction }
+	options: { transaction: Transaction; actor: AuditActor }
 ): Promise<void> {
 	const { transaction } = options;
-	const existing = await ShowClass.findOne({ where: { id: classId, showId }, transaction });
+	const existing = await ShowClass.findOne({
+		where: { id: classId, showId: show.id },
+		transaction
+	});
 	if (!existing) throw new ScheduleProblem('That class is not part of this show.');
 	if ((await Entry.count({ where: { classId }, transaction })) > 0) {
 		throw new ScheduleProblem('This class has entries; move or withdraw them before removing it.');
 	}
 	await existing.destroy({ transaction });
+	await recordAudit(
+		{
+			societyId: show.societyId,
+			showId: show.id,
+			actor: options.actor,
+			action: 'class.delete',
+			target: { kind: 'class', id: existing.id, label: `${existing.code} ${existing.name}` },
+			details: { before: { code: existing.code, name: existing.name } }
+		},
+		{ transaction }
+	);
 }

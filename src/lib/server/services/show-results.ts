@@ -8,6 +8,7 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import type { Award } from '$lib/domain/awards';
 import { assembleResults, publicResults, type ResultsSource } from '$lib/results/assemble';
 import type { ShowResults } from '$lib/results/types';
+import type { AuditActor } from '../audit';
 import { sequelize } from '../db';
 import { mailProgress, queueMail, resendMail, type MailProgress } from '../mail/outbox';
 import { buildResultsMessage } from '../mail/results-message';
@@ -280,7 +281,7 @@ export async function queueResultsMail(
  * if either fails, neither happens.
  */
 export async function publishResultsAndTell(
-	actor: { id: string },
+	actor: AuditActor,
 	showId: string,
 	options: { transaction: Transaction; origin: string; allowIncomplete?: boolean }
 ): Promise<PublishOutcome & { queued: number }> {

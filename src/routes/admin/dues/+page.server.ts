@@ -4,6 +4,7 @@ import { CURRENCIES } from '$lib/domain/money';
 import { ENTRY_FEE_REFUND_LABELS, ENTRY_FEE_REFUNDS } from '$lib/domain/dues';
 import { currencySchema, duesPeriodSchema, showFeeSchema } from '$lib/schemas/payments';
 import { Society, sequelize } from '$lib/server/db';
+import { requireConfirmation } from '$lib/server/confirm';
 import { requireRole } from '$lib/server/policies';
 import * as dues from '$lib/server/services/dues';
 import { chooseSociety } from '$lib/server/society-choice';
@@ -35,7 +36,7 @@ async function read<T extends { societyId: string }>(
 	schema: z.ZodType<T>,
 	fields: string[]
 ): Promise<
-	| { ok: true; data: T }
+	| { ok: true; data: T; form: FormData }
 	| { ok: false; errors: Record<string, string[] | undefined>; raw: Record<string, unknown> }
 > {
 	const form = await event.request.formData();
@@ -49,7 +50,7 @@ async function read<T extends { societyId: string }>(
 		};
 	}
 	requireRole(event, ['admin'], parsed.data.societyId);
-	return { ok: true, data: parsed.data };
+	return { ok: true, data: parsed.data, form };
 }
 
 export const actions: Actions = {
@@ -72,8 +73,11 @@ export const actions: Actions = {
 			'periodId'
 		]);
 		if (!r.ok) return fail(400, { remove: { message: 'Choose a period from the list.' } });
+		const unconfirmed = requireConfirmation(event, r.form, 'Remove this dues period?');
+		if (unconfirmed) return unconfirmed;
+		const actor = requireRole(event, ['admin'], r.data.societyId);
 		const removed = await sequelize.transaction((transaction) =>
-			dues.removeDuesPeriod(r.data, { transaction })
+			dues.removeDuesPeriod(r.data, { transaction, actor })
 		);
 		if (!removed) {
 			return fail(400, {

@@ -75,10 +75,13 @@ export const actions: Actions = {
 				roles: { message: 'Choose roles from the list and try again.', saved: null }
 			});
 		}
-		requireRole(event, ['admin'], parsed.data.societyId);
+		const actor = requireRole(event, ['admin'], parsed.data.societyId);
 		try {
 			const result = await sequelize.transaction((transaction) =>
-				changeMemberRoles({ ...parsed.data, confirmed: parsed.data.confirm }, { transaction })
+				changeMemberRoles(
+					{ ...parsed.data, confirmed: parsed.data.confirm },
+					{ transaction, actor }
+				)
 			);
 			const label = (roles: typeof result.roles) =>
 				roles.map((r) => ROLE_LABELS[r]).join(', ') || 'no role';

@@ -1,6 +1,7 @@
 import { fail } from '@sveltejs/kit';
 import { showSettingsSchema } from '$lib/schemas/show';
 import { sequelize } from '$lib/server/db';
+import { requireConfirmation } from '$lib/server/confirm';
 import { fieldErrors, textFields } from '$lib/server/forms';
 import { requireShowRole } from '$lib/server/policies/show';
 import {
@@ -64,15 +65,19 @@ export const actions: Actions = {
 		return { saved: 'The show’s dates and rules are saved.' };
 	},
 	publish: async (event) => {
-		const { show } = await requireShowRole(event, event.params.slug, ['chair']);
+		const { show, user } = await requireShowRole(event, event.params.slug, ['chair']);
 		const form = await event.request.formData();
 		const choice = form.get('published');
 		if (choice !== 'yes' && choice !== 'no') {
 			return fail(400, { message: 'Choose whether the schedule is public.' });
 		}
 		const published = choice === 'yes';
+		if (!published && show.schedulePublishedAt) {
+			const unconfirmed = requireConfirmation(event, form, 'Hide the schedule from the public?');
+			if (unconfirmed) return unconfirmed;
+		}
 		await sequelize.transaction((transaction) =>
-			setSchedulePublished(show, published, { transaction })
+			setSchedulePublished(show, published, { transaction, actor: user })
 		);
 		return {
 			saved: published

@@ -1,6 +1,7 @@
 import { error, fail, type RequestEvent } from '@sveltejs/kit';
 import { z } from 'zod';
 import { Entry, EntryPhoto, Show, ShowClass, Variety, sequelize } from '$lib/server/db';
+import { requireConfirmation } from '$lib/server/confirm';
 import { requireRole } from '$lib/server/policies';
 import {
 	MAX_PHOTO_BYTES,
@@ -63,12 +64,18 @@ export const actions: Actions = {
 	},
 	deletePhoto: async (event) => {
 		const entry = await ownEntry(event, event.params.id);
-		const id = z.uuid().safeParse((await event.request.formData()).get('photoId'));
+		const user = requireRole(event, ['member']);
+		const form = await event.request.formData();
+		const id = z.uuid().safeParse(form.get('photoId'));
 		const photo = id.success
 			? await EntryPhoto.findOne({ where: { id: id.data, entryId: entry.id } })
 			: null;
 		if (!photo) return fail(400, { message: 'That photo is not part of this entry.' });
-		await sequelize.transaction((transaction) => deleteEntryPhoto(photo, { transaction }));
+		const unconfirmed = requireConfirmation(event, form, 'Remove this photo from the entry?');
+		if (unconfirmed) return unconfirmed;
+		await sequelize.transaction((transaction) =>
+			deleteEntryPhoto(photo, { transaction, actor: user })
+		);
 		return { saved: 'The photo is removed.' };
 	}
 };

@@ -9,6 +9,7 @@ import {
 	potSuckerSchema,
 	todayIso
 } from '$lib/schemas/plants';
+import { requireConfirmation } from '$lib/server/confirm';
 import { sequelize } from '$lib/server/db';
 import { fieldErrors, memberAndId } from '$lib/server/plant-route';
 import { addPlantPhoto, deletePlantPhoto } from '$lib/server/services/plant-photos';
@@ -73,8 +74,11 @@ export const actions: Actions = {
 		});
 	},
 	deleteEvent: async (event) => {
-		const parsed = idField.safeParse({ id: (await event.request.formData()).get('id') });
+		const form = await event.request.formData();
+		const parsed = idField.safeParse({ id: form.get('id') });
 		if (!parsed.success) return fail(400, { action: 'events', message: 'Choose a log line.' });
+		const unconfirmed = requireConfirmation(event, form, 'Remove this line from the log?');
+		if (unconfirmed) return unconfirmed;
 		return write(event, 'events', async (owner, plantId, transaction) => {
 			const removed = await deletePlantEvent(owner, plantId, parsed.data.id, { transaction });
 			if (!removed) throw new PlantInputError('id', 'That log line is not in this plant’s log.');
@@ -109,8 +113,11 @@ export const actions: Actions = {
 		});
 	},
 	deletePhoto: async (event) => {
-		const parsed = idField.safeParse({ id: (await event.request.formData()).get('id') });
+		const form = await event.request.formData();
+		const parsed = idField.safeParse({ id: form.get('id') });
 		if (!parsed.success) return fail(400, { action: 'photo', message: 'Choose a photo.' });
+		const unconfirmed = requireConfirmation(event, form, 'Delete this photo?');
+		if (unconfirmed) return unconfirmed;
 		return write(event, 'photo', async (owner, plantId, transaction) => {
 			const removed = await deletePlantPhoto(owner, plantId, parsed.data.id, { transaction });
 			if (!removed) throw new PlantInputError('id', 'That photo is not among this plant’s photos.');
@@ -118,7 +125,8 @@ export const actions: Actions = {
 		});
 	},
 	gone: async (event) => {
-		const values = (await event.request.formData()).getAll('goneOn');
+		const form = await event.request.formData();
+		const values = form.getAll('goneOn');
 		const goneOn = values[0] ? String(values[0]) : null;
 		// The form always sends one goneOn: a date (no longer grown) or empty (back again).
 		const realDate =
@@ -128,6 +136,14 @@ export const actions: Actions = {
 			compareIsoDates(goneOn, addCalendarDays(todayIso(), 1)) <= 0;
 		if (values.length !== 1 || (goneOn !== null && !realDate)) {
 			return fail(400, { action: 'gone', message: 'Give the date as a real date.' });
+		}
+		if (goneOn) {
+			const unconfirmed = requireConfirmation(
+				event,
+				form,
+				'Take this plant out of the collection?'
+			);
+			if (unconfirmed) return unconfirmed;
 		}
 		return write(event, 'gone', async (owner, plantId, transaction) => {
 			await setPlantGone(owner, plantId, goneOn, { transaction });

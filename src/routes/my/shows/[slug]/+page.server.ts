@@ -2,6 +2,7 @@ import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { entryRequestSchema } from '$lib/schemas/entry';
 import { sequelize } from '$lib/server/db';
+import { requireConfirmation } from '$lib/server/confirm';
 import { fieldErrors, textFields } from '$lib/server/forms';
 import { requireShowRole } from '$lib/server/policies/show';
 import {
@@ -77,8 +78,11 @@ export const actions: Actions = {
 	},
 	withdraw: async (event) => {
 		const { user } = await requireShowRole(event, event.params.slug, ['member']);
-		const id = z.uuid().safeParse((await event.request.formData()).get('entryId'));
+		const form = await event.request.formData();
+		const id = z.uuid().safeParse(form.get('entryId'));
 		if (!id.success) return fail(400, { message: 'Say which entry to withdraw.' });
+		const unconfirmed = requireConfirmation(event, form, 'Withdraw this entry from the show?');
+		if (unconfirmed) return unconfirmed;
 		const problem = await sequelize.transaction((transaction) =>
 			withdrawEntry(user.id, id.data, { transaction })
 		);

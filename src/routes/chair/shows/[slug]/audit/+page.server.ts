@@ -1,11 +1,21 @@
-import { listScoreAudit } from '$lib/server/services/results';
+import { listAuditLog } from '$lib/server/audit';
+import { readAuditQuery } from '$lib/schemas/audit';
 import { requireShowRole } from '$lib/server/services/show-access';
 import type { PageServerLoad } from './$types';
 
+/** The show's audit log for its chair: score changes and every destructive action. */
 export const load: PageServerLoad = async (event) => {
 	const { show } = await requireShowRole(event, event.params.slug, ['chair']);
-	return {
-		show: { name: show.name, slug: show.slug },
-		changes: await listScoreAudit(show.id, 200)
-	};
+	const { query, ignored } = readAuditQuery(event.url.searchParams);
+	const log = await listAuditLog(
+		{ showId: show.id },
+		{
+			action: query.action,
+			personId: query.person,
+			from: query.from,
+			to: query.to,
+			page: query.page
+		}
+	);
+	return { show: { name: show.name, slug: show.slug }, query, ignored, log };
 };

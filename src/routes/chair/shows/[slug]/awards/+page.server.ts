@@ -1,4 +1,5 @@
 import { fail } from '@sveltejs/kit';
+import { requireConfirmation } from '$lib/server/confirm';
 import { sequelize } from '$lib/server/db';
 import { isRefusal } from '$lib/server/services/refusal';
 import {
@@ -37,6 +38,12 @@ export const actions: Actions = {
 		const { show, user } = await requireShowRole(event, event.params.slug, ['chair']);
 		const form = await event.request.formData();
 		const allowIncomplete = form.get('allowIncomplete') === 'on';
+		const unconfirmed = requireConfirmation(
+			event,
+			form,
+			'Publish the results? Scores lock and every exhibitor is told.'
+		);
+		if (unconfirmed) return unconfirmed;
 		try {
 			const outcome = await sequelize.transaction((transaction) =>
 				publishResultsAndTell(user, show.id, {

@@ -5,7 +5,9 @@ import {
 	panelPersonSchema
 } from '$lib/schemas/judging';
 import { z } from 'zod';
-import { sequelize } from '$lib/server/db';
+import type { Transaction } from 'sequelize';
+import { Panel, PanelClass, sequelize } from '$lib/server/db';
+import { requireConfirmation } from '$lib/server/confirm';
 import { runFormAction } from '$lib/server/services/form-actions';
 import {
 	addJudge,
@@ -27,19 +29,31 @@ export const load: PageServerLoad = async (event) => {
 	};
 };
 
-/** Every action: chair of the show's society, zod-checked input, one transaction. */
+type ShowOf = Awaited<ReturnType<typeof requireShowRole>>['show'];
+
+/**
+ * Every action: chair of the show's society, zod-checked input, one transaction. `ask` names the
+ * question when the change takes someone or something away: then the form must carry confirm=yes.
+ */
 function action<S extends z.ZodType>(
 	schema: S,
 	work: (
-		show: Awaited<ReturnType<typeof requireShowRole>>['show'],
+		show: ShowOf,
 		input: z.infer<S>,
-		transaction: import('sequelize').Transaction
-	) => Promise<string>
+		transaction: Transaction,
+		actor: App.SignedInUser
+	) => Promise<string>,
+	ask?: (show: ShowOf, input: z.infer<S>) => Promise<string | null>
 ) {
 	return async (event: Parameters<Actions[string]>[0]) => {
-		const { show } = await requireShowRole(event, event.params.slug as string, ['chair']);
-		return runFormAction(await event.request.formData(), schema, (input) =>
-			sequelize.transaction((transaction) => work(show, input, transaction))
+		const { show, user } = await requireShowRole(event, event.params.slug as string, ['chair']);
+		const form = await event.request.formData();
+		const parsed = schema.safeParse(Object.fromEntries(form));
+		const question = parsed.success && ask ? await ask(show, parsed.data) : null;
+		const unconfirmed = question ? requireConfirmation(event, form, question) : null;
+		if (unconfirmed) return unconfirmed;
+		return runFormAction(form, schema, (input) =>
+			sequelize.transaction((transaction) => work(show, input, transaction, user))
 		);
 	};
 }
@@ -49,24 +63,53 @@ export const actions: Actions = {
 		await createPanel(show, input.name, { transaction });
 		return `${input.name} added.`;
 	}),
-	deletePanel: action(z.object({ panelId: z.uuid('Choose a panel.') }), async (show, input, t) => {
-		await deletePanel(show, input.panelId, { transaction: t });
-		return 'Panel removed.';
-	}),
+	deletePanel: action(
+		z.object({ panelId: z.uuid('Choose a panel.') }),
+		async (show, input, transaction, actor) => {
+			await deletePanel(show, input.panelId, { transaction, actor });
+			return 'Panel removed.';
+		},
+		async () => 'Remove this panel? Its classes will have no panel.'
+	),
 	addJudge: action(panelPersonSchema, async (show, input, transaction) => {
 		await addJudge(show, input.panelId, input.userId, { transaction });
 		return 'Judge added.';
 	}),
-	removeJudge: action(panelPersonSchema, async (show, input, transaction) => {
-		await removeJudge(show, input.panelId, input.userId, { transaction });
-		return 'Judge taken off the panel.';
-	}),
-	setClerk: action(panelClerkSchema, async (show, input, transaction) => {
-		await setClerk(show, input.panelId, input.userId || null, { transaction });
-		return input.userId ? 'Clerk set.' : 'Clerk removed.';
-	}),
-	assignClass: action(panelClassSchema, async (show, input, transaction) => {
-		await assignClass(show, input.classId, input.panelId || null, { transaction });
-		return input.panelId ? 'Class assigned.' : 'Class taken off its panel.';
-	})
+	removeJudge: action(
+		panelPersonSchema,
+		async (show, input, transaction, actor) => {
+			await removeJudge(show, input.panelId, input.userId, { transaction, actor });
+			return 'Judge taken off the panel.';
+		},
+		async () => 'Take this judge off the panel?'
+	),
+	setClerk: action(
+		panelClerkSchema,
+		async (show, input, transaction, actor) => {
+			await setClerk(show, input.panelId, input.userId || null, { transaction, actor });
+			return input.userId ? 'Clerk set.' : 'Clerk removed.';
+		},
+		async (show, input) => {
+			const panel = await Panel.findOne({ where: { id: input.panelId, showId: show.id } });
+			return panel?.clerkId && panel.clerkId !== (input.userId || null)
+				? 'Replace or remove the clerk of this panel?'
+				: null;
+		}
+	),
+	assignClass: action(
+		panelClassSchema,
+		async (show, input, transaction, actor) => {
+			await assignClass(show, input.classId, input.panelId || null, { transaction, actor });
+			return input.panelId ? 'Class assigned.' : 'Class taken off its panel.';
+		},
+		async (show, input) => {
+			const current = await PanelClass.findOne({ where: { classId: input.classId } });
+			const ofShow = current
+				? await Panel.count({ where: { id: current.panelId, showId: show.id } })
+				: 0;
+			return ofShow && current!.panelId !== (input.panelId || null)
+				? 'Take this class off its panel?'
+				: null;
+		}
+	)
 };

@@ -2,6 +2,7 @@ import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { classSchema, divisionSchema } from '$lib/schemas/show';
 import { sequelize } from '$lib/server/db';
+import { requireConfirmation } from '$lib/server/confirm';
 import { fieldErrors, textFields } from '$lib/server/forms';
 import { requireShowRole } from '$lib/server/policies/show';
 import {
@@ -78,10 +79,13 @@ export const actions: Actions = {
 		return failed ?? { saved: `Division ${parsed.data.code} is saved.` };
 	},
 	deleteDivision: async (event) => {
-		const { show } = await requireShowRole(event, event.params.slug, ['chair']);
-		const id = optionalId.parse((await event.request.formData()).get('id'));
+		const { show, user } = await requireShowRole(event, event.params.slug, ['chair']);
+		const form = await event.request.formData();
+		const id = optionalId.parse(form.get('id'));
 		if (!id) return fail(400, { message: 'Say which division to remove.' });
-		const failed = await attempt((t) => deleteDivision(show.id, id, { transaction: t }));
+		const unconfirmed = requireConfirmation(event, form, 'Remove this division and its classes?');
+		if (unconfirmed) return unconfirmed;
+		const failed = await attempt((t) => deleteDivision(show, id, { transaction: t, actor: user }));
 		return failed ?? { saved: 'The division is removed.' };
 	},
 	saveClass: async (event) => {
@@ -107,10 +111,13 @@ export const actions: Actions = {
 		return failed ?? { saved: `Class ${parsed.data.code} is saved.` };
 	},
 	deleteClass: async (event) => {
-		const { show } = await requireShowRole(event, event.params.slug, ['chair']);
-		const id = optionalId.parse((await event.request.formData()).get('id'));
+		const { show, user } = await requireShowRole(event, event.params.slug, ['chair']);
+		const form = await event.request.formData();
+		const id = optionalId.parse(form.get('id'));
 		if (!id) return fail(400, { message: 'Say which class to remove.' });
-		const failed = await attempt((t) => deleteClass(show.id, id, { transaction: t }));
+		const unconfirmed = requireConfirmation(event, form, 'Remove this class from the schedule?');
+		if (unconfirmed) return unconfirmed;
+		const failed = await attempt((t) => deleteClass(show, id, { transaction: t, actor: user }));
 		return failed ?? { saved: 'The class is removed.' };
 	}
 };

@@ -1,6 +1,7 @@
 import { error, fail } from '@sveltejs/kit';
 import { checkInSchema, moveSchema, scratchSchema } from '$lib/schemas/desk';
 import { sequelize } from '$lib/server/db';
+import { requireConfirmation } from '$lib/server/confirm';
 import { fieldErrors, textFields } from '$lib/server/forms';
 import { requireShowRole } from '$lib/server/policies/show';
 import {
@@ -61,31 +62,40 @@ export const actions: Actions = {
 		return failed ?? { saved: `Entry ${entry.number} is checked in.` };
 	},
 	move: async (event) => {
-		const { show, entry } = await deskEntry(event);
-		const parsed = moveSchema.safeParse({
-			classId: (await event.request.formData()).get('classId')
-		});
+		const { show, user, entry } = await deskEntry(event);
+		const form = await event.request.formData();
+		const parsed = moveSchema.safeParse({ classId: form.get('classId') });
 		if (!parsed.success) return fail(400, { message: 'Choose one of the proposed classes.' });
+		const unconfirmed = requireConfirmation(
+			event,
+			form,
+			`Move entry ${entry.number} to another class?`
+		);
+		if (unconfirmed) return unconfirmed;
 		let label = '';
 		const failed = await attempt(async (t) => {
-			const target = await moveEntry(show, entry.id, parsed.data.classId, { transaction: t });
+			const target = await moveEntry(show, entry.id, parsed.data.classId, {
+				transaction: t,
+				actor: user
+			});
 			label = `${target.code} ${target.name}`;
 		});
 		return failed ?? { saved: `Entry ${entry.number} is moved to class ${label}.` };
 	},
 	scratch: async (event) => {
-		const { show, entry } = await deskEntry(event);
-		const parsed = scratchSchema.safeParse({
-			reason: (await event.request.formData()).get('reason') ?? ''
-		});
+		const { show, user, entry } = await deskEntry(event);
+		const form = await event.request.formData();
+		const parsed = scratchSchema.safeParse({ reason: form.get('reason') ?? '' });
 		if (!parsed.success) {
 			return fail(400, {
 				message: 'Say briefly why the entry is scratched.',
 				errors: fieldErrors(parsed.error)
 			});
 		}
+		const unconfirmed = requireConfirmation(event, form, `Scratch entry ${entry.number}?`);
+		if (unconfirmed) return unconfirmed;
 		const failed = await attempt((t) =>
-			scratchEntry(show, entry.id, parsed.data.reason, { transaction: t })
+			scratchEntry(show, entry.id, parsed.data.reason, { transaction: t, actor: user })
 		);
 		return failed ?? { saved: `Entry ${entry.number} is scratched.` };
 	}
