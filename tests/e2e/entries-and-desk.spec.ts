@@ -265,7 +265,8 @@ test('the chair sets up the show; the public schedule, its PDF and the entries t
 	);
 	await page.getByLabel('Status').selectOption('checked_in');
 	await expect(page.getByText(/entries?; page 1 of 1\./)).toBeVisible();
-	await expect(page.getByRole('cell', { name: 'entered', exact: true })).toHaveCount(0);
+	await expect(page.getByRole('cell', { name: 'Checked in', exact: true }).first()).toBeVisible();
+	await expect(page.getByRole('cell', { name: 'Entered', exact: true })).toHaveCount(0);
 	await expectAccessible(page);
 	const csv = await page.request.get(
 		`/api/desk/shows/${slug}/entries?format=csv&status=checked_in`
