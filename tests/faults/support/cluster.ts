@@ -7,6 +7,9 @@ const run = promisify(execFile);
 /** The project folder (tests/faults/support is three levels down). */
 export const projectDir = path.resolve(import.meta.dirname, '../../..');
 
+/** Where the fault tests keep their cluster (unless CB_FAULT_DB_DIR says otherwise) and logs. */
+export const faultsDir = path.join(projectDir, '.data/faults');
+
 /** The shared cluster of the test command and the demo: fault tests never stop or restart it. */
 const SHARED_PORT = 54329;
 

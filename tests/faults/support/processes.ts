@@ -1,7 +1,7 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { closeSync, existsSync, mkdirSync, openSync, readFileSync } from 'node:fs';
 import path from 'node:path';
-import { projectDir } from './cluster';
+import { faultsDir, projectDir } from './cluster';
 import { GiveUp, waitFor } from './wait';
 
 /** A process started by a fault test, with a promise that settles when it ends. */
@@ -16,8 +16,8 @@ export interface Started {
 }
 
 function startProcess(name: string, args: string[], env: NodeJS.ProcessEnv): Started {
-	mkdirSync(path.join(projectDir, '.data'), { recursive: true });
-	const logFile = path.join(projectDir, '.data', `faults-${name}.log`);
+	mkdirSync(faultsDir, { recursive: true });
+	const logFile = path.join(faultsDir, `${name}.log`);
 	const log = openSync(logFile, 'a');
 	const child = spawn(process.execPath, args, {
 		cwd: projectDir,
@@ -103,7 +103,7 @@ export async function startSmtpFake(options: {
 	httpPort: number;
 }): Promise<Started & { url: string }> {
 	const url = `http://127.0.0.1:${options.httpPort}`;
-	const fake = startProcess(`smtp-${options.smtpPort}`, ['scripts/smtp-fake.js'], {
+	const fake = startProcess('smtp-fake', ['scripts/smtp-fake.js'], {
 		...process.env,
 		SMTP_FAKE_PORT: String(options.smtpPort),
 		SMTP_FAKE_HTTP_PORT: String(options.httpPort)
