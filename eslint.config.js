@@ -31,7 +31,6 @@ export default ts.config(
 					allowDefaultProject: [
 						'playwright.config.ts',
 						'vitest.integration.config.ts',
-						'vitest.faults.config.ts',
 						'scripts/*.ts',
 						'scripts/bench/*.ts'
 					]

@@ -28,7 +28,7 @@ describe('isDatabaseDown', () => {
 			'connection lost under a query',
 			new DatabaseError(pgError('Connection terminated unexpectedly'))
 		],
-		['connection reset', pgError('read ECONNRESET', 'ECONNRESET')]
+		['connection reset under a query', new DatabaseError(pgError('read ECONNRESET', 'ECONNRESET'))]
 	])('%s: yes', (_name, error) => {
 		expect(isDatabaseDown(error)).toBe(true);
 	});
@@ -40,6 +40,7 @@ describe('isDatabaseDown', () => {
 		],
 		['a syntax error (42601)', new DatabaseError(pgError('syntax error', '42601'))],
 		['an error of our own', new Error('Something else')],
+		['a connection reset by another server (mail, say)', pgError('read ECONNRESET', 'ECONNRESET')],
 		['nothing', null]
 	])('%s: no', (_name, error) => {
 		expect(isDatabaseDown(error)).toBe(false);
