@@ -34,6 +34,8 @@ let chairCookie = '';
 let smtpPorts: { smtpPort: number; httpPort: number };
 let smtp: (Started & { url: string }) | undefined;
 let app: (Started & { origin: string }) | undefined;
+/** Every app process started here, so that a failed test leaves none running. */
+const apps: Started[] = [];
 
 /** The outbox settings of the app under test: a quick worker, and retries far apart so that the
  * test, not the clock, decides when a waiting message is tried again. */
@@ -72,13 +74,15 @@ async function publish(origin: string): Promise<{ status: number; body: string }
 }
 
 async function startApp(name: string): Promise<Started & { origin: string }> {
-	return startBuiltApp({
+	const started = await startBuiltApp({
 		name,
 		port: await freePort(),
 		databaseUrl: cluster.databaseUrl,
 		smtpPort: smtpPorts.smtpPort,
 		env: OUTBOX_ENV
 	});
+	apps.push(started);
+	return started;
 }
 
 beforeAll(async () => {
@@ -102,7 +106,7 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-	if (app) await stopProcess(app);
+	for (const started of apps) await stopProcess(started);
 	if (smtp) await stopProcess(smtp);
 	await db?.end();
 });

@@ -61,6 +61,19 @@ async function answers(url: string): Promise<boolean> {
 	}
 }
 
+/** Waits until a started process answers at a URL; stops it when it never does. */
+async function waitUntilAnswering(started: Started, url: string): Promise<void> {
+	try {
+		await waitFor(`${started.name} to answer at ${url}`, async () => {
+			if (!started.running()) throw new GiveUp(`${started.name} ended:\n${logTail(started)}`);
+			return answers(url);
+		});
+	} catch (error) {
+		await stopProcess(started, 'SIGKILL');
+		throw error;
+	}
+}
+
 /**
  * Starts the built app (adapter-node, `node build`) as the test command's browser step does,
  * against the given database and SMTP server, and waits until it answers.
@@ -90,10 +103,7 @@ export async function startBuiltApp(options: {
 		CB_DEV_MAIL_URL: '',
 		...options.env
 	});
-	await waitFor(`the app on ${origin}`, async () => {
-		if (!app.running()) throw new GiveUp(`the app ended:\n${logTail(app)}`);
-		return answers(`${origin}/`);
-	});
+	await waitUntilAnswering(app, `${origin}/`);
 	return { ...app, origin };
 }
 
@@ -108,9 +118,6 @@ export async function startSmtpFake(options: {
 		SMTP_FAKE_PORT: String(options.smtpPort),
 		SMTP_FAKE_HTTP_PORT: String(options.httpPort)
 	});
-	await waitFor(`the SMTP fake on ${url}`, async () => {
-		if (!fake.running()) throw new GiveUp(`the SMTP fake ended:\n${logTail(fake)}`);
-		return answers(`${url}/health`);
-	});
+	await waitUntilAnswering(fake, `${url}/health`);
 	return { ...fake, url };
 }
