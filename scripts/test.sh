@@ -84,6 +84,10 @@ step "unit tests (vitest)" npx vitest run
 step "integration tests (vitest + PostgreSQL)" env DATABASE_URL="$(./docker-less-db.sh url "$test_db")" \
 	npx vitest run --config vitest.integration.config.ts
 step "build (vite)" npx vite build --logLevel warn
+# Faults (tests/faults): the built app against a private PostgreSQL cluster that the tests stop and
+# restart (never the one above), with an SMTP fake of their own that they stop.
+step "fault tests (built app, database restart, SMTP down, killed publish)" \
+	npx vitest run --config tests/faults/vitest.config.ts
 step "browser tests (playwright + chromium)" e2e
 
 echo

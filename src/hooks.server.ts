@@ -71,7 +71,31 @@ const headersHandle: Handle = async ({ event, resolve }) => {
 	return response;
 };
 
+/** Requests (their locals) whose error was the database being out of reach, marked by handleError. */
+const databaseDownRequests = new WeakSet<object>();
+
+/**
+ * While PostgreSQL is out of reach (stopped, restarting), answers 503 with the message instead of
+ * 500: the tablet's queue and other clients try again later. Connections the pool lost are
+ * dropped by Sequelize, so the next request after the database is back just works.
+ */
+const databaseDownHandle: Handle = async ({ event, resolve }) => {
+	let response: Response;
+	try {
+		response = await resolve(event);
+	} catch (err) {
+		// Thrown before any route ran (reading the session, say).
+		if (isDatabaseDown(err)) error(503, DATABASE_DOWN_MESSAGE);
+		throw err;
+	}
+	if (response.status !== 500 || !databaseDownRequests.has(event.locals)) return response;
+	const headers = new Headers(response.headers);
+	headers.set('Retry-After', '5');
+	return new Response(response.body, { status: 503, statusText: 'Service Unavailable', headers });
+};
+
 export const handle = sequence(
+	databaseDownHandle,
 	headersHandle,
 	// Anonymous visitors of published results get the page's current copy (see the module).
 	resultsPageCache(SESSION_COOKIES),
@@ -81,8 +105,11 @@ export const handle = sequence(
 );
 
 /** Unexpected errors: a plain message, and the command to run when the database is down. */
-export const handleError: HandleServerError = ({ error: err, status }) => {
-	if (isDatabaseDown(err)) return { message: DATABASE_DOWN_MESSAGE };
+export const handleError: HandleServerError = ({ error: err, event, status }) => {
+	if (isDatabaseDown(err)) {
+		databaseDownRequests.add(event.locals);
+		return { message: DATABASE_DOWN_MESSAGE };
+	}
 	if (status === 404) return { message: 'This page does not exist.' };
 	console.error(err);
 	return { message: 'Something went wrong on our side. Please try again.' };

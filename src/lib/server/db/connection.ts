@@ -20,24 +20,41 @@ export function createSequelize(url: string = databaseUrl()): Sequelize {
 	});
 }
 
-/** True when an error means PostgreSQL could not be reached at all. */
+/** Error codes of a database out of reach: refused connections, shutting down, starting up. */
+const DOWN_CODES = new Set(['ECONNREFUSED', '57P01', '57P02', '57P03']);
+
+/** Lost connections: the database's only when the error came through Sequelize (not mail, say). */
+const LOST_CODES = new Set(['ECONNRESET', 'EPIPE']);
+
+/** What the pg driver says when the server closed the connection under a query. */
+const LOST_CONNECTION = /^Connection terminated|connection error and is not queryable/;
+
+/**
+ * True when an error means PostgreSQL could not be reached: not running, shutting down or starting
+ * up, or the connection was lost mid-query (SQLSTATE class 08, or the driver's own words).
+ */
 export function isDatabaseDown(error: unknown): boolean {
 	let e: unknown = error;
+	let viaSequelize = false;
 	for (let depth = 0; e && depth < 4; depth++) {
 		const err = e as {
 			name?: string;
 			code?: string;
+			message?: string;
 			parent?: unknown;
 			original?: unknown;
 			cause?: unknown;
 		};
+		viaSequelize ||= typeof err.name === 'string' && err.name.startsWith('Sequelize');
 		if (
 			err.name === 'SequelizeConnectionRefusedError' ||
 			err.name === 'SequelizeHostNotFoundError' ||
 			err.name === 'SequelizeConnectionError' ||
-			err.code === 'ECONNREFUSED' ||
-			err.code === '57P01' ||
-			err.code === '57P03'
+			(typeof err.code === 'string' &&
+				(DOWN_CODES.has(err.code) ||
+					/^08[0-9A-Z]{3}$/.test(err.code) ||
+					(viaSequelize && LOST_CODES.has(err.code)))) ||
+			(typeof err.message === 'string' && LOST_CONNECTION.test(err.message))
 		) {
 			return true;
 		}
