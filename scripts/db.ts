@@ -7,7 +7,7 @@ import {
 	createSequelize,
 	databaseUrl,
 	isDatabaseDown,
-	DATABASE_DOWN_MESSAGE
+	DATABASE_DOWN_HINT
 } from '../src/lib/server/db/connection';
 import { createMigrator, createSeeder } from '../src/lib/server/db/migrator';
 
@@ -55,7 +55,7 @@ async function main(): Promise<void> {
 
 main()
 	.catch((error: unknown) => {
-		console.error(isDatabaseDown(error) ? DATABASE_DOWN_MESSAGE : error);
+		console.error(isDatabaseDown(error) ? DATABASE_DOWN_HINT : error);
 		process.exitCode = 1;
 	})
 	.finally(() => sequelize.close());

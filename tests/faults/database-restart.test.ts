@@ -19,8 +19,7 @@ import { logTail, startBuiltApp, stopProcess, type Started } from './support/pro
 import { pause, waitFor } from './support/wait';
 
 const cluster = inject('faultCluster');
-const DOWN_MESSAGE =
-	'The database is not running. Start it with ./docker-less-db.sh start (then try again).';
+const DOWN_MESSAGE = 'Crownbench cannot reach its database just now; please try again in a moment.';
 
 interface Judge {
 	email: string;
@@ -239,7 +238,7 @@ describe('the database restarts while judges save score sheets', () => {
 			signal: AbortSignal.timeout(60_000)
 		});
 		expect(page.status).toBe(503);
-		expect(await page.text()).toContain('The database is not running.');
+		expect(await page.text()).toContain('Crownbench cannot reach its database just now');
 
 		// 3. PostgreSQL is back; the same app process saves again.
 		await startCluster(cluster);

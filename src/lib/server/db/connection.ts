@@ -63,6 +63,10 @@ export function isDatabaseDown(error: unknown): boolean {
 	return false;
 }
 
-/** The message shown when the database is not running: it names the command that starts it. */
+/** What a person using the app reads when the database cannot be reached. */
 export const DATABASE_DOWN_MESSAGE =
+	'Crownbench cannot reach its database just now; please try again in a moment.';
+
+/** What a developer running a script reads: it names the command that starts the database. */
+export const DATABASE_DOWN_HINT =
 	'The database is not running. Start it with ./docker-less-db.sh start (then try again).';
