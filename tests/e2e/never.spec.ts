@@ -175,6 +175,7 @@ test('an exhibitor never sees another exhibitor’s entries, plants or photos be
 	const aApi = await requestAs(baseURL!, await cookieFor(browser, VISITORS.member));
 	const answers = await fetchAll(aApi, urls, { withData: true });
 	expect(answers.length).toBeGreaterThan(60);
+	console.log(`never, exhibitors: ${answers.length} answers to exhibitor A checked for B's entry`);
 	expect(leaks(answers, secretWords)).toEqual([]);
 
 	// Direct addresses of B's things answer "not found" or "refused", never the thing.
@@ -318,6 +319,9 @@ test('judges never receive an exhibitor’s name or address, on any judging page
 	for (const [i, r] of saves.entries()) answers.push(await read(r, `PUT sheets #${i + 1}`));
 
 	expect(answers.length).toBeGreaterThan(80);
+	console.log(
+		`never, judges: ${answers.length} answers to a judge checked for ${words.length / 2} exhibitors`
+	);
 	expect(leaks(answers, words)).toEqual([]);
 
 	// The names are there to be found: the chair's desk list of the same show holds them.
@@ -426,6 +430,7 @@ test('one society never sees another’s unpublished show, and the public sees n
 		await api.dispose();
 	}
 	expect(checked).toBeGreaterThan(300);
+	console.log(`never, societies: ${checked} answers about the other society's draft checked`);
 	expect(problems).toEqual([]);
 
 	// The words are there to be found: each society's own chair sees its draft.
