@@ -58,7 +58,7 @@ test('form posts from another origin are refused with 403 and change nothing', a
 	const before = await state();
 	expect(before).toEqual({ plants: 0, published: false, links: 0 });
 
-	const posts = [
+	const posts: { cookie?: string; url: string; form: Record<string, string> }[] = [
 		{ cookie: memberCookie, url: '/my/plants/new', form: plantForm },
 		{ cookie: chairCookie, url: `/chair/shows/${show.slug}?/publish`, form: { published: 'yes' } },
 		{ cookie: undefined, url: '/signin', form: { providerId: 'nodemailer', email } }

@@ -168,7 +168,7 @@ test('an exhibitor never sees another exhibitor’s entries, plants or photos be
 	);
 	const urls = rows.map((row) => {
 		const id = row.route.startsWith('/api/photos/') ? entryPhotoId : b.entryId;
-		const values = { ...params, ...row.params, ...mine, id };
+		const values: Record<string, string> = { ...params, ...row.params, ...mine, id };
 		const query = row.query?.replace(/\$(\w+)/g, (_, k: string) => values[k]);
 		return fillRoute(row.route, values) + (query ? `?${query}` : '');
 	});

@@ -120,7 +120,7 @@ test('bad photo uploads are refused with a clear message and leave nothing behin
 	const ids = await makeMemberEntryAndPlant();
 	const member = await requestAs(baseURL!, await cookieFor(browser, VISITORS.member));
 	const good = await jpeg();
-	const targets = [
+	const targets: { what: string; url: string; fields: Record<string, string> }[] = [
 		{ what: 'entry', url: `/my/entries/${ids.entryId}?/upload`, fields: {} },
 		{ what: 'plant', url: `/my/plants/${ids.plantId}?/photo`, fields: { caption: '' } }
 	];
