@@ -10,6 +10,7 @@ import { loadSessionUser, loadSignedInUser } from '$lib/server/services/people';
 import { startRefundSender } from '$lib/server/services/refunds';
 import { startReminderSchedule } from '$lib/server/services/reminders';
 import { todayIso } from '$lib/schemas/plants';
+import { answerThrown, withSecurityHeaders } from '$lib/server/security-headers';
 
 const SESSION_COOKIES = ['authjs.session-token', '__Secure-authjs.session-token'];
 
@@ -39,37 +40,26 @@ const userHandle: Handle = async ({ event, resolve }) => {
 
 /** Refuses every page and API of a role's area to people without that role, before any load runs. */
 const guardHandle: Handle = async ({ event, resolve }) => {
-	const area = areaOf(event.url.pathname);
-	if (area) {
-		const rule = AREA_ROLES[area];
-		if (rule === 'signed-in') requireUser(event);
-		else requireRole(event, rule);
-	}
-	if (event.url.pathname.startsWith('/dev/') && !process.env.CB_DEV_MAIL_URL) {
-		error(404, 'Not found');
+	try {
+		const area = areaOf(event.url.pathname);
+		if (area) {
+			const rule = AREA_ROLES[area];
+			if (rule === 'signed-in') requireUser(event);
+			else requireRole(event, rule);
+		}
+		if (event.url.pathname.startsWith('/dev/') && !process.env.CB_DEV_MAIL_URL) {
+			error(404, 'Not found');
+		}
+	} catch (thrown) {
+		// Answered here, not thrown on, so that headersHandle still adds the security headers.
+		return answerThrown(event, thrown);
 	}
 	return resolve(event);
 };
 
-const SECURITY_HEADERS: Record<string, string> = {
-	'X-Content-Type-Options': 'nosniff',
-	'Referrer-Policy': 'same-origin',
-	'X-Frame-Options': 'DENY',
-	'Permissions-Policy': 'camera=(self), geolocation=(), microphone=()'
-};
-
-/** Security headers on every answer; the content security policy is set in svelte.config.js. */
-const headersHandle: Handle = async ({ event, resolve }) => {
-	let response = await resolve(event);
-	try {
-		for (const [name, value] of Object.entries(SECURITY_HEADERS)) response.headers.set(name, value);
-	} catch {
-		// Redirects made with Response.redirect() have immutable headers: copy them first.
-		response = new Response(response.body, response);
-		for (const [name, value] of Object.entries(SECURITY_HEADERS)) response.headers.set(name, value);
-	}
-	return response;
-};
+/** Security headers and a content security policy on every answer (see security-headers.ts). */
+const headersHandle: Handle = async ({ event, resolve }) =>
+	withSecurityHeaders(await resolve(event));
 
 /** Requests (their locals) whose error was the database being out of reach, marked by handleError. */
 const databaseDownRequests = new WeakSet<object>();

@@ -6,12 +6,13 @@ import sharp from 'sharp';
 import type { Transaction } from 'sequelize';
 import { recordAudit, type AuditActor } from '../audit';
 import { Entry, EntryPhoto, Show } from '../db';
+import { PHOTO_LIMITS } from '../uploads';
 
-/** Largest photo we accept, in bytes. */
-export const MAX_PHOTO_BYTES = 8 * 1024 * 1024;
+/** Largest photo we accept, in bytes (PHOTO_LIMITS). */
+export const MAX_PHOTO_BYTES = PHOTO_LIMITS.maxBytes;
 
-/** Most photos one entry may have. */
-export const MAX_PHOTOS_PER_ENTRY = 4;
+/** Most photos one entry may have (PHOTO_LIMITS). */
+export const MAX_PHOTOS_PER_ENTRY = PHOTO_LIMITS.perEntry;
 
 /** Longest side of a stored photo, in pixels. */
 const MAX_SIDE = 2000;
@@ -46,7 +47,7 @@ export async function addEntryPhoto(
 	if (file.size === 0) throw new PhotoProblem('Choose a photo to upload.');
 	if (file.size > MAX_PHOTO_BYTES) {
 		throw new PhotoProblem(
-			`That file is ${(file.size / 1024 / 1024).toFixed(1)} MB; a photo may be at most 8 MB.`
+			`That file is ${(file.size / 1024 / 1024).toFixed(1)} MB; a photo may be at most ${MAX_PHOTO_BYTES / 1024 / 1024} MB.`
 		);
 	}
 	const count = await EntryPhoto.count({ where: { entryId: entry.id }, transaction });

@@ -7,9 +7,10 @@ import type { Transaction } from 'sequelize';
 import { recordAudit } from '../audit';
 import { Plant, PlantPhoto } from '../db';
 import { PlantInputError } from './plants';
+import { PHOTO_LIMITS } from '../uploads';
 
-/** Largest photo accepted, before it is scaled down. */
-export const PHOTO_MAX_BYTES = 8 * 1024 * 1024;
+/** Largest photo accepted, before it is scaled down (PHOTO_LIMITS). */
+export const PHOTO_MAX_BYTES = PHOTO_LIMITS.maxBytes;
 
 /** Longest side of a stored photo, in pixels. */
 export const PHOTO_MAX_SIDE = 1600;
@@ -56,6 +57,13 @@ export async function addPlantPhoto(
 		throw new PlantInputError(
 			'photo',
 			`This photo is ${(file.size / 1024 / 1024).toFixed(1)} MB; photos can be up to ${PHOTO_MAX_BYTES / 1024 / 1024} MB.`
+		);
+	}
+	const count = await PlantPhoto.count({ where: { plantId }, transaction });
+	if (count >= PHOTO_LIMITS.perPlant) {
+		throw new PlantInputError(
+			'photo',
+			`A plant may have at most ${PHOTO_LIMITS.perPlant} photos; delete one to add another.`
 		);
 	}
 	const input = Buffer.from(await file.arrayBuffer());

@@ -11,6 +11,7 @@ import {
 	deleteEntryPhoto,
 	listEntryPhotos
 } from '$lib/server/services/photos';
+import { readOnePhoto } from '$lib/server/uploads';
 import type { Actions, PageServerLoad } from './$types';
 
 /** The signed-in member's own entry, or 404 (another person's entry is never shown). */
@@ -50,11 +51,11 @@ export const actions: Actions = {
 	upload: async (event) => {
 		const entry = await ownEntry(event, event.params.id);
 		const user = requireRole(event, ['member']);
-		const file = (await event.request.formData()).get('photo');
-		if (!(file instanceof File)) return fail(400, { message: 'Choose a photo to upload.' });
+		const upload = readOnePhoto(await event.request.formData());
+		if (!upload.ok) return fail(400, { message: upload.message });
 		try {
 			await sequelize.transaction((transaction) =>
-				addEntryPhoto(entry, user.id, file, { transaction })
+				addEntryPhoto(entry, user.id, upload.file, { transaction })
 			);
 		} catch (e) {
 			if (e instanceof PhotoProblem) return fail(400, { message: e.message });

@@ -21,6 +21,7 @@ import {
 	potUpSucker,
 	setPlantGone
 } from '$lib/server/services/plants';
+import { readOnePhoto } from '$lib/server/uploads';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
@@ -100,15 +101,15 @@ export const actions: Actions = {
 	},
 	photo: async (event) => {
 		const form = await event.request.formData();
-		const file = form.get('photo');
 		const parsed = photoSchema.safeParse({ caption: form.get('caption') ?? '' });
 		if (!parsed.success) return invalid('photo', parsed.error);
-		if (!(file instanceof File) || file.size === 0) {
-			const message = 'Choose a photo to upload.';
+		const upload = readOnePhoto(form);
+		if (!upload.ok) {
+			const message = upload.message;
 			return fail(400, { action: 'photo', message, errors: { photo: message } });
 		}
 		return write(event, 'photo', async (owner, plantId, transaction) => {
-			await addPlantPhoto(owner, plantId, file, parsed.data.caption, { transaction });
+			await addPlantPhoto(owner, plantId, upload.file, parsed.data.caption, { transaction });
 			return 'Photo added.';
 		});
 	},
