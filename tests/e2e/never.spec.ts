@@ -201,7 +201,7 @@ test('an exhibitor never sees another exhibitor’s entries, plants or photos be
 	const refusedWrites = [
 		await aApi.post(`/my/entries/${b.entryId}?/upload`, { multipart: { photo }, headers: html }),
 		await aApi.post(`/my/entries/${b.entryId}?/deletePhoto`, {
-			form: { photoId: entryPhotoId },
+			form: { photoId: entryPhotoId, confirm: 'yes' },
 			headers: html
 		}),
 		await aApi.post(`/my/plants/${b.plantId}?/photo`, {
@@ -209,7 +209,7 @@ test('an exhibitor never sees another exhibitor’s entries, plants or photos be
 			headers: html
 		}),
 		await aApi.post(`/my/plants/${b.plantId}?/deletePhoto`, {
-			form: { id: plantPhotoId },
+			form: { id: plantPhotoId, confirm: 'yes' },
 			headers: html
 		})
 	];
@@ -482,7 +482,7 @@ test('only the show’s chair publishes the schedule and the results', async ({
 		).status(),
 		(
 			await api.post(`/chair/shows/${show.slug}/awards?/publish`, {
-				form: { allowIncomplete: 'on' },
+				form: { allowIncomplete: 'on', confirm: 'yes' },
 				headers: { accept: 'text/html' },
 				maxRedirects: 0
 			})

@@ -57,7 +57,7 @@ async function published() {
 	);
 }
 
-/** The chair presses Publish: the form action, as the page's enhanced form sends it. */
+/** The chair presses Publish and confirms: the form action, as the page's enhanced form sends it. */
 async function publish(origin: string): Promise<{ status: number; body: string }> {
 	const response = await fetch(`${origin}/chair/shows/${show.slug}/awards?/publish`, {
 		method: 'POST',
@@ -68,7 +68,8 @@ async function publish(origin: string): Promise<{ status: number; body: string }
 			'x-sveltekit-action': 'true',
 			'content-type': 'application/x-www-form-urlencoded'
 		},
-		body: ''
+		// The chair has answered the page's question (publishing asks first).
+		body: 'confirm=yes'
 	});
 	return { status: response.status, body: await response.text() };
 }
