@@ -47,11 +47,19 @@ async function one<T extends pg.QueryResultRow>(sql: string, params: unknown[] =
 
 /** What publishing has left in the database for the show. */
 async function published() {
-	return one<{ published_at: Date | null; awards: number; ties: number; mail: number }>(
+	return one<{
+		published_at: Date | null;
+		awards: number;
+		ties: number;
+		mail: number;
+		audit: number;
+	}>(
 		`SELECT s.results_published_at AS published_at,
 		        (SELECT count(*)::int FROM awards WHERE show_id = s.id) AS awards,
 		        (SELECT count(*)::int FROM award_ties WHERE show_id = s.id) AS ties,
-		        (SELECT count(*)::int FROM outbox_messages WHERE show_id = s.id AND kind = 'results') AS mail
+		        (SELECT count(*)::int FROM outbox_messages WHERE show_id = s.id AND kind = 'results') AS mail,
+		        (SELECT count(*)::int FROM audit_events
+		          WHERE show_id = s.id AND action = 'results.publish') AS audit
 		   FROM shows s WHERE s.id = $1`,
 		[show.id]
 	);
@@ -101,7 +109,13 @@ beforeAll(async () => {
 		[token]
 	);
 	chairCookie = `authjs.session-token=${token}`;
-	expect(await published()).toEqual({ published_at: null, awards: 0, ties: 0, mail: 0 });
+	expect(await published()).toEqual({
+		published_at: null,
+		awards: 0,
+		ties: 0,
+		mail: 0,
+		audit: 0
+	});
 	smtpPorts = { smtpPort: await freePort(), httpPort: await freePort() };
 	smtp = await startSmtpFake(smtpPorts);
 });
@@ -151,6 +165,7 @@ describe('faults while publishing results', () => {
 				[publishing]
 			);
 			expect(written.map((r) => r.relname)).toEqual([
+				'audit_events',
 				'award_ties',
 				'awards',
 				'outbox_messages',
@@ -173,7 +188,13 @@ describe('faults while publishing results', () => {
 		} finally {
 			await blocker.end();
 		}
-		expect(await published()).toEqual({ published_at: null, awards: 0, ties: 0, mail: 0 });
+		expect(await published()).toEqual({
+			published_at: null,
+			awards: 0,
+			ties: 0,
+			mail: 0,
+			audit: 0
+		});
 	});
 
 	it('published again while the mail server is down: every placements e-mail arrives once', async () => {
@@ -189,7 +210,7 @@ describe('faults while publishing results', () => {
 		expect(answer.body).toContain('6 placements e-mails are on their way');
 		const after = await published();
 		expect(after.published_at).not.toBeNull();
-		expect([after.awards, after.mail]).toEqual([awards, 6]);
+		expect([after.awards, after.mail, after.audit]).toEqual([awards, 6, 1]);
 		expect(awards).toBeGreaterThan(0);
 		// One publish wrote them: positions 0..n-1 of the engine's list, each once.
 		const positions = await one<{ distinct: number; max: number }>(
@@ -234,6 +255,6 @@ describe('faults while publishing results', () => {
 		// Publishing once more is refused: the results are there once.
 		const again = await publish(app.origin);
 		expect(again.body).toContain('already published');
-		expect(await published()).toMatchObject({ awards, mail: 6 });
+		expect(await published()).toMatchObject({ awards, mail: 6, audit: 1 });
 	});
 });
