@@ -6,7 +6,7 @@
  * Everything else uses Sequelize. The statements still go through Sequelize's `logging` option,
  * so whatever logs or counts Sequelize's queries sees these too.
  */
-import type pg from 'pg';
+import pg from 'pg';
 import { sequelize } from './index';
 
 /** A statement with a name of its own (one name per text: pg prepares it once per connection). */
