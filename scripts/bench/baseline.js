@@ -3,8 +3,9 @@
  * benchmark sends to the app with the same PostgreSQL queries the app runs, and returns the same
  * JSON, so the app's figures can be read as a ratio of this bare limit.
  *   PUT /api/judging/sheets          session cookie, the judge's memberships, then the app's save
- *                                    transaction (lock entry, show, access, replay, sheet, update,
- *                                    audit row, applied change)
+ *                                    transaction of three statements (lock the entry and read the
+ *                                    access; the stored answer and the sheet; one statement writing
+ *                                    the sheet, its audit row and the applied change)
  *   GET /shows/<slug>/results        the public results of a published show (the app's queries)
  * DATABASE_URL, PORT (4891) and DB_POOL_MAX (10, as the app) set it up; it listens on 127.0.0.1.
  */
@@ -61,16 +62,17 @@ async function signedInUser(/** @type {http.IncomingMessage} */ req) {
 	const cookie = req.headers.cookie ?? '';
 	const token = /(?:^|;\s*)authjs\.session-token=([^;]+)/.exec(cookie)?.[1];
 	if (!token) return null;
-	const { rows } = await pool.query(
-		`SELECT s.expires, u.id, u.email, u.name, m.roles,
+	const { rows } = await pool.query({
+		name: 'people_session_user',
+		text: `SELECT s.expires, u.id, u.email, u.name, m.roles,
 		        so.id AS society_id, so.slug AS society_slug, so.name AS society_name
 		   FROM sessions s
 		   JOIN users u ON u.id = s.user_id
 		   LEFT JOIN memberships m ON m.user_id = u.id
 		   LEFT JOIN societies so ON so.id = m.society_id
 		  WHERE s.session_token = $1 AND s.expires > now()`,
-		[token]
-	);
+		values: [token]
+	});
 	if (rows.length === 0) return null;
 	return { id: rows[0].id, email: rows[0].email, roles: rows.flatMap((r) => r.roles ?? []) };
 }
@@ -79,25 +81,25 @@ function scaleOf(/** @type {unknown} */ criteria) {
 	return Array.isArray(criteria) ? criteria : DEFAULT_CRITERIA;
 }
 
-/** The sheet as the app answers it (SheetView). */
+/** The sheet as the app answers it (SheetView), from a sheet named as SHEET_COLUMNS names it. */
 function view(/** @type {any[]} */ criteria, /** @type {any} */ s, /** @type {string} */ viewer) {
 	const deductions = s.deductions ?? {};
 	let total = 0;
 	for (const c of criteria) total += c.maxPoints - (deductions[c.key] ?? 0);
 	return {
-		entryId: s.entry_id,
+		entryId: s.entryId,
 		kind: s.kind,
 		version: s.version,
 		deductions,
 		comment: s.comment,
-		notJudged: s.not_judged_reason
-			? { reason: s.not_judged_reason, note: s.not_judged_note ?? '' }
+		notJudged: s.notJudgedReason
+			? { reason: s.notJudgedReason, note: s.notJudgedNote ?? '' }
 			: null,
-		judgesChoiceRank: s.judges_choice_rank,
+		judgesChoiceRank: s.judgesChoiceRank,
 		total,
 		complete:
-			s.not_judged_reason !== null || criteria.every((c) => typeof deductions[c.key] === 'number'),
-		changedByOther: s.updated_by !== null && s.updated_by !== viewer
+			s.notJudgedReason !== null || criteria.every((c) => typeof deductions[c.key] === 'number'),
+		changedByOther: s.updatedBy !== null && s.updatedBy !== viewer
 	};
 }
 
@@ -114,60 +116,74 @@ function validChange(/** @type {any} */ c) {
 	);
 }
 
-/** The app's save transaction, statement for statement. */
+/** The sheet's columns, named as the app names them. */
+const SHEET_COLUMNS = `id, entry_id AS "entryId", kind, deductions, comment,
+	not_judged_reason AS "notJudgedReason", not_judged_note AS "notJudgedNote",
+	judges_choice_rank AS "judgesChoiceRank", version, updated_by AS "updatedBy"`;
+
+/**
+ * The app's save transaction, statement for statement (lock and access; answer and sheet; writes),
+ * sent as named statements under the app's names, as the app sends them.
+ */
 async function saveSheet(/** @type {{id: string, email: string}} */ actor, /** @type {any} */ c) {
 	const db = await pool.connect();
 	try {
 		await db.query('START TRANSACTION');
-		const { rows: entries } = await db.query(
-			`SELECT e.id, e.show_id, e.class_id, s.results_published_at AS published
-			   FROM entries e JOIN shows s ON s.id = e.show_id
+		const { rows: entries } = await db.query({
+			name: 'judging_save_lock',
+			text: `SELECT e.id AS entry_id, e.show_id AS entry_show_id, e.class_id,
+			        sh.results_published_at AS locked, a.*
+			   FROM entries e
+			   JOIN shows sh ON sh.id = e.show_id
+			   LEFT JOIN LATERAL (
+			     SELECT s.id AS show_id, s.name AS show_name, s.society_id, s.panel_score_method AS method,
+			            s.results_published_at AS published, p.id AS panel_id, p.name AS panel_name,
+			            EXISTS (SELECT 1 FROM panel_judges pj WHERE pj.panel_id = p.id AND pj.user_id = $2) AS is_judge,
+			            p.clerk_id IS NOT DISTINCT FROM CAST($2 AS uuid) AS is_clerk,
+			            c.code, c.name, d.code || ' ' || d.name AS division,
+			            sc.id AS scale_id, sc.name AS scale_name, sc.criteria,
+			            EXISTS (
+			              SELECT 1 FROM entries e
+			                LEFT JOIN memberships me ON me.user_id = e.exhibitor_id AND me.society_id = s.society_id
+			                LEFT JOIN memberships mj ON mj.user_id = $2 AND mj.society_id = s.society_id
+			               WHERE e.class_id = c.id AND ${ACTIVE}
+			                 AND (e.exhibitor_id = $2
+			                      OR (coalesce(trim(mj.household), '') <> ''
+			                          AND lower(trim(me.household)) = lower(trim(mj.household))))
+			            ) AS conflict
+			       FROM panel_classes pc
+			       JOIN panels p ON p.id = pc.panel_id
+			       JOIN classes c ON c.id = pc.class_id
+			       JOIN divisions d ON d.id = c.division_id
+			       JOIN shows s ON s.id = p.show_id
+			       LEFT JOIN scales sc ON sc.id = c.scale_id
+			      WHERE pc.class_id = e.class_id) a ON true
 			  WHERE e.id = $1 AND ${ACTIVE}
-			    FOR NO KEY UPDATE OF e FOR SHARE OF s`,
-			[c.entryId]
-		);
-		const entry = entries[0];
-		if (!entry) throw new Refusal('This entry is not in your classes.', 403);
-		if (entry.published) throw new Refusal('Results are published.', 423);
-		const { rows: access } = await db.query(
-			`SELECT s.id AS show_id, s.name AS show_name, s.society_id, s.panel_score_method AS method,
-			        s.results_published_at AS published, p.id AS panel_id, p.name AS panel_name,
-			        EXISTS (SELECT 1 FROM panel_judges pj WHERE pj.panel_id = p.id AND pj.user_id = $1) AS is_judge,
-			        p.clerk_id IS NOT DISTINCT FROM CAST($1 AS uuid) AS is_clerk,
-			        c.code, c.name, d.code || ' ' || d.name AS division,
-			        sc.id AS scale_id, sc.name AS scale_name, sc.criteria,
-			        EXISTS (
-			          SELECT 1 FROM entries e
-			            LEFT JOIN memberships me ON me.user_id = e.exhibitor_id AND me.society_id = s.society_id
-			            LEFT JOIN memberships mj ON mj.user_id = $1 AND mj.society_id = s.society_id
-			           WHERE e.class_id = c.id AND ${ACTIVE}
-			             AND (e.exhibitor_id = $1
-			                  OR (coalesce(trim(mj.household), '') <> ''
-			                      AND lower(trim(me.household)) = lower(trim(mj.household))))
-			        ) AS conflict
-			   FROM panel_classes pc
-			   JOIN panels p ON p.id = pc.panel_id
-			   JOIN classes c ON c.id = pc.class_id
-			   JOIN divisions d ON d.id = c.division_id
-			   JOIN shows s ON s.id = p.show_id
-			   LEFT JOIN scales sc ON sc.id = c.scale_id
-			  WHERE pc.class_id = $2`,
-			[actor.id, entry.class_id]
-		);
-		const a = access[0];
-		if (!a || (!a.is_judge && !a.is_clerk) || a.conflict) {
+			    FOR NO KEY UPDATE OF e FOR SHARE OF sh`,
+			values: [c.entryId, actor.id]
+		});
+		const a = entries[0];
+		if (!a) throw new Refusal('This entry is not in your classes.', 403);
+		if (a.locked) throw new Refusal('Results are published.', 423);
+		if (!a.show_id || (!a.is_judge && !a.is_clerk) || a.conflict) {
 			throw new Refusal('This entry is not in your classes.', 403);
 		}
 		// The benchmark's show scores each judge's own sheet (mean of the panel).
 		if (a.method !== 'mean' || !a.is_judge) throw new Refusal('Judges of mean panels only.', 403);
 		const criteria = scaleOf(a.criteria);
-		const { rows: applied } = await db.query(
-			'SELECT user_id, response FROM applied_changes WHERE change_id = $1',
-			[c.changeId]
-		);
-		if (applied[0]) {
+		const { rows: states } = await db.query({
+			name: 'judging_save_state_judge',
+			text: `SELECT ac.user_id AS "appliedUserId", ac.response AS "appliedResponse",
+			        (SELECT row_to_json(ss) FROM (SELECT ${SHEET_COLUMNS} FROM score_sheets
+			          WHERE entry_id = $2 AND kind = 'judge' AND judge_id = $3) ss) AS sheet
+			   FROM (VALUES (1)) AS one (x)
+			   LEFT JOIN applied_changes ac ON ac.change_id = $1`,
+			values: [c.changeId, a.entry_id, actor.id]
+		});
+		const state = states[0];
+		if (state.appliedUserId) {
 			await db.query('COMMIT');
-			return { status: 'replayed', sheet: applied[0].response };
+			return { status: 'replayed', sheet: state.appliedResponse };
 		}
 		for (const [key, value] of Object.entries(c.deductions)) {
 			const criterion = criteria.find((k) => k.key === key);
@@ -175,37 +191,24 @@ async function saveSheet(/** @type {{id: string, email: string}} */ actor, /** @
 				throw new Refusal(`Deduction ${key} is not allowed.`, 400);
 			}
 		}
-		const { rows: current } = await db.query(
-			`SELECT id, entry_id, kind, deductions, comment, not_judged_reason, not_judged_note,
-			        judges_choice_rank, version, updated_by
-			   FROM score_sheets WHERE entry_id = $1 AND kind = 'judge' AND judge_id = $2`,
-			[entry.id, actor.id]
-		);
-		const sheet = current[0];
+		const sheet = state.sheet;
 		const before = sheet ? view(criteria, sheet, actor.id) : null;
 		const version = before?.version ?? 0;
 		if (c.baseVersion !== version) {
 			throw new Refusal('This sheet was changed meanwhile.', 409, before);
 		}
 		if (!sheet) throw new Refusal('The baseline only updates existing sheets.', 400);
-		const { rows: updated } = await db.query(
-			`UPDATE score_sheets
-			    SET deductions = $1, comment = $2, not_judged_reason = $3, not_judged_note = $4,
-			        judges_choice_rank = $5, updated_by = $6, version = version + 1, updated_at = now()
-			  WHERE id = $7
-			  RETURNING id, entry_id, kind, deductions, comment, not_judged_reason, not_judged_note,
-			            judges_choice_rank, version, updated_by`,
-			[
-				JSON.stringify(c.deductions),
-				c.comment ?? '',
-				c.notJudged?.reason ?? null,
-				c.notJudged?.note || null,
-				c.judgesChoiceRank ?? null,
-				actor.id,
-				sheet.id
-			]
-		);
-		const after = view(criteria, updated[0], actor.id);
+		const stored = {
+			...sheet,
+			deductions: c.deductions,
+			comment: c.comment ?? '',
+			notJudgedReason: c.notJudged?.reason ?? null,
+			notJudgedNote: c.notJudged?.note || null,
+			judgesChoiceRank: c.judgesChoiceRank ?? null,
+			version: version + 1,
+			updatedBy: actor.id
+		};
+		const after = view(criteria, stored, actor.id);
 		const audit = (/** @type {any} */ v) => ({
 			version: v.version,
 			deductions: v.deductions,
@@ -214,25 +217,41 @@ async function saveSheet(/** @type {{id: string, email: string}} */ actor, /** @
 			notJudged: v.notJudged,
 			judgesChoiceRank: v.judgesChoiceRank
 		});
-		await db.query(
-			`INSERT INTO score_audit (show_id, sheet_id, entry_id, actor_id, actor_email, change_id, before, after)
-			 VALUES ($1, $2, $3, $4, $5, $6, $7, $8)`,
-			[
-				entry.show_id,
-				sheet.id,
-				entry.id,
+		const { rows: written } = await db.query({
+			name: 'judging_save_write_update',
+			text: `WITH sheet AS (
+			   UPDATE score_sheets
+			      SET deductions = CAST($1 AS jsonb), comment = $2, not_judged_reason = $3, not_judged_note = $4,
+			          judges_choice_rank = $5, updated_by = $6, version = $7, updated_at = now()
+			    WHERE id = $8 AND version = $9
+			RETURNING id), audit AS (
+			   INSERT INTO score_audit (show_id, sheet_id, entry_id, actor_id, actor_email, change_id, before, after)
+			   SELECT CAST($10 AS uuid), sheet.id, CAST($11 AS uuid), CAST($6 AS uuid), CAST($12 AS text),
+			          CAST($13 AS uuid), CAST($14 AS jsonb), CAST($15 AS jsonb)
+			     FROM sheet)
+			 INSERT INTO applied_changes (change_id, user_id, sheet_id, response)
+			 SELECT CAST($13 AS uuid), CAST($6 AS uuid), sheet.id, CAST($16 AS jsonb) FROM sheet
+			 RETURNING sheet_id`,
+			values: [
+				JSON.stringify(c.deductions),
+				stored.comment,
+				stored.notJudgedReason,
+				stored.notJudgedNote,
+				stored.judgesChoiceRank,
 				actor.id,
+				after.version,
+				sheet.id,
+				version,
+				a.entry_show_id,
+				a.entry_id,
 				actor.email,
 				c.changeId,
 				JSON.stringify(audit(before)),
-				JSON.stringify(audit(after))
+				JSON.stringify(audit(after)),
+				JSON.stringify(after)
 			]
-		);
-		await db.query(
-			`INSERT INTO applied_changes (change_id, user_id, sheet_id, response)
-			 VALUES ($1, $2, $3, $4)`,
-			[c.changeId, actor.id, sheet.id, JSON.stringify(after)]
-		);
+		});
+		if (written.length !== 1) throw new Error('The sheet moved while its entry was locked.');
 		await db.query('COMMIT');
 		return { status: 'saved', sheet: after };
 	} catch (err) {

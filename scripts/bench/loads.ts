@@ -7,6 +7,7 @@
  * - results: visitors reading the public results page of the published show.
  */
 import { randomUUID } from 'node:crypto';
+import { readFileSync } from 'node:fs';
 import http from 'node:http';
 import { createRequire } from 'node:module';
 import { gzipSync } from 'node:zlib';
@@ -128,6 +129,36 @@ function once(options: object): Promise<Result> {
 /** Lets requests still in flight when a load stops land before the next load begins. */
 export const settle = () => new Promise((r) => setTimeout(r, 1500));
 
+/** What one server did under one load, across its turns. */
+export interface LoadFigures {
+	requests: number;
+	requestsPerSecond: number;
+	latencyMs: { p50: number; p95: number; p99: number; max: number };
+	/**
+	 * CPU time the server's process spent per answered request (user + system, from /proc): less
+	 * sensitive to a busy machine than the times, since waiting for a core costs no CPU time.
+	 */
+	cpuMsPerRequest: number | null;
+	non2xx: number;
+	errors: number;
+	timeouts: number;
+	saved?: number;
+}
+
+/** CPU time (user + system) a process has used so far, in ms; null where /proc is not there. */
+function cpuMs(pid: number | undefined): number | null {
+	if (!pid) return null;
+	try {
+		const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
+		// The fields after the command name (in parentheses): utime and stime are the 12th and 13th.
+		const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+		// In clock ticks of 1/100 s (USER_HZ on Linux).
+		return ((Number(fields[11]) + Number(fields[12])) * 1000) / 100;
+	} catch {
+		return null;
+	}
+}
+
 /**
  * The same load against several servers, taken in turns so that a noisy machine weighs on each
  * alike: 2 s of warm-up each (not counted), then `rounds` turns of `seconds / rounds` each.
@@ -135,7 +166,7 @@ export const settle = () => new Promise((r) => setTimeout(r, 1500));
  */
 export async function compareLoads(input: {
 	kind: 'saves' | 'results';
-	targets: { name: string; url: string }[];
+	targets: { name: string; url: string; pid?: number }[];
 	show: BenchShow;
 	seconds: number;
 	rounds: number;
@@ -162,6 +193,7 @@ export async function compareLoads(input: {
 				errors: 0,
 				timeouts: 0,
 				saved: 0,
+				cpuMs: 0 as number | null,
 				latencies: null as Histogram | null
 			}
 		])
@@ -171,8 +203,14 @@ export async function compareLoads(input: {
 			const total = totals.get(t.name)!;
 			const counter = { saved: 0 };
 			const requests = await requestsFor(kind, show, dbUrl, counter);
+			const cpuBefore = cpuMs(t.pid);
 			const result = await once({ ...options(t.url), duration: seconds / rounds, requests });
+			const cpuAfter = cpuMs(t.pid);
 			await settle();
+			total.cpuMs =
+				total.cpuMs !== null && cpuBefore !== null && cpuAfter !== null
+					? total.cpuMs + cpuAfter - cpuBefore
+					: null;
 			total.requests += result.totalCompletedRequests;
 			total.duration += result.duration;
 			total.non2xx += result.non2xx;
@@ -196,6 +234,8 @@ export async function compareLoads(input: {
 				p99: h.getValueAtPercentile(99),
 				max: h.maxValue
 			},
+			cpuMsPerRequest:
+				t.cpuMs !== null && t.requests > 0 ? Math.round((t.cpuMs / t.requests) * 100) / 100 : null,
 			non2xx: t.non2xx,
 			errors: t.errors,
 			timeouts: t.timeouts,

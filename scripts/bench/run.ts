@@ -5,7 +5,10 @@
  * test: timings belong to this command only.
  *
  * Settings: CB_BENCH_DB_URL, CB_BENCH_APP_PORT (4890), CB_BENCH_BASELINE_PORT (4891),
- * CB_BENCH_SECONDS (10 per load and server), CB_BENCH_ROUNDS (2 turns), CB_BENCH_CONNECTIONS (30).
+ * CB_BENCH_SECONDS (10 per load and server), CB_BENCH_ROUNDS (2 turns), CB_BENCH_CONNECTIONS (30);
+ * for profiling, CB_BENCH_ONLY=saves runs the save load alone and CB_BENCH_APP_NODE_ARGS passes
+ * node flags to the app (e.g. "--cpu-prof --cpu-prof-dir=.data/prof"), CB_BENCH_BASELINE_NODE_ARGS
+ * to the baseline.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { mkdirSync, writeFileSync } from 'node:fs';
@@ -19,6 +22,8 @@ const basePort = Number(process.env.CB_BENCH_BASELINE_PORT ?? 4891);
 const seconds = Number(process.env.CB_BENCH_SECONDS ?? 10);
 const connections = Number(process.env.CB_BENCH_CONNECTIONS ?? 30);
 const rounds = Number(process.env.CB_BENCH_ROUNDS ?? 2);
+const only = process.env.CB_BENCH_ONLY ?? '';
+const nodeArgs = (name: string) => (process.env[name] ?? '').split(/\s+/).filter(Boolean);
 const app = `http://127.0.0.1:${appPort}`;
 const base = `http://127.0.0.1:${basePort}`;
 const children: ChildProcess[] = [];
@@ -133,7 +138,11 @@ function comparison(a: LoadFigures, b: LoadFigures) {
 			throughput: ratio(a.requestsPerSecond, b.requestsPerSecond),
 			p50: ratio(a.latencyMs.p50, b.latencyMs.p50),
 			p95: ratio(a.latencyMs.p95, b.latencyMs.p95),
-			p99: ratio(a.latencyMs.p99, b.latencyMs.p99)
+			p99: ratio(a.latencyMs.p99, b.latencyMs.p99),
+			cpuPerRequest:
+				a.cpuMsPerRequest !== null && b.cpuMsPerRequest !== null
+					? ratio(a.cpuMsPerRequest, b.cpuMsPerRequest)
+					: null
 		}
 	};
 }
@@ -153,9 +162,42 @@ async function main(): Promise<void> {
 		CB_REMINDERS: 'off',
 		AUTH_SECRET: process.env.AUTH_SECRET ?? 'benchmark-only-secret'
 	};
-	start('app', ['build'], { ...env, PORT: String(appPort), ORIGIN: app });
-	start('baseline', ['scripts/bench/baseline.js'], { ...env, PORT: String(basePort) });
+	const appProcess = start('app', [...nodeArgs('CB_BENCH_APP_NODE_ARGS'), 'build'], {
+		...env,
+		PORT: String(appPort),
+		ORIGIN: app
+	});
+	const baseProcess = start(
+		'baseline',
+		[...nodeArgs('CB_BENCH_BASELINE_NODE_ARGS'), 'scripts/bench/baseline.js'],
+		{
+			...env,
+			PORT: String(basePort)
+		}
+	);
 	await Promise.all([waitFor(`${app}/`), waitFor(`${base}/health`)]);
+	const targets = [
+		{ name: 'app', url: app, pid: appProcess.pid },
+		{ name: 'baseline', url: base, pid: baseProcess.pid }
+	];
+	if (only === 'saves') {
+		log(`scoresheet saves only: ${connections} judges, ${seconds} s each`);
+		const saves = await compareLoads({
+			kind: 'saves',
+			targets,
+			show,
+			seconds,
+			rounds,
+			connections,
+			dbUrl
+		});
+		const report = {
+			date: new Date().toISOString(),
+			scoresheetSaves: comparison(saves.app, saves.baseline)
+		};
+		process.stdout.write(`${JSON.stringify(report, null, 2)}\n`);
+		return;
+	}
 
 	log('timing the awards engine');
 	const awards = await timeAwards(show);
@@ -167,10 +209,6 @@ async function main(): Promise<void> {
 		`authjs.session-token=${judge.sessionToken}`
 	);
 
-	const targets = [
-		{ name: 'app', url: app },
-		{ name: 'baseline', url: base }
-	];
 	log(`scoresheet saves: ${connections} judges, ${seconds} s each for the app and the baseline`);
 	const saves = await compareLoads({
 		kind: 'saves',

@@ -294,17 +294,48 @@ test('two judges on one consensus sheet: the later change is shown as a conflict
 	await expect(other.locator('[data-sync]')).toHaveAttribute('data-sync', 'conflict');
 	await expect(other.getByTestId('running-total')).toHaveText('98');
 	await expectAccessible(other);
+	// The put-back is held on its way to the server, so the tablet's state can be read before the
+	// server acknowledges it: waiting ("Saving…"), never "saved", until the answer comes.
+	const versions = () =>
+		withDb(
+			async (db) =>
+				(await db.query('SELECT version FROM score_sheets WHERE entry_id = $1', [entry.id])).rows
+		);
+	let release = () => {};
+	const held = new Promise<void>((resolve) => (release = resolve));
+	let arrived = () => {};
+	const putBackSent = new Promise<void>((resolve) => (arrived = resolve));
+	await other.route('**/api/judging/sheets', async (route) => {
+		arrived();
+		await held;
+		await route.continue();
+	});
+	// Every state the status line takes from here on, so a brief "saved" cannot go unseen.
+	await other.locator('[data-sync]').evaluate((line) => {
+		const seen: string[] = [];
+		(window as unknown as { syncStates: string[] }).syncStates = seen;
+		new MutationObserver(() => seen.push(line.getAttribute('data-sync') ?? '')).observe(line, {
+			attributes: true,
+			attributeFilter: ['data-sync']
+		});
+	});
+	const statesSeen = () =>
+		other.evaluate(() => (window as unknown as { syncStates: string[] }).syncStates);
 	await other.getByRole('button', { name: 'Put my scores back' }).click();
-	await expect(other.locator('[data-sync]')).toHaveAttribute('data-sync', 'saved');
+	await putBackSent;
+	await expect(other.locator('[data-sync]')).toHaveAttribute('data-sync', 'saving');
+	await expect(other.locator('[data-sync]')).toHaveText('Saving…');
 	await expect(other.getByTestId('running-total')).toHaveText('99');
-	// The put-back is sent in the background: wait for it to reach the database.
-	await expect
-		.poll(() =>
-			withDb(
-				async (db) =>
-					(await db.query('SELECT version FROM score_sheets WHERE entry_id = $1', [entry.id])).rows
-			)
-		)
-		.toEqual([{ version: 2 }]);
+	expect(await statesSeen()).not.toContain('saved');
+	expect(await versions()).toEqual([{ version: 1 }]);
+
+	release();
+	await expect(other.locator('[data-sync]')).toHaveAttribute('data-sync', 'saved');
+	await expect(other.locator('[data-sync]')).toHaveText('All changes saved');
+	const states = await statesSeen();
+	expect(states.indexOf('saved')).toBe(states.length - 1);
+	// The acknowledgement came after the put-back reached the database.
+	expect(await versions()).toEqual([{ version: 2 }]);
+	await expect(other.getByTestId('running-total')).toHaveText('99');
 	await otherContext.close();
 });

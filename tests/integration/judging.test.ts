@@ -190,6 +190,34 @@ describe('saving sheets', () => {
 		expect(await countFor('score_audit', f.showId)).toBe(3);
 	});
 
+	it('applies one change sent twice at once (a retry while the first is on its way) once', async () => {
+		const f = await buildFixture();
+		const entry = f.entries[0].id;
+		const judge = f.judges[0];
+		const first = change(entry, 0, { symmetry: 1, condition: 0.5 });
+		const both = await Promise.all([saveSheet(judge, first), saveSheet(judge, first)]);
+		expect(both.map((r) => r.status).sort()).toEqual(['replayed', 'saved']);
+		expect(both[0].sheet).toEqual(both[1].sheet);
+		expect(both[0].sheet).toMatchObject({
+			version: 1,
+			deductions: { symmetry: 1, condition: 0.5 }
+		});
+		expect(await sheetVersion(entry)).toEqual([1]);
+		expect(await countFor('score_audit', f.showId)).toBe(1);
+	});
+
+	it('answers a change that alters nothing as unchanged: no new version, no audit row', async () => {
+		const f = await buildFixture();
+		const entry = f.entries[0].id;
+		const judge = f.judges[0];
+		await saveSheet(judge, change(entry, 0, { symmetry: 2 }));
+		const again = await saveSheet(judge, change(entry, 1, { symmetry: 2 }));
+		expect(again.status).toBe('unchanged');
+		expect(again.sheet).toMatchObject({ version: 1, deductions: { symmetry: 2 }, total: 98 });
+		expect(await sheetVersion(entry)).toEqual([1]);
+		expect(await countFor('score_audit', f.showId)).toBe(1);
+	});
+
 	it('never sends a judge anything naming the exhibitor', async () => {
 		const f = await buildFixture();
 		const saved = await saveSheet(f.judges[0], change(f.entries[0].id, 0, { symmetry: 1 }));

@@ -17,7 +17,10 @@ export type SheetEdit = Partial<
 
 export class SheetSync {
 	sheets: Record<string, TabletSheet> = $state({});
-	waiting = $state(0);
+	/** Changes in the browser's queue, not yet acknowledged by the server. */
+	private queued = $state(0);
+	/** Edits already on screen whose change is still being written to the queue. */
+	private pending = $state(0);
 	sending = $state(false);
 	online = $state(true);
 	conflicts: Record<string, { mine: TabletSheet; theirs: TabletSheet; message: string }> = $state(
@@ -29,6 +32,8 @@ export class SheetSync {
 	/** Versions this tablet's own changes moved each sheet through (base → new), to send later changes on. */
 	private moved: Record<string, Record<number, number>> = {};
 	private flushing: Promise<void> | null = null;
+	/** Set when a flush is asked for while one runs: the running one goes round once more. */
+	private again = false;
 
 	constructor(
 		private scale: ScaleOfPoints,
@@ -36,6 +41,11 @@ export class SheetSync {
 	) {
 		this.sheets = structuredClone(initial);
 		for (const [id, s] of Object.entries(initial)) this.known[id] = s.version;
+	}
+
+	/** Changes not yet acknowledged by the server, counting those still being queued. */
+	get waiting(): number {
+		return this.queued + this.pending;
 	}
 
 	get status(): SyncStatus {
@@ -53,7 +63,7 @@ export class SheetSync {
 			if (c.baseVersion < (this.known[c.entryId] ?? 0)) this.known[c.entryId] = c.baseVersion;
 			this.apply(c.entryId, c);
 		}
-		this.waiting = queued.length;
+		this.queued = queued.length;
 		await this.flush();
 	}
 
@@ -73,7 +83,10 @@ export class SheetSync {
 		return s;
 	}
 
-	/** Records an edit: shown at once, queued in the browser, then sent when the network allows. */
+	/**
+	 * Records an edit: shown at once, queued in the browser, then sent when the network allows. It
+	 * counts as waiting from the start, so the status never reads saved before the server says so.
+	 */
 	async edit(entryId: string, edit: SheetEdit): Promise<void> {
 		const s = this.apply(entryId, edit);
 		const change: QueuedChange = {
@@ -85,14 +98,29 @@ export class SheetSync {
 			notJudged: $state.snapshot(s.notJudged),
 			judgesChoiceRank: s.judgesChoiceRank
 		};
-		await enqueue(change);
-		this.waiting = (await readQueue()).length;
+		this.pending++;
+		try {
+			await enqueue(change);
+			this.queued = (await readQueue()).length;
+		} finally {
+			this.pending--;
+		}
 		await this.flush();
 	}
 
 	/** Sends waiting changes in order until the queue is empty or the network is gone. */
 	flush(): Promise<void> {
-		this.flushing ??= this.run().finally(() => (this.flushing = null));
+		if (this.flushing) {
+			// A change queued just as the running flush found the queue empty is not left behind.
+			this.again = true;
+			return this.flushing;
+		}
+		this.flushing = (async () => {
+			do {
+				this.again = false;
+				await this.run();
+			} while (this.again && this.online);
+		})().finally(() => (this.flushing = null));
 		return this.flushing;
 	}
 
@@ -101,7 +129,7 @@ export class SheetSync {
 		try {
 			for (;;) {
 				const queue = await readQueue();
-				this.waiting = queue.length;
+				this.queued = queue.length;
 				const next = queue.find((c) => !this.conflicts[c.entryId]);
 				if (!next || !this.online) return;
 				const baseVersion = this.rebased(next);
@@ -135,7 +163,7 @@ export class SheetSync {
 			}
 		} finally {
 			this.sending = false;
-			this.waiting = (await readQueue()).length;
+			this.queued = (await readQueue()).length;
 		}
 	}
 
@@ -150,7 +178,10 @@ export class SheetSync {
 		return base;
 	}
 
-	/** Settles a conflict: keep the other person's sheet, or put this judge's scores on top of it. */
+	/**
+	 * Settles a conflict: keep the other person's sheet, or put this judge's scores on top of it
+	 * (the put-back waits, shown as waiting, until the server acknowledges it).
+	 */
 	async resolve(entryId: string, keep: 'theirs' | 'mine'): Promise<void> {
 		const conflict = $state.snapshot(this.conflicts[entryId]);
 		if (!conflict) return;

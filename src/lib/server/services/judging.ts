@@ -15,6 +15,7 @@ import {
 } from '$lib/domain/scoring';
 import type { SheetChange } from '$lib/schemas/judging';
 import { ScoreSheet, sequelize } from '../db';
+import { inTransaction, run, statement, type Statement } from '../db/pg';
 import { Refusal } from './refusal';
 
 /** A sheet as a tablet holds it; version 0 means nothing saved yet. */
@@ -102,55 +103,58 @@ function toScale(id: string | null, name: string | null, criteria: unknown): Sca
 	return { id, name: name ?? '', criteria: criteria as ScaleCriterion[] };
 }
 
-/** Checks that the person judges (or clerks) the class and has no entry in it; returns the context. */
-async function requireClassAccess(
-	userId: string,
-	classId: string,
-	transaction?: Transaction
-): Promise<Access> {
-	if (!isUuid(classId)) throw new Refusal('This page does not exist.', 404);
-	const [row] = await sequelize.query<{
-		show_id: string;
-		show_name: string;
-		society_id: string;
-		method: PanelMethod;
-		published: Date | null;
-		panel_id: string;
-		panel_name: string;
-		is_judge: boolean;
-		is_clerk: boolean;
-		code: string;
-		name: string;
-		division: string;
-		scale_id: string | null;
-		scale_name: string | null;
-		criteria: unknown;
-		conflict: boolean;
-	}>(
-		`SELECT s.id AS show_id, s.name AS show_name, s.society_id, s.panel_score_method AS method,
-		        s.results_published_at AS published, p.id AS panel_id, p.name AS panel_name,
-		        EXISTS (SELECT 1 FROM panel_judges pj WHERE pj.panel_id = p.id AND pj.user_id = :userId) AS is_judge,
-		        p.clerk_id IS NOT DISTINCT FROM CAST(:userId AS uuid) AS is_clerk,
-		        c.code, c.name, d.code || ' ' || d.name AS division,
-		        sc.id AS scale_id, sc.name AS scale_name, sc.criteria,
-		        EXISTS (
-		          SELECT 1 FROM entries e
-		            LEFT JOIN memberships me ON me.user_id = e.exhibitor_id AND me.society_id = s.society_id
-		            LEFT JOIN memberships mj ON mj.user_id = :userId AND mj.society_id = s.society_id
-		           WHERE e.class_id = c.id AND ${ACTIVE}
-		             AND (e.exhibitor_id = :userId
-		                  OR (coalesce(trim(mj.household), '') <> ''
-		                      AND lower(trim(me.household)) = lower(trim(mj.household))))
-		        ) AS conflict
-		   FROM panel_classes pc
-		   JOIN panels p ON p.id = pc.panel_id
-		   JOIN classes c ON c.id = pc.class_id
-		   JOIN divisions d ON d.id = c.division_id
-		   JOIN shows s ON s.id = p.show_id
-		   LEFT JOIN scales sc ON sc.id = c.scale_id
-		  WHERE pc.class_id = :classId`,
-		{ replacements: { userId, classId }, type: QueryTypes.SELECT, transaction }
-	);
+/** The columns of a person's access to a class, as ACCESS_FROM reads them. */
+interface AccessRow {
+	show_id: string;
+	show_name: string;
+	society_id: string;
+	method: PanelMethod;
+	published: Date | null;
+	panel_id: string;
+	panel_name: string;
+	is_judge: boolean;
+	is_clerk: boolean;
+	code: string;
+	name: string;
+	division: string;
+	scale_id: string | null;
+	scale_name: string | null;
+	criteria: unknown;
+	conflict: boolean;
+}
+
+/**
+ * A person's access to one class (:userId, and the class as `classId`, a parameter or a column):
+ * the show, the panel, whether they judge or clerk it, the scale, and whether they or their
+ * household have an entry in it.
+ */
+function accessSelect(classId: string): string {
+	return `SELECT s.id AS show_id, s.name AS show_name, s.society_id, s.panel_score_method AS method,
+	        s.results_published_at AS published, p.id AS panel_id, p.name AS panel_name,
+	        EXISTS (SELECT 1 FROM panel_judges pj WHERE pj.panel_id = p.id AND pj.user_id = :userId) AS is_judge,
+	        p.clerk_id IS NOT DISTINCT FROM CAST(:userId AS uuid) AS is_clerk,
+	        c.code, c.name, d.code || ' ' || d.name AS division,
+	        sc.id AS scale_id, sc.name AS scale_name, sc.criteria,
+	        EXISTS (
+	          SELECT 1 FROM entries e
+	            LEFT JOIN memberships me ON me.user_id = e.exhibitor_id AND me.society_id = s.society_id
+	            LEFT JOIN memberships mj ON mj.user_id = :userId AND mj.society_id = s.society_id
+	           WHERE e.class_id = c.id AND ${ACTIVE}
+	             AND (e.exhibitor_id = :userId
+	                  OR (coalesce(trim(mj.household), '') <> ''
+	                      AND lower(trim(me.household)) = lower(trim(mj.household))))
+	        ) AS conflict
+	   FROM panel_classes pc
+	   JOIN panels p ON p.id = pc.panel_id
+	   JOIN classes c ON c.id = pc.class_id
+	   JOIN divisions d ON d.id = c.division_id
+	   JOIN shows s ON s.id = p.show_id
+	   LEFT JOIN scales sc ON sc.id = c.scale_id
+	  WHERE pc.class_id = ${classId}`;
+}
+
+/** Refuses a person without access to the class (or with an entry in it); returns the context. */
+function toAccess(row: AccessRow | undefined, classId: string): Access {
 	if (!row || (!row.is_judge && !row.is_clerk)) {
 		throw new Refusal('This entry is not in your classes.', 403);
 	}
@@ -175,6 +179,16 @@ async function requireClassAccess(
 		division: row.division,
 		scale: toScale(row.scale_id, row.scale_name, row.criteria)
 	};
+}
+
+/** Checks that the person judges (or clerks) the class and has no entry in it; returns the context. */
+async function requireClassAccess(userId: string, classId: string): Promise<Access> {
+	if (!isUuid(classId)) throw new Refusal('This page does not exist.', 404);
+	const [row] = await sequelize.query<AccessRow>(accessSelect(':classId'), {
+		replacements: { userId, classId },
+		type: QueryTypes.SELECT
+	});
+	return toAccess(row, classId);
 }
 
 /** Which sheet this person writes in this class, or null when they only read. */
@@ -395,8 +409,85 @@ function auditState(view: SheetView | null) {
 	};
 }
 
+/** The sheet and the stored answer a save reads once it holds the entry's lock. */
+interface SaveState {
+	appliedUserId: string | null;
+	appliedResponse: SheetView | null;
+	sheet: SheetRecord | null;
+}
+
+/** The save's first statement: lock the entry, share the show's row, read the person's access. */
+const SAVE_LOCK = statement(
+	'judging_save_lock',
+	`SELECT e.id AS entry_id, e.show_id AS entry_show_id, e.class_id,
+	        sh.results_published_at AS locked, a.*
+	   FROM entries e
+	   JOIN shows sh ON sh.id = e.show_id
+	   LEFT JOIN LATERAL (${accessSelect('e.class_id')}) a ON true
+	  WHERE e.id = :entryId AND ${ACTIVE}
+	    FOR NO KEY UPDATE OF e FOR SHARE OF sh`
+);
+
+/** The second: the answer stored for the change id, if any, and the sheet as it stands. */
+function saveStateStatement(kind: 'judge' | 'consensus'): Statement {
+	return statement(
+		`judging_save_state_${kind}`,
+		`SELECT ac.user_id AS "appliedUserId", ac.response AS "appliedResponse",
+		        (SELECT row_to_json(ss) FROM (SELECT ${SHEET_COLUMNS} FROM score_sheets
+		          WHERE entry_id = :entryId AND kind = '${kind}'
+		                ${kind === 'judge' ? 'AND judge_id = :judgeId' : ''}) ss) AS sheet
+		   FROM (VALUES (1)) AS one (x)
+		   LEFT JOIN applied_changes ac ON ac.change_id = :changeId`
+	);
+}
+const SAVE_STATE = {
+	judge: saveStateStatement('judge'),
+	consensus: saveStateStatement('consensus')
+};
+
+/** The third, one statement for every write: the sheet, its audit row and the stored answer. */
+function saveWriteStatement(write: 'update' | 'insert' | 'unchanged'): Statement {
+	const sheet = {
+		update: `UPDATE score_sheets
+		            SET deductions = CAST(:deductions AS jsonb), comment = :comment,
+		                not_judged_reason = :reason, not_judged_note = :note, judges_choice_rank = :rank,
+		                updated_by = :actorId, version = :version, updated_at = now()
+		          WHERE id = :sheetId AND version = :baseVersion
+		      RETURNING id`,
+		insert: `INSERT INTO score_sheets (show_id, entry_id, kind, judge_id, deductions, comment,
+		                not_judged_reason, not_judged_note, judges_choice_rank, updated_by, version)
+		         VALUES (:showId, :entryId, :kind, :judgeId, CAST(:deductions AS jsonb), :comment,
+		                :reason, :note, :rank, :actorId, :version)
+		      RETURNING id`,
+		unchanged: `SELECT CAST(:sheetId AS uuid) AS id`
+	}[write];
+	const audit =
+		write === 'unchanged'
+			? ''
+			: `, audit AS (
+			     INSERT INTO score_audit (show_id, sheet_id, entry_id, actor_id, actor_email, change_id, before, after)
+			     SELECT CAST(:showId AS uuid), sheet.id, CAST(:entryId AS uuid), CAST(:actorId AS uuid),
+			            CAST(:actorEmail AS text), CAST(:changeId AS uuid), CAST(:before AS jsonb),
+			            CAST(:after AS jsonb)
+			       FROM sheet)`;
+	return statement(
+		`judging_save_write_${write}`,
+		`WITH sheet AS (${sheet})${audit}
+		 INSERT INTO applied_changes (change_id, user_id, sheet_id, response)
+		 SELECT CAST(:changeId AS uuid), CAST(:actorId AS uuid), sheet.id, CAST(:response AS jsonb)
+		   FROM sheet
+		 RETURNING sheet_id`
+	);
+}
+const SAVE_WRITE = {
+	update: saveWriteStatement('update'),
+	insert: saveWriteStatement('insert'),
+	unchanged: saveWriteStatement('unchanged')
+};
+
 /**
- * Applies one change to a sheet, in one transaction:
+ * Applies one change to a sheet, in one transaction of three statements (lock and access; the
+ * stored answer and the current sheet; the writes), sent through pg as named statements:
  * - refuses (changing nothing) an entry outside the person's classes, a locked show, and
  *   deductions the class's scale does not allow (400 with one problem per criterion);
  * - a change id seen before is answered with the stored answer and applied no second time;
@@ -404,31 +495,27 @@ function auditState(view: SheetView | null) {
  * - the new version is stored with an audit row (who, when, before, after).
  * Writes to one entry's sheets are serialised by locking the entry row (FOR NO KEY UPDATE: it
  * does not block the foreign-key checks of publishing, which inserts awards naming the entry
- * while holding the show; a plain FOR UPDATE here deadlocked a save against a publish).
+ * while holding the show; a plain FOR UPDATE here deadlocked a save against a publish). The
+ * stored answer and the sheet are read by a statement of their own after the lock is held: a
+ * statement sees the database as it was when it began, so reading them in the locking statement
+ * could miss a save that finished while this one waited for the lock.
  */
 export async function saveSheet(
 	actor: { id: string; email: string },
 	change: SheetChange
 ): Promise<SaveResult> {
-	return sequelize.transaction(async (transaction) => {
-		// One statement locks the entry (serialising its sheets) and shares the show's row.
-		const [entry] = await sequelize.query<{
-			id: string;
-			show_id: string;
-			class_id: string;
-			published: Date | null;
-		}>(
-			`SELECT e.id, e.show_id, e.class_id, s.results_published_at AS published
-			   FROM entries e JOIN shows s ON s.id = e.show_id
-			  WHERE e.id = :entryId AND ${ACTIVE}
-			    FOR NO KEY UPDATE OF e FOR SHARE OF s`,
-			{ replacements: { entryId: change.entryId }, type: QueryTypes.SELECT, transaction }
-		);
+	return inTransaction(async (client) => {
+		const [entry] = await run<
+			{ entry_id: string; entry_show_id: string; class_id: string; locked: Date | null } & Omit<
+				AccessRow,
+				'show_id'
+			> & { show_id: string | null }
+		>(client, SAVE_LOCK, { entryId: change.entryId, userId: actor.id });
 		if (!entry) throw new Refusal('This entry is not in your classes.', 403);
-		if (entry.published) {
+		if (entry.locked) {
 			throw new Refusal('Results are published: scores are locked and cannot change.', 423);
 		}
-		const access = await requireClassAccess(actor.id, entry.class_id, transaction);
+		const access = toAccess(entry.show_id ? (entry as AccessRow) : undefined, entry.class_id);
 		const kind = sheetKindFor(access);
 		if (!kind) {
 			throw new Refusal(
@@ -437,15 +524,19 @@ export async function saveSheet(
 			);
 		}
 
-		const [applied] = await sequelize.query<{ user_id: string; response: SheetView }>(
-			'SELECT user_id, response FROM applied_changes WHERE change_id = :changeId',
-			{ replacements: { changeId: change.changeId }, type: QueryTypes.SELECT, transaction }
+		const [state] = await run<SaveState>(
+			client,
+			SAVE_STATE[kind],
+			kind === 'judge'
+				? { changeId: change.changeId, entryId: entry.entry_id, judgeId: actor.id }
+				: { changeId: change.changeId, entryId: entry.entry_id }
 		);
-		if (applied) {
-			if (applied.user_id !== actor.id || applied.response.entryId !== change.entryId) {
+		if (state.appliedUserId !== null) {
+			const response = state.appliedResponse as SheetView;
+			if (state.appliedUserId !== actor.id || response.entryId !== change.entryId) {
 				throw new Refusal('This change id was already used for another change.', 409);
 			}
-			return { status: 'replayed', sheet: applied.response };
+			return { status: 'replayed', sheet: response };
 		}
 
 		const problems = validateDeductions(access.scale, change.deductions);
@@ -454,20 +545,10 @@ export async function saveSheet(
 		}
 		const deductions = change.deductions as Record<string, number>;
 
-		const [current] = await sequelize.query<SheetRecord>(
-			kind === 'judge'
-				? `SELECT ${SHEET_COLUMNS} FROM score_sheets
-				    WHERE entry_id = :entryId AND kind = 'judge' AND judge_id = :judgeId`
-				: `SELECT ${SHEET_COLUMNS} FROM score_sheets WHERE entry_id = :entryId AND kind = 'consensus'`,
-			{
-				replacements: { entryId: entry.id, judgeId: actor.id },
-				type: QueryTypes.SELECT,
-				transaction
-			}
-		);
+		const current = state.sheet;
 		const before = current
 			? toView(access.scale, current, actor.id)
-			: blankSheet(access.scale, entry.id, kind);
+			: blankSheet(access.scale, entry.entry_id, kind);
 		if (change.baseVersion !== before.version) {
 			throw new Refusal(
 				'This sheet was changed meanwhile by another member of your panel (or on another device). Their version is shown.',
@@ -477,79 +558,60 @@ export async function saveSheet(
 			);
 		}
 
-		let result: SaveResult;
-		let sheetId: string;
-		if (current && sameState(before, change)) {
-			result = { status: 'unchanged', sheet: before };
-			sheetId = current.id;
-		} else {
-			const values = {
-				deductions: JSON.stringify(deductions),
-				comment: change.comment,
-				reason: change.notJudged?.reason ?? null,
-				note: change.notJudged ? change.notJudged.note || null : null,
-				rank: change.judgesChoiceRank,
-				actorId: actor.id
-			};
-			const [sheet] = await sequelize.query<SheetRecord>(
-				current
-					? `UPDATE score_sheets
-					      SET deductions = CAST(:deductions AS jsonb), comment = :comment,
-					          not_judged_reason = :reason, not_judged_note = :note, judges_choice_rank = :rank,
-					          updated_by = :actorId, version = version + 1, updated_at = now()
-					    WHERE id = :id RETURNING ${SHEET_COLUMNS}`
-					: `INSERT INTO score_sheets (show_id, entry_id, kind, judge_id, deductions, comment,
-					          not_judged_reason, not_judged_note, judges_choice_rank, updated_by, version)
-					   VALUES (:showId, :entryId, :kind, :judgeId, CAST(:deductions AS jsonb), :comment,
-					          :reason, :note, :rank, :actorId, 1)
-					   RETURNING ${SHEET_COLUMNS}`,
-				{
-					replacements: {
-						...values,
-						id: current?.id ?? null,
-						showId: entry.show_id,
-						entryId: entry.id,
-						kind,
-						judgeId: kind === 'judge' ? actor.id : null
-					},
-					type: QueryTypes.SELECT,
-					transaction
-				}
-			);
-			sheetId = sheet.id;
-			const after = toView(access.scale, sheet, actor.id);
-			await sequelize.query(
-				`INSERT INTO score_audit (show_id, sheet_id, entry_id, actor_id, actor_email, change_id, before, after)
-				 VALUES (:showId, :sheetId, :entryId, :actorId, :actorEmail, :changeId, :before, :after)`,
-				{
-					replacements: {
-						showId: entry.show_id,
-						sheetId: sheet.id,
-						entryId: entry.id,
-						actorId: actor.id,
-						actorEmail: actor.email,
-						changeId: change.changeId,
-						before: before.version === 0 ? null : JSON.stringify(auditState(before)),
-						after: JSON.stringify(auditState(after))
-					},
-					transaction
-				}
-			);
-			result = { status: 'saved', sheet: after };
-		}
-		await sequelize.query(
-			`INSERT INTO applied_changes (change_id, user_id, sheet_id, response)
-			 VALUES (:changeId, :userId, :sheetId, :response)`,
-			{
-				replacements: {
-					changeId: change.changeId,
-					userId: actor.id,
-					sheetId,
-					response: JSON.stringify(result.sheet)
-				},
-				transaction
-			}
+		const write = !current ? 'insert' : sameState(before, change) ? 'unchanged' : 'update';
+		const stored = {
+			deductions,
+			comment: change.comment,
+			notJudgedReason: change.notJudged?.reason ?? null,
+			notJudgedNote: change.notJudged ? change.notJudged.note || null : null,
+			judgesChoiceRank: change.judgesChoiceRank
+		};
+		// The entry's lock makes the version read above the one this write moves on from.
+		const after =
+			write === 'unchanged'
+				? before
+				: toView(
+						access.scale,
+						{
+							id: current?.id ?? '',
+							entryId: entry.entry_id,
+							kind,
+							...stored,
+							version: before.version + 1,
+							updatedBy: actor.id
+						},
+						actor.id
+					);
+		const common = {
+			sheetId: current?.id ?? null,
+			actorId: actor.id,
+			changeId: change.changeId,
+			response: JSON.stringify(after)
+		};
+		const changed = {
+			...common,
+			showId: entry.entry_show_id,
+			entryId: entry.entry_id,
+			deductions: JSON.stringify(deductions),
+			comment: stored.comment,
+			reason: stored.notJudgedReason,
+			note: stored.notJudgedNote,
+			rank: stored.judgesChoiceRank,
+			actorEmail: actor.email,
+			version: after.version,
+			before: before.version === 0 ? null : JSON.stringify(auditState(before)),
+			after: JSON.stringify(auditState(after))
+		};
+		const written = await run<{ sheet_id: string }>(
+			client,
+			SAVE_WRITE[write],
+			write === 'unchanged'
+				? common
+				: write === 'update'
+					? { ...changed, baseVersion: before.version }
+					: { ...changed, kind, judgeId: kind === 'judge' ? actor.id : null }
 		);
-		return result;
+		if (written.length !== 1) throw new Error('The sheet moved while its entry was locked.');
+		return { status: write === 'unchanged' ? 'unchanged' : 'saved', sheet: after };
 	});
 }
