@@ -291,9 +291,10 @@ describe('entries', () => {
 			(await ShowClass.findAll({ where: { showId: show.id } })).map((c) => [c.code, c.id])
 		);
 		const variety = (await Variety.findOne({
-			where: { societyId: show.societyId, name: 'Thimble Harbor' }
+			where: { societyId: show.societyId, name: 'Crumb of Coral' }
 		}))!;
-		const exhibitor = (await User.findOne({ where: { email: 'exhibitor7@crownbench.test' } }))!;
+		// exhibitor5 has no entry in class 15 and no other test of this folder enters for them.
+		const exhibitor = (await User.findOne({ where: { email: 'exhibitor5@crownbench.test' } }))!;
 		const clerk = (await User.findOne({ where: { email: 'clerk@crownbench.test' } }))!;
 		const entry = await enterPlant(show.id, exhibitor.id, {
 			showSlug: show.slug,
