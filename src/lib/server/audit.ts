@@ -59,6 +59,21 @@ export async function recordAudit(
 	);
 }
 
+/**
+ * Records a destructive action on a show's data (society and show taken from the show), in the
+ * caller's transaction, by the actor the caller was given.
+ */
+export async function recordShowAudit(
+	show: { id: string; societyId: string },
+	record: Omit<AuditRecord, 'societyId' | 'showId' | 'actor'>,
+	options: { transaction: Transaction; actor: AuditActor }
+): Promise<void> {
+	await recordAudit(
+		{ ...record, societyId: show.societyId, showId: show.id, actor: options.actor },
+		{ transaction: options.transaction }
+	);
+}
+
 /** Whose log is read: a whole society (its admin) or one show (its chair). */
 export type AuditScope = { societyId: string } | { showId: string };
 

@@ -8,7 +8,7 @@ import {
 } from '$lib/domain/eligibility';
 import { toInches } from '$lib/domain/units';
 import type { CheckInInput } from '$lib/schemas/desk';
-import { recordAudit, type AuditActor } from '../audit';
+import { recordShowAudit, type AuditActor } from '../audit';
 import { Division, Entry, Show, ShowClass, User, Variety, sequelize } from '../db';
 import { exhibitorContextFor, plantFactsOf, showContextOf, withStandingHint } from './entries';
 import { classRulesOf } from './schedule';
@@ -280,11 +280,9 @@ export async function moveEntry(
 		{ classId: target.id, shownSizeClass: shown === declared ? null : shown },
 		{ transaction }
 	);
-	await recordAudit(
+	await recordShowAudit(
+		show,
 		{
-			societyId: show.societyId,
-			showId: show.id,
-			actor: options.actor,
 			action: 'entry.move',
 			target: { kind: 'entry', id: entry.id, label: `Entry ${entry.number}` },
 			details: {
@@ -292,7 +290,7 @@ export async function moveEntry(
 				after: { classId: target.id, class: label(target), shownSizeClass: entry.shownSizeClass }
 			}
 		},
-		{ transaction }
+		options
 	);
 	return target;
 }
@@ -309,16 +307,14 @@ export async function scratchEntry(
 	if (entry.status === 'scratched') throw new DeskProblem('The entry is scratched already.');
 	const before = entry.status;
 	await entry.update({ status: 'scratched', deskNote: reason }, { transaction });
-	await recordAudit(
+	await recordShowAudit(
+		show,
 		{
-			societyId: show.societyId,
-			showId: show.id,
-			actor: options.actor,
 			action: 'entry.scratch',
 			target: { kind: 'entry', id: entry.id, label: `Entry ${entry.number}` },
 			details: { before: { status: before }, after: { status: 'scratched' }, reason }
 		},
-		{ transaction }
+		options
 	);
 }
 

@@ -1,6 +1,6 @@
 import { QueryTypes, type Transaction } from 'sequelize';
 import { findJudgingConflicts, type JudgingConflict } from '$lib/domain/judging';
-import { recordAudit, type AuditActor } from '../audit';
+import { recordShowAudit, type AuditActor } from '../audit';
 import { Panel, PanelClass, PanelJudge, Show, ShowClass, User, sequelize } from '../db';
 import { Refusal } from './refusal';
 
@@ -275,16 +275,14 @@ export async function deletePanel(
 		PanelClass.count({ where: { panelId: panel.id }, transaction })
 	]);
 	await panel.destroy({ transaction });
-	await recordAudit(
+	await recordShowAudit(
+		show,
 		{
-			societyId: show.societyId,
-			showId: show.id,
-			actor: options.actor,
 			action: 'panel.delete',
 			target: { kind: 'panel', id: panel.id, label: panel.name },
 			details: { before: { name: panel.name, judges, classes, clerkId: panel.clerkId } }
 		},
-		{ transaction }
+		options
 	);
 }
 
@@ -319,16 +317,14 @@ export async function removeJudge(
 	const removed = await PanelJudge.destroy({ where: { panelId: panel.id, userId }, transaction });
 	if (removed === 0) throw new Refusal('That judge is not on this panel.', 404, 'userId');
 	const judge = await personLabel(userId, transaction);
-	await recordAudit(
+	await recordShowAudit(
+		show,
 		{
-			societyId: show.societyId,
-			showId: show.id,
-			actor: options.actor,
 			action: 'panel.judge_remove',
 			target: { kind: 'panel', id: panel.id, label: `${judge} from ${panel.name}` },
 			details: { before: { judgeId: userId, judge } }
 		},
-		{ transaction }
+		options
 	);
 }
 
@@ -360,16 +356,14 @@ export async function setClerk(
 			await personLabel(before, transaction),
 			await personLabel(userId, transaction)
 		];
-		await recordAudit(
+		await recordShowAudit(
+			show,
 			{
-				societyId: show.societyId,
-				showId: show.id,
-				actor: options.actor,
 				action: 'panel.clerk_change',
 				target: { kind: 'panel', id: panel.id, label: panel.name },
 				details: { before: { clerkId: before, clerk: was }, after: { clerkId: userId, clerk: now } }
 			},
-			{ transaction }
+			options
 		);
 	}
 }
@@ -400,11 +394,9 @@ export async function assignClass(
 	if (panel) await PanelClass.create({ classId, panelId: panel.id }, { transaction });
 	if (current && current.panelId !== panel?.id) {
 		const was = await Panel.findByPk(current.panelId, { attributes: ['name'], transaction });
-		await recordAudit(
+		await recordShowAudit(
+			show,
 			{
-				societyId: show.societyId,
-				showId: show.id,
-				actor: options.actor,
 				action: 'panel.class_change',
 				target: { kind: 'class', id: cls.id, label: `${cls.code} ${cls.name}` },
 				details: {
@@ -412,7 +404,7 @@ export async function assignClass(
 					after: { panelId: panel?.id ?? null, panel: panel?.name ?? null }
 				}
 			},
-			{ transaction }
+			options
 		);
 	}
 }

@@ -3,7 +3,7 @@ import { DEFAULT_AWARD_RULES, validateAwardRules, type AwardRules } from '$lib/d
 import type { ClassRules, SizeClass } from '$lib/domain/eligibility';
 import type { ClassDescribed } from '$lib/schedule-text';
 import type { ClassInput, DivisionInput, ShowSettingsInput } from '$lib/schemas/show';
-import { recordAudit, type AuditActor } from '../audit';
+import { recordShowAudit, type AuditActor } from '../audit';
 import { Division, Entry, Scale, Show, ShowClass } from '../db';
 
 /** A class of the schedule as pages and PDFs show it. */
@@ -206,16 +206,14 @@ export async function setSchedulePublished(
 	const wasPublished = show.schedulePublishedAt;
 	await show.update({ schedulePublishedAt: published ? new Date() : null }, { transaction });
 	if (!published && wasPublished) {
-		await recordAudit(
+		await recordShowAudit(
+			show,
 			{
-				societyId: show.societyId,
-				showId: show.id,
-				actor: options.actor,
 				action: 'schedule.unpublish',
 				target: { kind: 'show', id: show.id, label: show.name },
 				details: { before: { publishedAt: wasPublished.toISOString() } }
 			},
-			{ transaction }
+			options
 		);
 	}
 }
@@ -285,16 +283,14 @@ export async function deleteDivision(
 	}
 	await ShowClass.destroy({ where: { divisionId }, transaction });
 	await division.destroy({ transaction });
-	await recordAudit(
+	await recordShowAudit(
+		show,
 		{
-			societyId: show.societyId,
-			showId: show.id,
-			actor: options.actor,
 			action: 'division.delete',
 			target: { kind: 'division', id: division.id, label: `${division.code} ${division.name}` },
 			details: { before: { code: division.code, name: division.name, classes: classIds.length } }
 		},
-		{ transaction }
+		options
 	);
 }
 
@@ -369,15 +365,13 @@ export async function deleteClass(
 		throw new ScheduleProblem('This class has entries; move or withdraw them before removing it.');
 	}
 	await existing.destroy({ transaction });
-	await recordAudit(
+	await recordShowAudit(
+		show,
 		{
-			societyId: show.societyId,
-			showId: show.id,
-			actor: options.actor,
 			action: 'class.delete',
 			target: { kind: 'class', id: existing.id, label: `${existing.code} ${existing.name}` },
 			details: { before: { code: existing.code, name: existing.name } }
 		},
-		{ transaction }
+		options
 	);
 }
