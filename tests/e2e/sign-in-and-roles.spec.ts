@@ -1,5 +1,6 @@
 import { expect, test } from '@playwright/test';
 import { expectAccessible } from './support/axe';
+import { withDb } from './support/judging-fixture';
 import { requestSignInLink, signIn } from './support/session';
 
 // Each demo role signs in by e-mail link, lands on its own page, and is refused another role's page.
@@ -103,6 +104,34 @@ test('a sign-in link works once', async ({ page, context }) => {
 	await page.goto(link);
 	await expect(page).toHaveURL(/\/signin\/problem/);
 	await expect(page.getByText('expired or has already been used')).toBeVisible();
+});
+
+test('a sign-in link expires: an old link is refused and signs nobody in', async ({ page }) => {
+	const email = 'judge3@crownbench.test';
+	const link = await requestSignInLink(page, email);
+	// The link lives SIGN_IN_LINK_MINUTES (30): short-lived sign-in links are common practice.
+	const minutesLeft = await withDb(async (db) => {
+		const { rows } = await db.query<{ minutes: number }>(
+			`SELECT EXTRACT(EPOCH FROM (max(expires) - now())) / 60 AS minutes
+			   FROM verification_tokens WHERE identifier = $1`,
+			[email]
+		);
+		return Number(rows[0].minutes);
+	});
+	expect(minutesLeft).toBeGreaterThan(28);
+	expect(minutesLeft).toBeLessThanOrEqual(30);
+	// Half an hour later: the link's time is up.
+	await withDb((db) =>
+		db.query(
+			`UPDATE verification_tokens SET expires = now() - interval '1 minute' WHERE identifier = $1`,
+			[email]
+		)
+	);
+	await page.goto(link);
+	await expect(page).toHaveURL(/\/signin\/problem/);
+	await expect(page.getByText('expired or has already been used')).toBeVisible();
+	await page.goto('/judging');
+	await expect(page).toHaveURL(/\/signin/);
 });
 
 test('signing out ends the session', async ({ page }) => {
