@@ -69,7 +69,8 @@ test('an exhibitor enters a fitting and a non-fitting plant; a clerk measures, m
 	const clerk = await clerkContext.newPage();
 	await signIn(clerk, 'clerk@crownbench.test');
 	await clerk.goto(`/desk/${slug}`);
-	// Text typed before the page has hydrated can be reset by it: type again until the search holds.
+	// A search sent while the page is still starting up was once lost on a busy machine: search
+	// again until the entry shows.
 	const found = clerk.getByRole('link', { name: String(number), exact: true });
 	await expect(async () => {
 		await clerk.getByLabel('Entry number or name').fill(String(number));
