@@ -3,6 +3,7 @@ import fc from 'fast-check';
 import { formatIsoDate } from './dates';
 import {
 	FAILURE_CODES,
+	OPEN_CLASS_RULES,
 	SINGLE_CROWN_MAX_CROWNS,
 	SIZE_LIMITS_IN,
 	TRAILER_MIN_CROWNS,
@@ -22,19 +23,7 @@ import {
 import { toInches } from './units';
 
 function buildRules(overrides: Partial<ClassRules> = {}): ClassRules {
-	return {
-		habit: 'any',
-		sizeClasses: [],
-		blossomTypes: [],
-		blossomColours: [],
-		foliage: 'any',
-		minCrowns: null,
-		maxCrowns: null,
-		collectionSize: null,
-		speciesOnly: false,
-		maxDiameterIn: null,
-		...overrides
-	};
+	return { ...OPEN_CLASS_RULES, ...overrides };
 }
 
 function buildPlant(overrides: Partial<PlantFacts> = {}): PlantFacts {

@@ -52,6 +52,20 @@ export interface ClassRules {
 	maxDiameterIn: number | null;
 }
 
+/** A class with no rule of its own: every plant fits it (only the plant's size limit applies). */
+export const OPEN_CLASS_RULES: Readonly<ClassRules> = {
+	habit: 'any',
+	sizeClasses: [],
+	blossomTypes: [],
+	blossomColours: [],
+	foliage: 'any',
+	minCrowns: null,
+	maxCrowns: null,
+	collectionSize: null,
+	speciesOnly: false,
+	maxDiameterIn: null
+};
+
 /** What is known about the plant (or collection) being entered. */
 export interface PlantFacts {
 	varietyId: string;

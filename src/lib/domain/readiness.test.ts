@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import type { ClassRules, ExhibitorContext } from './eligibility';
+import { OPEN_CLASS_RULES, type ClassRules, type ExhibitorContext } from './eligibility';
 import {
 	RECENT_BLOOM_DAYS,
 	assessReadiness,
@@ -14,19 +14,7 @@ import {
 } from './readiness';
 
 function rules(overrides: Partial<ClassRules> = {}): ClassRules {
-	return {
-		habit: 'any',
-		sizeClasses: [],
-		blossomTypes: [],
-		blossomColours: [],
-		foliage: 'any',
-		minCrowns: null,
-		maxCrowns: null,
-		collectionSize: null,
-		speciesOnly: false,
-		maxDiameterIn: null,
-		...overrides
-	};
+	return { ...OPEN_CLASS_RULES, ...overrides };
 }
 
 /** A schedule in the shape of the demo: single-crown standards, semiminiatures, miniatures, trailers. */

@@ -1,6 +1,6 @@
 import type { NotJudgedReason } from '$lib/domain/scoring';
 
-/** A sheet as the tablet holds it (mirrors SheetView of the server's judging service). */
+/** A sheet as the tablet holds it and the judging API answers it (the server's SheetView). */
 export interface TabletSheet {
 	entryId: string;
 	kind: 'judge' | 'consensus';
@@ -11,6 +11,7 @@ export interface TabletSheet {
 	judgesChoiceRank: number | null;
 	total: number;
 	complete: boolean;
+	/** True when someone else saved the latest version (another judge or the clerk). */
 	changedByOther: boolean;
 }
 

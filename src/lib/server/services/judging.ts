@@ -8,30 +8,18 @@ import {
 	DEFAULT_STANDARD_SCALE,
 	scoreSheet,
 	validateDeductions,
-	type NotJudgedReason,
 	type PanelMethod,
 	type ScaleCriterion,
 	type ScaleOfPoints
 } from '$lib/domain/scoring';
 import type { SheetChange } from '$lib/schemas/judging';
 import { ScoreSheet, sequelize } from '../db';
+import type { TabletSheet } from '$lib/judging/types';
 import { inTransaction, run, statement, type Statement } from '../db/pg';
 import { Refusal } from './refusal';
 
-/** A sheet as a tablet holds it; version 0 means nothing saved yet. */
-export interface SheetView {
-	entryId: string;
-	kind: 'judge' | 'consensus';
-	version: number;
-	deductions: Record<string, number>;
-	comment: string;
-	notJudged: { reason: NotJudgedReason; note: string } | null;
-	judgesChoiceRank: number | null;
-	total: number;
-	complete: boolean;
-	/** True when someone else saved the latest version (another judge or the clerk). */
-	changedByOther: boolean;
-}
+/** A sheet as a tablet holds it (the tablet's own type); version 0 means nothing saved yet. */
+export type SheetView = TabletSheet;
 
 /** An entry as a judge sees it: number and plant only. */
 export interface JudgeEntry {

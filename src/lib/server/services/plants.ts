@@ -134,6 +134,15 @@ export async function listPlants(ownerId: string): Promise<PlantSummary[]> {
 	return rows.map(toSummary);
 }
 
+/** A plant related to another (child, ancestor, offspring) as the lineage queries read it. */
+interface RelativeRow {
+	id: string;
+	name: string;
+	label: string | null;
+	how: ObtainedHow;
+	on: string;
+}
+
 /** One of the member's plants with its log, photos and offspring; null when it is not theirs. */
 export async function getPlant(ownerId: string, plantId: string): Promise<PlantDetail | null> {
 	const [row] = await sequelize.query<SummaryRow>(
@@ -150,13 +159,7 @@ export async function getPlant(ownerId: string, plantId: string): Promise<PlantD
 			]
 		}),
 		PlantPhoto.findAll({ where: { plantId }, order: [['createdAt', 'ASC']] }),
-		sequelize.query<{
-			id: string;
-			name: string;
-			label: string | null;
-			how: ObtainedHow;
-			on: string;
-		}>(
+		sequelize.query<RelativeRow>(
 			`SELECT p.id, v.name, p.label, p.obtained_how AS how, p.obtained_on AS on
 			   FROM plants p JOIN varieties v ON v.id = p.variety_id
 			  WHERE p.parent_id = $1 AND p.owner_id = $2 ORDER BY p.obtained_on, p.id`,
@@ -446,15 +449,7 @@ export async function getLineage(
 	plantId: string
 ): Promise<{ plant: LineageNode; ancestors: LineageNode[]; offspring: LineageNode[] } | null> {
 	const query = (sql: string) =>
-		sequelize.query<{
-			id: string;
-			name: string;
-			label: string | null;
-			how: ObtainedHow;
-			on: string;
-			parent_id: string | null;
-			generation: number;
-		}>(
+		sequelize.query<RelativeRow & { parent_id: string | null; generation: number }>(
 			`WITH RECURSIVE ${sql}
 			 SELECT t.id, v.name, p.label, p.obtained_how AS how, p.obtained_on AS on, p.parent_id,
 			        t.generation
