@@ -66,7 +66,7 @@ e2e() {
 	DATABASE_URL="$(./docker-less-db.sh url "$e2e_db")"
 	npx tsx scripts/db.ts reset || return 1
 	PORT="$port" HOST=127.0.0.1 ORIGIN="http://127.0.0.1:$port" BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-12M}" \
-		node build >.data/e2e-app.log 2>&1 &
+		node server.js >.data/e2e-app.log 2>&1 &
 	local app=$!
 	background_pids+=("$app")
 	wait_for_url "http://127.0.0.1:$port/" 30 || { cat .data/e2e-app.log; return 1; }

@@ -11,8 +11,7 @@ import { startRefundSender } from '$lib/server/services/refunds';
 import { startReminderSchedule } from '$lib/server/services/reminders';
 import { todayIso } from '$lib/schemas/plants';
 import { answerThrown, withSecurityHeaders } from '$lib/server/security-headers';
-
-const SESSION_COOKIES = ['authjs.session-token', '__Secure-authjs.session-token'];
+import { registerFastLane, SESSION_COOKIES, UNEXPECTED_ERROR_MESSAGE } from '$lib/server/fast-lane';
 
 /**
  * Fills locals.user from the database session; visitors without a session cookie cost nothing.
@@ -102,7 +101,7 @@ export const handleError: HandleServerError = ({ error: err, event, status }) =>
 	}
 	if (status === 404) return { message: 'This page does not exist.' };
 	console.error(err);
-	return { message: 'Something went wrong on our side. Please try again.' };
+	return { message: UNEXPECTED_ERROR_MESSAGE };
 };
 
 /**
@@ -110,6 +109,8 @@ export const handleError: HandleServerError = ({ error: err, event, status }) =>
  * `npm run worker` as its own process). Several senders are safe: rows are claimed with SKIP LOCKED.
  */
 export const init: ServerInit = () => {
+	// server.js answers score sheet saves through this lane (see the module).
+	registerFastLane();
 	const off = process.env.CB_OUTBOX_WORKER === 'off';
 	const stopWorker = off ? () => {} : startOutboxWorker();
 	const stopRefunds = off ? () => {} : startRefundSender();

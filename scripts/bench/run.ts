@@ -162,7 +162,7 @@ async function main(): Promise<void> {
 		CB_REMINDERS: 'off',
 		AUTH_SECRET: process.env.AUTH_SECRET ?? 'benchmark-only-secret'
 	};
-	const appProcess = start('app', [...nodeArgs('CB_BENCH_APP_NODE_ARGS'), 'build'], {
+	const appProcess = start('app', [...nodeArgs('CB_BENCH_APP_NODE_ARGS'), 'server.js'], {
 		...env,
 		PORT: String(appPort),
 		ORIGIN: app
