@@ -142,15 +142,14 @@ async function saveSheet(/** @type {{id: string, email: string}} */ actor, /** @
 			            p.clerk_id IS NOT DISTINCT FROM CAST($2 AS uuid) AS is_clerk,
 			            c.code, c.name, d.code || ' ' || d.name AS division,
 			            sc.id AS scale_id, sc.name AS scale_name, sc.criteria,
-			            EXISTS (
-			              SELECT 1 FROM entries e
-			                LEFT JOIN memberships me ON me.user_id = e.exhibitor_id AND me.society_id = s.society_id
-			                LEFT JOIN memberships mj ON mj.user_id = $2 AND mj.society_id = s.society_id
-			               WHERE e.class_id = c.id AND ${ACTIVE}
-			                 AND (e.exhibitor_id = $2
-			                      OR (coalesce(trim(mj.household), '') <> ''
-			                          AND lower(trim(me.household)) = lower(trim(mj.household))))
-			            ) AS conflict
+			            (EXISTS (SELECT 1 FROM entries e WHERE e.class_id = c.id AND ${ACTIVE} AND e.exhibitor_id = $2)
+			             OR EXISTS (
+			              SELECT 1 FROM memberships mj
+			                JOIN memberships me ON me.society_id = mj.society_id
+			                 AND lower(trim(me.household)) = lower(trim(mj.household))
+			                JOIN entries e ON e.exhibitor_id = me.user_id AND e.class_id = c.id AND ${ACTIVE}
+			               WHERE mj.user_id = $2 AND mj.society_id = s.society_id
+			                 AND coalesce(trim(mj.household), '') <> '')) AS conflict
 			       FROM panel_classes pc
 			       JOIN panels p ON p.id = pc.panel_id
 			       JOIN classes c ON c.id = pc.class_id

@@ -146,6 +146,42 @@ describe('saving sheets', () => {
 		expect(await countFor('score_sheets', f.showId)).toBe(0);
 	});
 
+	it('refuses a judge once their household has an entry in the class (moved in after the panel was set)', async () => {
+		// A judge must not judge a class with their own or their household's entry (DOMAIN.md).
+		const f = await buildFixture();
+		const [judge1, judge2] = f.judges;
+		const household = (userId: string, name: string | null) =>
+			sequelize.query(
+				`UPDATE memberships SET household = :name WHERE user_id = :userId AND society_id = :s`,
+				{ replacements: { name, userId, s: f.societyId } }
+			);
+		// The household entry of class 2 is moved to class 1, as the entry desk moves a misclassified plant.
+		await sequelize.query(`UPDATE entries SET class_id = :classId WHERE id = :id`, {
+			replacements: { classId: f.classId, id: f.otherEntry }
+		});
+		// Judge 2's household is written differently (case, spaces) from the exhibitor's: still one household.
+		await household(judge2.id, '  marrowGATE ');
+		const refused = await refusalOf(saveSheet(judge2, change(f.entries[0].id, 0, { symmetry: 1 })));
+		expect(refused).toMatchObject({ status: 403, message: expect.stringMatching(/household/) });
+		await expect(loadJudgeClass(judge2.id, f.classId)).rejects.toMatchObject({ status: 403 });
+		// Judge 1 has no household; blank households are nobody's household.
+		expect((await saveSheet(judge1, change(f.entries[0].id, 0, { symmetry: 1 }))).status).toBe(
+			'saved'
+		);
+		await household(judge1.id, ' ');
+		await household(f.exhibitors[0].id, '');
+		expect((await saveSheet(judge1, change(f.entries[0].id, 1, { symmetry: 2 }))).status).toBe(
+			'saved'
+		);
+		// The judge's own entry in the class.
+		await sequelize.query(`UPDATE entries SET exhibitor_id = :judge WHERE id = :id`, {
+			replacements: { judge: judge1.id, id: f.entries[1].id }
+		});
+		const own = await refusalOf(saveSheet(judge1, change(f.entries[0].id, 2, { symmetry: 1 })));
+		expect(own.status).toBe(403);
+		expect(await sheetVersion(f.entries[0].id)).toEqual([2]);
+	});
+
 	it('keeps two judges saving the same consensus sheet at once from losing an update', async () => {
 		const f = await buildFixture({ method: 'consensus' });
 		const entry = f.entries[0].id;
