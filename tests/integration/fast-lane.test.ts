@@ -6,7 +6,13 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sequelize } from '../../src/lib/server/db';
 import { fastLane } from '../../src/lib/server/fast-lane';
 import { FALLBACK_CSP, SECURITY_HEADERS } from '../../src/lib/server/security-headers';
-import { buildFixture, deductions, removeFixtures, type Fixture } from './judging-fixture';
+import {
+	buildFixture,
+	deductions,
+	removeFixtures,
+	sheetVersion,
+	type Fixture
+} from './judging-fixture';
 
 /**
  * The fast lane in front of a stand-in for SvelteKit's handler (which answers 299 and counts what
@@ -93,14 +99,6 @@ async function put(
 	return { status: res.status, headers: res.headers, text, passedOn };
 }
 
-async function versions(entryId: string): Promise<number[]> {
-	const rows = await sequelize.query<{ version: number }>(
-		'SELECT version FROM score_sheets WHERE entry_id = :entryId ORDER BY version',
-		{ replacements: { entryId }, type: QueryTypes.SELECT }
-	);
-	return rows.map((r) => r.version);
-}
-
 describe('the fast lane for score sheet saves', () => {
 	it('saves a judge’s change itself, with the security headers, and the sheet is stored', async () => {
 		const answer = await put(JSON.stringify(change(0, deductions([1, 0.5, 0, 0, 0]))), {
@@ -152,7 +150,7 @@ describe('the fast lane for score sheet saves', () => {
 		expect(badShape.status).toBe(400);
 		expect(JSON.parse(badShape.text).problems.length).toBeGreaterThan(0);
 		expect([conflict, badPoints, notJson, badShape].flatMap((a) => a.passedOn)).toEqual([]);
-		expect(await versions(entryId)).toEqual([1]);
+		expect(await sheetVersion(entryId)).toEqual([1]);
 	});
 
 	it('refuses an entry outside the judge’s classes itself, and keeps nothing', async () => {
@@ -160,7 +158,7 @@ describe('the fast lane for score sheet saves', () => {
 			cookie: cookies.judge
 		});
 		expect([answer.status, answer.passedOn]).toEqual([403, []]);
-		expect(await versions(f.otherEntry)).toEqual([]);
+		expect(await sheetVersion(f.otherEntry)).toEqual([]);
 	});
 
 	it('passes on, unread, every request it should not answer', async () => {
@@ -183,7 +181,7 @@ describe('the fast lane for score sheet saves', () => {
 				passedOn: [{ method: options?.method ?? 'PUT', body }]
 			});
 		}
-		expect(await versions(f.entries[2].id)).toEqual([]);
+		expect(await sheetVersion(f.entries[2].id)).toEqual([]);
 	});
 
 	it('passes on a body sent in chunks of unstated length, and one over its limit', async () => {
@@ -205,6 +203,6 @@ describe('the fast lane for score sheet saves', () => {
 			cookie: cookies.judge
 		});
 		expect(long.status).toBe(299);
-		expect(await versions(f.entries[2].id)).toEqual([]);
+		expect(await sheetVersion(f.entries[2].id)).toEqual([]);
 	});
 });

@@ -179,6 +179,15 @@ export async function buildFixture(
 	};
 }
 
+/** The versions of an entry's score sheets (one per sheet), lowest first. */
+export async function sheetVersion(entryId: string): Promise<number[]> {
+	const rows = await sequelize.query<{ version: number }>(
+		'SELECT version FROM score_sheets WHERE entry_id = :entryId ORDER BY version',
+		{ replacements: { entryId }, type: QueryTypes.SELECT }
+	);
+	return rows.map((r) => r.version);
+}
+
 /** Counts rows of a table for a show. */
 export async function countFor(table: string, showId: string): Promise<number> {
 	const [row] = await sequelize.query<{ n: string }>(

@@ -12,7 +12,13 @@ import {
 	loadShowJudging,
 	publishResults
 } from '../../src/lib/server/services/results';
-import { buildFixture, countFor, deductions, removeFixtures } from './judging-fixture';
+import {
+	buildFixture,
+	countFor,
+	deductions,
+	removeFixtures,
+	sheetVersion
+} from './judging-fixture';
 
 afterAll(removeFixtures);
 
@@ -35,14 +41,6 @@ async function refusalOf(promise: Promise<unknown>): Promise<Refusal> {
 	);
 	expect(err).toBeInstanceOf(Refusal);
 	return err as Refusal;
-}
-
-async function sheetVersion(entryId: string): Promise<number[]> {
-	const rows = await sequelize.query<{ version: number }>(
-		'SELECT version FROM score_sheets WHERE entry_id = :entryId ORDER BY version',
-		{ replacements: { entryId }, type: QueryTypes.SELECT }
-	);
-	return rows.map((r) => r.version);
 }
 
 describe('panels refuse a judge with an entry in the class', () => {
