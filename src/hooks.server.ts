@@ -1,17 +1,17 @@
 import { error, type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
-import { authHandle, SESSION_MAX_AGE_SECONDS, SESSION_UPDATE_AGE_SECONDS } from '$lib/server/auth';
+import { authHandle, findSessionUser, SESSION_COOKIES, sessionTokenOf } from '$lib/server/auth';
 import { resultsPageCache } from '$lib/server/cache/results-page';
 import { sequelize } from '$lib/server/db';
 import { DATABASE_DOWN_MESSAGE, isDatabaseDown } from '$lib/server/db/connection';
 import { AREA_ROLES, areaOf, requireRole, requireUser } from '$lib/server/policies';
 import { startOutboxWorker } from '$lib/server/mail/outbox';
-import { loadSessionUser, loadSignedInUser } from '$lib/server/services/people';
+import { loadSignedInUser } from '$lib/server/services/people';
 import { startRefundSender } from '$lib/server/services/refunds';
 import { startReminderSchedule } from '$lib/server/services/reminders';
 import { todayIso } from '$lib/schemas/plants';
 import { answerThrown, withSecurityHeaders } from '$lib/server/security-headers';
-import { registerFastLane, SESSION_COOKIES, UNEXPECTED_ERROR_MESSAGE } from '$lib/server/fast-lane';
+import { registerFastLane, UNEXPECTED_ERROR_MESSAGE } from '$lib/server/fast-lane';
 
 /**
  * Fills locals.user from the database session; visitors without a session cookie cost nothing.
@@ -20,12 +20,9 @@ import { registerFastLane, SESSION_COOKIES, UNEXPECTED_ERROR_MESSAGE } from '$li
  */
 const userHandle: Handle = async ({ event, resolve }) => {
 	event.locals.user = null;
-	const token = SESSION_COOKIES.map((name) => event.cookies.get(name)).find(Boolean);
+	const token = sessionTokenOf((name) => event.cookies.get(name));
 	if (token) {
-		const found = await loadSessionUser(token, {
-			maxAgeSeconds: SESSION_MAX_AGE_SECONDS,
-			updateAgeSeconds: SESSION_UPDATE_AGE_SECONDS
-		});
+		const found = await findSessionUser(token);
 		if (found && !found.due) {
 			event.locals.user = found.user;
 			return resolve(event);

@@ -4,6 +4,7 @@ import Nodemailer from '@auth/sveltekit/providers/nodemailer';
 import { Account, Session, User, VerificationToken, sequelize } from './db';
 import { buildSignInMessage } from './mail/sign-in-message';
 import { mailFrom, sendMail, smtpUrl } from './mail/transport';
+import { loadSessionUser } from './services/people';
 
 /** How long a sign-in link works. */
 export const SIGN_IN_LINK_MINUTES = 30;
@@ -11,6 +12,25 @@ export const SIGN_IN_LINK_MINUTES = 30;
 /** How long a session lasts, and how often Auth.js pushes its end further out (rolling). */
 export const SESSION_MAX_AGE_SECONDS = 30 * 24 * 60 * 60;
 export const SESSION_UPDATE_AGE_SECONDS = 24 * 60 * 60;
+
+/** The session cookie, under its plain name and the name it has when served as https. */
+export const SESSION_COOKIES = ['authjs.session-token', '__Secure-authjs.session-token'];
+
+/** The session token among a request's cookies (read by name), if there is one. */
+export function sessionTokenOf(cookie: (name: string) => string | undefined): string | undefined {
+	return SESSION_COOKIES.map(cookie).find(Boolean);
+}
+
+/**
+ * The person of a session token in one query, and whether the session is due for its rolling
+ * extension (which only Auth.js makes); null for an unknown or expired session.
+ */
+export function findSessionUser(token: string) {
+	return loadSessionUser(token, {
+		maxAgeSeconds: SESSION_MAX_AGE_SECONDS,
+		updateAgeSeconds: SESSION_UPDATE_AGE_SECONDS
+	});
+}
 
 function authSecret(): string | undefined {
 	if (process.env.AUTH_SECRET) return process.env.AUTH_SECRET;

@@ -11,15 +11,11 @@
  */
 import type { IncomingMessage, ServerResponse } from 'node:http';
 import { parse as parseCookies } from 'cookie';
-import { SESSION_MAX_AGE_SECONDS, SESSION_UPDATE_AGE_SECONDS } from '$lib/server/auth';
+import { findSessionUser, sessionTokenOf } from '$lib/server/auth';
 import { DATABASE_DOWN_MESSAGE, isDatabaseDown } from '$lib/server/db/connection';
 import { hasRole } from '$lib/server/policies';
 import { FALLBACK_CSP, SECURITY_HEADERS } from '$lib/server/security-headers';
-import { loadSessionUser } from '$lib/server/services/people';
 import { answerSheetChange, SHEET_SAVERS } from '$lib/server/sheet-save';
-
-/** The session cookie, under its plain name and the name it has when served as https. */
-export const SESSION_COOKIES = ['authjs.session-token', '__Secure-authjs.session-token'];
 
 /** The plain message of an unexpected error (the details go to the log). */
 export const UNEXPECTED_ERROR_MESSAGE = 'Something went wrong on our side. Please try again.';
@@ -67,12 +63,9 @@ function isPlainSave(req: IncomingMessage): boolean {
 /** The signed-in person allowed to save, or null when SvelteKit should answer the request. */
 async function allowedSaver(req: IncomingMessage): Promise<App.SignedInUser | null> {
 	const cookies = parseCookies(req.headers.cookie ?? '');
-	const token = SESSION_COOKIES.map((name) => cookies[name]).find(Boolean);
+	const token = sessionTokenOf((name) => cookies[name]);
 	if (!token) return null;
-	const found = await loadSessionUser(token, {
-		maxAgeSeconds: SESSION_MAX_AGE_SECONDS,
-		updateAgeSeconds: SESSION_UPDATE_AGE_SECONDS
-	});
+	const found = await findSessionUser(token);
 	if (!found || found.due || !hasRole(found.user, SHEET_SAVERS)) return null;
 	return found.user;
 }
