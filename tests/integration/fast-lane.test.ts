@@ -2,7 +2,7 @@ import { randomBytes, randomUUID } from 'node:crypto';
 import http from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { QueryTypes } from 'sequelize';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { sequelize } from '../../src/lib/server/db';
 import { fastLane } from '../../src/lib/server/fast-lane';
 import { FALLBACK_CSP, SECURITY_HEADERS } from '../../src/lib/server/security-headers';
@@ -204,5 +204,40 @@ describe('the fast lane for score sheet saves', () => {
 		});
 		expect(long.status).toBe(299);
 		expect(await sheetVersion(f.entries[2].id)).toEqual([]);
+	});
+
+	it('passes on every save when BODY_SIZE_LIMIT is set below its own limit', async () => {
+		const before = process.env.BODY_SIZE_LIMIT;
+		process.env.BODY_SIZE_LIMIT = '1K';
+		vi.resetModules();
+		try {
+			const fresh = await import('../../src/lib/server/fast-lane');
+			const small = JSON.stringify(change(0, { symmetry: 1 }, f.entries[2].id));
+			const long = JSON.stringify({ ...change(0, {}, f.entries[2].id), comment: 'x'.repeat(1100) });
+			const taken: string[] = [];
+			const lane = http.createServer((req, res) =>
+				fresh.fastLane(req, res, () => {
+					taken.push('passed on');
+					req.resume();
+					res.writeHead(299).end();
+				})
+			);
+			await new Promise<void>((resolve) => lane.listen(0, '127.0.0.1', resolve));
+			const url = `http://127.0.0.1:${(lane.address() as AddressInfo).port}/api/judging/sheets`;
+			const send = (body: string) =>
+				fetch(url, {
+					method: 'PUT',
+					headers: { 'content-type': 'application/json', cookie: cookies.judge },
+					body
+				}).then((r) => r.status);
+			expect([await send(long), await send(small)]).toEqual([299, 200]);
+			expect(taken).toEqual(['passed on']);
+			lane.closeAllConnections();
+			await new Promise((resolve) => lane.close(resolve));
+		} finally {
+			if (before === undefined) delete process.env.BODY_SIZE_LIMIT;
+			else process.env.BODY_SIZE_LIMIT = before;
+			vi.resetModules();
+		}
 	});
 });

@@ -26,8 +26,18 @@ export type Lane = (req: IncomingMessage, res: ServerResponse, next: () => void)
 /** Where server.js finds the lane: set by the app's init hook when the built app loads. */
 export const FAST_LANE_KEY = Symbol.for('crownbench.fast-lane');
 
-/** A sheet change is well under this; larger bodies go to SvelteKit and its own size limit. */
-const MAX_BODY_BYTES = 64 * 1024;
+/** BODY_SIZE_LIMIT as adapter-node reads it (bytes, or a number with K, M or G; 512K unset). */
+function bodySizeLimit(value = process.env.BODY_SIZE_LIMIT ?? '512K'): number {
+	const unit = { K: 1024, M: 1024 ** 2, G: 1024 ** 3 }[value.slice(-1).toUpperCase()];
+	const bytes = unit ? Number(value.slice(0, -1)) * unit : Number(value);
+	return Number.isNaN(bytes) ? 0 : bytes;
+}
+
+/**
+ * A sheet change is well under 64 kB; larger bodies go to SvelteKit and its own size limit, and
+ * so does every body when that limit is set lower.
+ */
+const MAX_BODY_BYTES = Math.min(64 * 1024, bodySizeLimit());
 
 function send(
 	res: ServerResponse,
