@@ -1,4 +1,4 @@
-import { randomBytes, randomUUID } from 'node:crypto';
+import { randomBytes } from 'node:crypto';
 import http from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { QueryTypes } from 'sequelize';
@@ -10,6 +10,7 @@ import {
 	buildFixture,
 	deductions,
 	removeFixtures,
+	sheetChange,
 	sheetVersion,
 	type Fixture
 } from './judging-fixture';
@@ -71,15 +72,7 @@ afterAll(async () => {
 });
 
 function change(baseVersion: number, d: Record<string, unknown>, entryId = f.entries[0].id) {
-	return {
-		changeId: randomUUID(),
-		entryId,
-		baseVersion,
-		deductions: d,
-		comment: '',
-		notJudged: null,
-		judgesChoiceRank: null
-	};
+	return sheetChange(entryId, baseVersion, d);
 }
 
 async function put(

@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
+import type { SheetChange } from '../../src/lib/schemas/judging';
 import { sequelize } from '../../src/lib/server/db';
 
 /** The published scale: 25/25/25/15/10 = 100 ("A Beginner's Guide to Judging", AVM 1993, rev. 2020 (DOMAIN.md)). */
@@ -176,6 +177,23 @@ export async function buildFixture(
 		exhibitors,
 		entries,
 		otherEntry
+	};
+}
+
+/** A change of an entry's sheet as a tablet sends it, with a new change id. */
+export function sheetChange(
+	entryId: string,
+	baseVersion: number,
+	d: Record<string, unknown>
+): SheetChange {
+	return {
+		changeId: randomUUID(),
+		entryId,
+		baseVersion,
+		deductions: d,
+		comment: '',
+		notJudged: null,
+		judgesChoiceRank: null
 	};
 }
 

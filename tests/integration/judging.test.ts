@@ -1,8 +1,6 @@
-import { randomUUID } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
 import { afterAll, describe, expect, it } from 'vitest';
 import { sequelize, Show } from '../../src/lib/server/db';
-import type { SheetChange } from '../../src/lib/schemas/judging';
 import { loadJudgeClass, saveSheet } from '../../src/lib/server/services/judging';
 import { addJudge, assignClass, setClerk } from '../../src/lib/server/services/panels';
 import { Refusal } from '../../src/lib/server/services/refusal';
@@ -17,22 +15,11 @@ import {
 	countFor,
 	deductions,
 	removeFixtures,
+	sheetChange,
 	sheetVersion
 } from './judging-fixture';
 
 afterAll(removeFixtures);
-
-function change(entryId: string, baseVersion: number, d: Record<string, unknown>): SheetChange {
-	return {
-		changeId: randomUUID(),
-		entryId,
-		baseVersion,
-		deductions: d,
-		comment: '',
-		notJudged: null,
-		judgesChoiceRank: null
-	};
-}
 
 async function refusalOf(promise: Promise<unknown>): Promise<Refusal> {
 	const err = await promise.then(
@@ -90,9 +77,9 @@ describe('saving sheets', () => {
 		const f = await buildFixture();
 		const [judge] = f.judges;
 		const entry = f.entries[0].id;
-		const first = await saveSheet(judge, change(entry, 0, { symmetry: 1.5 }));
+		const first = await saveSheet(judge, sheetChange(entry, 0, { symmetry: 1.5 }));
 		expect(first).toMatchObject({ status: 'saved', sheet: { version: 1, total: 98.5 } });
-		const second = await saveSheet(judge, change(entry, 1, deductions([1.5, 1, 0, 0, 0.5])));
+		const second = await saveSheet(judge, sheetChange(entry, 1, deductions([1.5, 1, 0, 0, 0.5])));
 		expect(second.sheet).toMatchObject({ version: 2, total: 97, complete: true });
 		const audit = await sequelize.query<{
 			actor_email: string;
@@ -124,8 +111,8 @@ describe('saving sheets', () => {
 		async (_what, d, message) => {
 			const f = await buildFixture();
 			const entry = f.entries[0].id;
-			await saveSheet(f.judges[0], change(entry, 0, { symmetry: 1 }));
-			const refused = await refusalOf(saveSheet(f.judges[0], change(entry, 1, d)));
+			await saveSheet(f.judges[0], sheetChange(entry, 0, { symmetry: 1 }));
+			const refused = await refusalOf(saveSheet(f.judges[0], sheetChange(entry, 1, d)));
 			expect(refused.status).toBe(400);
 			expect(refused.message).toMatch(message);
 			expect(await sheetVersion(entry)).toEqual([1]);
@@ -136,10 +123,10 @@ describe('saving sheets', () => {
 	it('refuses an entry outside the judge’s classes, and a judge not on the panel', async () => {
 		const f = await buildFixture();
 		const outside = await refusalOf(
-			saveSheet(f.judges[0], change(f.otherEntry, 0, { symmetry: 1 }))
+			saveSheet(f.judges[0], sheetChange(f.otherEntry, 0, { symmetry: 1 }))
 		);
 		expect(outside).toMatchObject({ status: 403, message: 'This entry is not in your classes.' });
-		const notOnPanel = await refusalOf(saveSheet(f.judges[2], change(f.entries[0].id, 0, {})));
+		const notOnPanel = await refusalOf(saveSheet(f.judges[2], sheetChange(f.entries[0].id, 0, {})));
 		expect(notOnPanel.status).toBe(403);
 		expect(await countFor('score_sheets', f.showId)).toBe(0);
 	});
@@ -159,23 +146,27 @@ describe('saving sheets', () => {
 		});
 		// Judge 2's household is written differently (case, spaces) from the exhibitor's: still one household.
 		await household(judge2.id, '  marrowGATE ');
-		const refused = await refusalOf(saveSheet(judge2, change(f.entries[0].id, 0, { symmetry: 1 })));
+		const refused = await refusalOf(
+			saveSheet(judge2, sheetChange(f.entries[0].id, 0, { symmetry: 1 }))
+		);
 		expect(refused).toMatchObject({ status: 403, message: expect.stringMatching(/household/) });
 		await expect(loadJudgeClass(judge2.id, f.classId)).rejects.toMatchObject({ status: 403 });
 		// Judge 1 has no household; blank households are nobody's household.
-		expect((await saveSheet(judge1, change(f.entries[0].id, 0, { symmetry: 1 }))).status).toBe(
+		expect((await saveSheet(judge1, sheetChange(f.entries[0].id, 0, { symmetry: 1 }))).status).toBe(
 			'saved'
 		);
 		await household(judge1.id, ' ');
 		await household(f.exhibitors[0].id, '');
-		expect((await saveSheet(judge1, change(f.entries[0].id, 1, { symmetry: 2 }))).status).toBe(
+		expect((await saveSheet(judge1, sheetChange(f.entries[0].id, 1, { symmetry: 2 }))).status).toBe(
 			'saved'
 		);
 		// The judge's own entry in the class.
 		await sequelize.query(`UPDATE entries SET exhibitor_id = :judge WHERE id = :id`, {
 			replacements: { judge: judge1.id, id: f.entries[1].id }
 		});
-		const own = await refusalOf(saveSheet(judge1, change(f.entries[0].id, 2, { symmetry: 1 })));
+		const own = await refusalOf(
+			saveSheet(judge1, sheetChange(f.entries[0].id, 2, { symmetry: 1 }))
+		);
 		expect(own.status).toBe(403);
 		expect(await sheetVersion(f.entries[0].id)).toEqual([2]);
 	});
@@ -184,8 +175,8 @@ describe('saving sheets', () => {
 		const f = await buildFixture({ method: 'consensus' });
 		const entry = f.entries[0].id;
 		const [a, b] = await Promise.allSettled([
-			saveSheet(f.judges[0], change(entry, 0, { symmetry: 1 })),
-			saveSheet(f.judges[1], change(entry, 0, { symmetry: 2 }))
+			saveSheet(f.judges[0], sheetChange(entry, 0, { symmetry: 1 })),
+			saveSheet(f.judges[1], sheetChange(entry, 0, { symmetry: 2 }))
 		]);
 		const outcomes = [a, b].map((r) => r.status);
 		expect(outcomes.sort()).toEqual(['fulfilled', 'rejected']);
@@ -201,7 +192,7 @@ describe('saving sheets', () => {
 		});
 		expect(await sheetVersion(entry)).toEqual([1]);
 		// The loser re-applies on the current version: both changes are kept in the audit log.
-		await saveSheet(f.judges[1], change(entry, 1, { symmetry: 2, condition: 1 }));
+		await saveSheet(f.judges[1], sheetChange(entry, 1, { symmetry: 2, condition: 1 }));
 		expect(await sheetVersion(entry)).toEqual([2]);
 		expect(await countFor('score_audit', f.showId)).toBe(2);
 	});
@@ -211,9 +202,9 @@ describe('saving sheets', () => {
 		const entry = f.entries[1].id;
 		const judge = f.judges[1];
 		const queue = [
-			change(entry, 0, { symmetry: 1 }),
-			change(entry, 1, { symmetry: 1, condition: 2 }),
-			change(entry, 2, deductions([1, 2, 0.5, 0, 0]))
+			sheetChange(entry, 0, { symmetry: 1 }),
+			sheetChange(entry, 1, { symmetry: 1, condition: 2 }),
+			sheetChange(entry, 2, deductions([1, 2, 0.5, 0, 0]))
 		];
 		for (const c of queue) expect((await saveSheet(judge, c)).status).toBe('saved');
 		// The network dropped the replies: the tablet sends the whole queue again, twice at once.
@@ -228,7 +219,7 @@ describe('saving sheets', () => {
 		const f = await buildFixture();
 		const entry = f.entries[0].id;
 		const judge = f.judges[0];
-		const first = change(entry, 0, { symmetry: 1, condition: 0.5 });
+		const first = sheetChange(entry, 0, { symmetry: 1, condition: 0.5 });
 		const both = await Promise.all([saveSheet(judge, first), saveSheet(judge, first)]);
 		expect(both.map((r) => r.status).sort()).toEqual(['replayed', 'saved']);
 		expect(both[0].sheet).toEqual(both[1].sheet);
@@ -244,8 +235,8 @@ describe('saving sheets', () => {
 		const f = await buildFixture();
 		const entry = f.entries[0].id;
 		const judge = f.judges[0];
-		await saveSheet(judge, change(entry, 0, { symmetry: 2 }));
-		const again = await saveSheet(judge, change(entry, 1, { symmetry: 2 }));
+		await saveSheet(judge, sheetChange(entry, 0, { symmetry: 2 }));
+		const again = await saveSheet(judge, sheetChange(entry, 1, { symmetry: 2 }));
 		expect(again.status).toBe('unchanged');
 		expect(again.sheet).toMatchObject({ version: 1, deductions: { symmetry: 2 }, total: 98 });
 		expect(await sheetVersion(entry)).toEqual([1]);
@@ -254,7 +245,7 @@ describe('saving sheets', () => {
 
 	it('never sends a judge anything naming the exhibitor', async () => {
 		const f = await buildFixture();
-		const saved = await saveSheet(f.judges[0], change(f.entries[0].id, 0, { symmetry: 1 }));
+		const saved = await saveSheet(f.judges[0], sheetChange(f.entries[0].id, 0, { symmetry: 1 }));
 		const seen = JSON.stringify([await loadJudgeClass(f.judges[0].id, f.classId), saved]);
 		for (const x of f.exhibitors) {
 			expect(seen).not.toContain(x.name);
@@ -271,15 +262,15 @@ describe('panel scores, board, awards and publishing', () => {
 		const [e1, e2] = f.entries.map((e) => e.id);
 		const [j1, j2] = f.judges;
 		// 92.5 and 93 → 92.75 → 92.8 (half up to one decimal); 85 and 84.5 → 84.75 → 84.8
-		await saveSheet(j1, change(e1, 0, deductions([2, 2, 2, 1, 0.5])));
+		await saveSheet(j1, sheetChange(e1, 0, deductions([2, 2, 2, 1, 0.5])));
 		expect((await loadBoard(f.showId)).classes[0]).toMatchObject({
 			scored: 0,
 			left: 2,
 			missingSheets: 3
 		});
-		await saveSheet(j2, change(e1, 0, deductions([2, 2, 2, 1, 0])));
-		await saveSheet(j1, change(e2, 0, deductions([5, 5, 3, 1, 1])));
-		await saveSheet(j2, change(e2, 0, deductions([5, 5, 3, 1, 1.5])));
+		await saveSheet(j2, sheetChange(e1, 0, deductions([2, 2, 2, 1, 0])));
+		await saveSheet(j1, sheetChange(e2, 0, deductions([5, 5, 3, 1, 1])));
+		await saveSheet(j2, sheetChange(e2, 0, deductions([5, 5, 3, 1, 1.5])));
 		const judging = await loadShowJudging(f.showId);
 		const inClass = judging.entries.filter((e) => e.classId === f.classId);
 		expect(inClass.map((e) => e.score)).toEqual([92.8, 84.8]);
@@ -304,14 +295,14 @@ describe('panel scores, board, awards and publishing', () => {
 	it('publishes in one transaction, then refuses every score and award change', async () => {
 		const f = await buildFixture({ entryCount: 1 });
 		const entry = f.entries[0].id;
-		await saveSheet(f.judges[0], change(entry, 0, deductions([1, 1, 1, 1, 1])));
+		await saveSheet(f.judges[0], sheetChange(entry, 0, deductions([1, 1, 1, 1, 1])));
 		const early = await refusalOf(
 			sequelize.transaction((t) => publishResults(f.judges[0], f.showId, { transaction: t }))
 		);
 		// entry 1 waits for judge 2; entry 100 waits in class 2, which has no panel
 		expect(early.message).toMatch(/2 entries still have no score/);
 		expect(await countFor('awards', f.showId)).toBe(0);
-		await saveSheet(f.judges[1], change(entry, 0, deductions([1, 1, 1, 1, 0])));
+		await saveSheet(f.judges[1], sheetChange(entry, 0, deductions([1, 1, 1, 1, 0])));
 		const outcome = await sequelize.transaction((t) =>
 			publishResults(f.judges[0], f.showId, { transaction: t, allowIncomplete: true })
 		);
@@ -323,7 +314,7 @@ describe('panel scores, board, awards and publishing', () => {
 		);
 		expect(stored.map((a) => a.kind)).toEqual(['ribbon', 'best_in_class', 'sweepstakes']);
 
-		const locked = await refusalOf(saveSheet(f.judges[0], change(entry, 1, { symmetry: 0 })));
+		const locked = await refusalOf(saveSheet(f.judges[0], sheetChange(entry, 1, { symmetry: 0 })));
 		expect(locked.status).toBe(423);
 		await expect(
 			sequelize.query(`UPDATE score_sheets SET comment = 'late' WHERE entry_id = :entry`, {
