@@ -15,6 +15,7 @@ export const auditQueryFields = {
 	page: z.coerce.number().int().min(1).max(10_000)
 };
 
+/** The filters of a log page; dates are whole days (YYYY-MM-DD), inclusive. */
 export interface AuditQuery {
 	action?: AuditAction;
 	person?: string;

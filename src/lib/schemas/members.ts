@@ -23,6 +23,16 @@ export const memberQuerySchema = z.object({
 
 export type MemberQuery = z.infer<typeof memberQuerySchema>;
 
+/** The members table's query from a page or API address (empty filters count as none). */
+export function parseMemberQuery(searchParams: URLSearchParams) {
+	const params = Object.fromEntries(searchParams);
+	return memberQuerySchema.safeParse({
+		...params,
+		role: params.role || undefined,
+		standing: params.standing || undefined
+	});
+}
+
 /** Form: invite an address into the society with some roles. */
 export const inviteSchema = z.object({
 	societyId: z.uuid('Choose a society.'),

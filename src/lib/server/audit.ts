@@ -1,5 +1,6 @@
 import { QueryTypes, type Transaction } from 'sequelize';
 import type { AuditAction, AuditPage, AuditRow } from '$lib/audit';
+import type { AuditQuery } from '$lib/schemas/audit';
 import { AuditEvent, User, sequelize } from './db';
 
 /**
@@ -77,27 +78,18 @@ export async function recordShowAudit(
 /** Whose log is read: a whole society (its admin) or one show (its chair). */
 export type AuditScope = { societyId: string } | { showId: string };
 
-/** The filters of the log page; dates are whole days (YYYY-MM-DD), inclusive. */
-export interface AuditFilter {
-	action?: AuditAction;
-	personId?: string;
-	from?: string;
-	to?: string;
-	page: number;
-}
-
 export const AUDIT_PAGE_SIZE = 50;
 
 /**
  * The log of a society or show, newest first, one page at a time: the audit events and the score
  * sheets' changes (score_audit) read as one list, filtered by action, person and days.
  */
-export async function listAuditLog(scope: AuditScope, filter: AuditFilter): Promise<AuditPage> {
+export async function listAuditLog(scope: AuditScope, filter: AuditQuery): Promise<AuditPage> {
 	const bySociety = 'societyId' in scope;
 	const replacements: Record<string, unknown> = {
 		scopeId: bySociety ? scope.societyId : scope.showId,
 		action: filter.action ?? null,
-		personId: filter.personId ?? null,
+		personId: filter.person ?? null,
 		from: filter.from ?? null,
 		to: filter.to ?? null,
 		limit: AUDIT_PAGE_SIZE,

@@ -2,7 +2,7 @@ import type { Transaction } from 'sequelize';
 import type { EntryFeeRefund } from '../../domain/dues';
 import { recordAudit, type AuditActor } from '../audit';
 import { DuesPeriod, Payment, Show, Society, User } from '../db';
-import type { PaymentRow } from './payments';
+import { toPaymentRow, type PaymentRow } from './payments';
 
 /** A dues period as the admin sees it. */
 export interface DuesPeriodRow {
@@ -148,18 +148,6 @@ export async function recentPayments(societyId: string, limit = 30): Promise<Pay
 	});
 	return rows.map((p) => {
 		const user = p.get('user') as User;
-		return {
-			id: p.id,
-			purpose: p.purpose,
-			status: p.status,
-			description: p.description,
-			amountCents: p.amountCents,
-			refundedCents: p.refundedCents,
-			currency: p.currency,
-			createdAt: p.createdAt.toISOString(),
-			paidAt: p.paidAt ? p.paidAt.toISOString() : null,
-			payerName: user.name,
-			payerEmail: user.email
-		};
+		return { ...toPaymentRow(p), payerName: user.name, payerEmail: user.email };
 	});
 }

@@ -8,15 +8,10 @@ import { Membership, Society, User, sequelize } from '../db';
 import { queueMail } from '../mail/outbox';
 import { invitationMessage } from '../mail/payment-messages';
 import { todayIso } from './payments';
+import type { PersonRow } from './people';
 
-/** One row of the admin's members table. */
-export interface MemberRow {
-	userId: string;
-	name: string | null;
-	email: string;
-	roles: Role[];
-	household: string | null;
-	duesPaidThrough: string | null;
+/** One row of the admin's members table: a person of the society, with standing and sign-in. */
+export interface MemberRow extends PersonRow {
 	standing: DuesStanding;
 	signedIn: boolean;
 	joinedOn: string;

@@ -172,26 +172,24 @@ async function applyDues(
 		}),
 		payment.duesPeriodId ? DuesPeriod.findByPk(payment.duesPeriodId, { transaction }) : null
 	]);
-	if (!membership || !period) {
+	// The whole payment goes back, with the reason in the receipt.
+	const refundWhole = async (note: string) => {
 		await Refund.create(
 			{ paymentId: payment.id, entryId: null, amountCents: payment.amountCents },
 			{ transaction }
 		);
-		return {
-			note: 'The dues period or membership no longer exists, so this payment will be refunded.',
-			refund: true
-		};
+		return { note, refund: true };
+	};
+	if (!membership || !period) {
+		return refundWhole(
+			'The dues period or membership no longer exists, so this payment will be refunded.'
+		);
 	}
 	const next = extendPaidThrough(membership.duesPaidThrough, period.endsOn);
 	if (next === membership.duesPaidThrough) {
-		await Refund.create(
-			{ paymentId: payment.id, entryId: null, amountCents: payment.amountCents },
-			{ transaction }
+		return refundWhole(
+			'Your dues were already paid for this period, so this payment will be refunded.'
 		);
-		return {
-			note: 'Your dues were already paid for this period, so this payment will be refunded.',
-			refund: true
-		};
 	}
 	await membership.update({ duesPaidThrough: next }, { transaction });
 	return { note: `Your dues are now paid through ${formatDateLong(next)}.`, refund: false };

@@ -256,7 +256,8 @@ export interface PaymentRow {
 	payerEmail?: string;
 }
 
-function toRow(p: Payment): PaymentRow {
+/** A payment as the member and admin pages list it. */
+export function toPaymentRow(p: Payment): PaymentRow {
 	return {
 		id: p.id,
 		purpose: p.purpose,
@@ -284,7 +285,7 @@ export async function paymentsOfMember(userId: string): Promise<PaymentRow[]> {
 		order: [['createdAt', 'DESC']],
 		limit: 100
 	});
-	return rows.map(toRow);
+	return rows.map(toPaymentRow);
 }
 
 /** Entry fees a member owes or has paid, grouped by show. */
@@ -358,5 +359,5 @@ export async function paymentForSession(
 	sessionId: string
 ): Promise<PaymentRow | null> {
 	const p = await Payment.findOne({ where: { userId, checkoutSessionId: sessionId } });
-	return p ? toRow(p) : null;
+	return p ? toPaymentRow(p) : null;
 }

@@ -9,15 +9,6 @@ export const load: PageServerLoad = async (event) => {
 	const user = requireRole(event, ['admin']);
 	const society = chooseSociety(user, ['admin'], event.url.searchParams.get('society'));
 	const { query, ignored } = readAuditQuery(event.url.searchParams);
-	const log = await listAuditLog(
-		{ societyId: society.societyId },
-		{
-			action: query.action,
-			personId: query.person,
-			from: query.from,
-			to: query.to,
-			page: query.page
-		}
-	);
+	const log = await listAuditLog({ societyId: society.societyId }, query);
 	return { society, query, ignored, log };
 };

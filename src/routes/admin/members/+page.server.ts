@@ -1,7 +1,12 @@
 import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { ROLE_LABELS, ROLES } from '$lib/roles';
-import { changeRolesSchema, inviteSchema, memberQuerySchema } from '$lib/schemas/members';
+import {
+	changeRolesSchema,
+	inviteSchema,
+	memberQuerySchema,
+	parseMemberQuery
+} from '$lib/schemas/members';
 import { sequelize } from '$lib/server/db';
 import { requireRole } from '$lib/server/policies';
 import {
@@ -16,12 +21,7 @@ import type { Actions, PageServerLoad } from './$types';
 export const load: PageServerLoad = async (event) => {
 	const user = requireRole(event, ['admin']);
 	const society = chooseSociety(user, ['admin'], event.url.searchParams.get('society'));
-	const params = Object.fromEntries(event.url.searchParams);
-	const parsed = memberQuerySchema.safeParse({
-		...params,
-		role: params.role || undefined,
-		standing: params.standing || undefined
-	});
+	const parsed = parseMemberQuery(event.url.searchParams);
 	const query = parsed.success ? parsed.data : memberQuerySchema.parse({});
 	return {
 		society,

@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
-import { memberQuerySchema } from '$lib/schemas/members';
+import { parseMemberQuery } from '$lib/schemas/members';
 import { requireRole } from '$lib/server/policies';
 import { listMembers } from '$lib/server/services/members';
 import { chooseSociety } from '$lib/server/society-choice';
@@ -13,12 +13,7 @@ import type { RequestHandler } from './$types';
 export const GET: RequestHandler = async (event) => {
 	const user = requireRole(event, ['admin']);
 	const society = chooseSociety(user, ['admin'], event.url.searchParams.get('society'));
-	const params = Object.fromEntries(event.url.searchParams);
-	const parsed = memberQuerySchema.safeParse({
-		...params,
-		role: params.role || undefined,
-		standing: params.standing || undefined
-	});
+	const parsed = parseMemberQuery(event.url.searchParams);
 	if (!parsed.success) {
 		return json(
 			{ message: 'Check the filters.', errors: z.flattenError(parsed.error).fieldErrors },

@@ -7,15 +7,6 @@ import type { PageServerLoad } from './$types';
 export const load: PageServerLoad = async (event) => {
 	const { show } = await requireShowRole(event, event.params.slug, ['chair']);
 	const { query, ignored } = readAuditQuery(event.url.searchParams);
-	const log = await listAuditLog(
-		{ showId: show.id },
-		{
-			action: query.action,
-			personId: query.person,
-			from: query.from,
-			to: query.to,
-			page: query.page
-		}
-	);
+	const log = await listAuditLog({ showId: show.id }, query);
 	return { show: { name: show.name, slug: show.slug }, query, ignored, log };
 };
