@@ -180,17 +180,12 @@ async function main(): Promise<void> {
 		{ name: 'app', url: app, pid: appProcess.pid },
 		{ name: 'baseline', url: base, pid: baseProcess.pid }
 	];
+	/** One load, taken in turns against the app and the baseline. */
+	const load = (kind: 'saves' | 'results') =>
+		compareLoads({ kind, targets, show, seconds, rounds, connections, dbUrl });
 	if (only === 'saves') {
 		log(`scoresheet saves only: ${connections} judges, ${seconds} s each`);
-		const saves = await compareLoads({
-			kind: 'saves',
-			targets,
-			show,
-			seconds,
-			rounds,
-			connections,
-			dbUrl
-		});
+		const saves = await load('saves');
 		const report = {
 			date: new Date().toISOString(),
 			scoresheetSaves: comparison(saves.app, saves.baseline)
@@ -210,29 +205,13 @@ async function main(): Promise<void> {
 	);
 
 	log(`scoresheet saves: ${connections} judges, ${seconds} s each for the app and the baseline`);
-	const saves = await compareLoads({
-		kind: 'saves',
-		targets,
-		show,
-		seconds,
-		rounds,
-		connections,
-		dbUrl
-	});
+	const saves = await load('saves');
 
 	log('publishing the results');
 	const publishMs = await publish(show);
 
 	log(`results page: ${connections} visitors, ${seconds} s each for the app and the baseline`);
-	const page = await compareLoads({
-		kind: 'results',
-		targets,
-		show,
-		seconds,
-		rounds,
-		connections,
-		dbUrl
-	});
+	const page = await load('results');
 	await settle();
 
 	log('award sheets PDF in a process of its own');

@@ -1,9 +1,9 @@
 import { expect, test } from '@playwright/test';
-import { VISITOR_KINDS, VISITORS, type Visitor } from './access/people';
+import { VISITOR_KINDS } from './access/people';
 import { fillRoute, loadParams } from './access/params';
 import { listRouteIds } from './access/routes';
 import { ACCESS_TABLE, type Answer } from './access/table';
-import { signIn } from './support/session';
+import { sessionCookies } from './support/cookies';
 
 /** Row params may name a looked-up value with a leading $ (e.g. '$memberEntryId'). */
 function resolveParams(
@@ -37,18 +37,7 @@ test('every route answers every kind of visitor as the table says', async ({
 }) => {
 	test.setTimeout(180_000);
 	const params = await loadParams();
-	const cookies: Partial<Record<Visitor, string>> = {};
-	for (const visitor of VISITOR_KINDS) {
-		const email = VISITORS[visitor];
-		if (!email) continue;
-		const context = await browser.newContext();
-		const page = await context.newPage();
-		await signIn(page, email);
-		const session = (await context.cookies()).find((c) => c.name.endsWith('authjs.session-token'));
-		expect(session, `session for ${email}`).toBeTruthy();
-		cookies[visitor] = `${session!.name}=${session!.value}`;
-		await context.close();
-	}
+	const cookies = await sessionCookies(browser, VISITOR_KINDS);
 
 	const mismatches: string[] = [];
 	let checked = 0;

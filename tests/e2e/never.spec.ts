@@ -5,6 +5,7 @@ import sharp from 'sharp';
 import { VISITORS, type Visitor } from './access/people';
 import { fillRoute, loadParams } from './access/params';
 import { ACCESS_TABLE } from './access/table';
+import { enterNewPlant } from './support/entries';
 import { createJudgingShow, withDb } from './support/judging-fixture';
 import { cookieFor, requestAs, wordsIn } from './support/visitors';
 
@@ -91,35 +92,17 @@ test('an exhibitor never sees another exhibitor’s entries, plants or photos be
 	const secretLabel = `Back shelf ${tag}`;
 	// Exhibitor B (exhibitor1@) enters a plant of their collection in the spring show, whose
 	// schedule is public and whose results are not.
-	const b = await withDb(async (db) => {
-		const one = async (sql: string, values: unknown[] = []) =>
-			(await db.query(sql, values)).rows[0];
-		const show = await one(`SELECT results_published_at FROM shows WHERE id = $1`, [params.showId]);
-		expect(show.results_published_at, 'the spring show’s results are not public').toBeNull();
-		const user = await one(
-			`SELECT id, name, email FROM users WHERE email = 'exhibitor1@crownbench.test'`
-		);
-		const cls = await one(`SELECT id FROM classes WHERE show_id = $1 ORDER BY position LIMIT 1`, [
-			params.showId
-		]);
-		const variety = await one(
-			`SELECT id FROM varieties WHERE society_id = $1 ORDER BY name LIMIT 1`,
-			[params.societyId]
-		);
-		const plantId = randomUUID();
-		await db.query(
-			`INSERT INTO plants (id, owner_id, variety_id, label, obtained_how, obtained_on)
-			 VALUES ($1, $2, $3, $4, 'bought', current_date - 200)`,
-			[plantId, user.id, variety.id, secretLabel]
-		);
-		const entryId = randomUUID();
-		const number = 7000 + Math.floor(Math.random() * 2000);
-		await db.query(
-			`INSERT INTO entries (id, show_id, class_id, exhibitor_id, title, number, plant_id)
-			 VALUES ($1, $2, $3, $4, $5, $6, $7)`,
-			[entryId, params.showId, cls.id, user.id, secretTitle, number, plantId]
-		);
-		return { user, plantId, entryId, number, classId: cls.id as string };
+	const show = await withDb(
+		async (db) =>
+			(await db.query(`SELECT results_published_at FROM shows WHERE id = $1`, [params.showId]))
+				.rows[0]
+	);
+	expect(show.results_published_at, 'the spring show’s results are not public').toBeNull();
+	const b = await enterNewPlant({
+		email: 'exhibitor1@crownbench.test',
+		label: secretLabel,
+		title: secretTitle,
+		daysOwned: 200
 	});
 	const secretWords = [secretTitle, secretLabel, b.user.name, b.user.email];
 

@@ -5,7 +5,7 @@ import { expect, test, type APIRequestContext } from '@playwright/test';
 import sharp from 'sharp';
 import { PHOTO_LIMITS } from '../../src/lib/uploads';
 import { VISITOR_KINDS, VISITORS, type Visitor } from './access/people';
-import { loadParams } from './access/params';
+import { enterNewPlant } from './support/entries';
 import { withDb } from './support/judging-fixture';
 import { cookieFor, requestAs } from './support/visitors';
 
@@ -46,40 +46,12 @@ async function orphansAmong(files: string[]): Promise<string[]> {
 
 /** A fresh entry (spring show) and plant of member@, so other tests' photos do not count. */
 async function makeMemberEntryAndPlant(): Promise<{ entryId: string; plantId: string }> {
-	const params = await loadParams();
-	return withDb(async (db) => {
-		const one = async (sql: string, values: unknown[] = []) =>
-			(await db.query(sql, values)).rows[0];
-		const user = await one(`SELECT id FROM users WHERE email = 'member@crownbench.test'`);
-		const cls = await one(`SELECT id FROM classes WHERE show_id = $1 ORDER BY position LIMIT 1`, [
-			params.showId
-		]);
-		const variety = await one(
-			`SELECT id FROM varieties WHERE society_id = $1 ORDER BY name LIMIT 1`,
-			[params.societyId]
-		);
-		const plantId = randomUUID();
-		await db.query(
-			`INSERT INTO plants (id, owner_id, variety_id, label, obtained_how, obtained_on)
-			 VALUES ($1, $2, $3, 'Upload test', 'bought', current_date - 100)`,
-			[plantId, user.id, variety.id]
-		);
-		const entryId = randomUUID();
-		await db.query(
-			`INSERT INTO entries (id, show_id, class_id, exhibitor_id, variety_id, number, plant_id)
-			 VALUES ($1, $2, $3, $4, $5, $6, $7)`,
-			[
-				entryId,
-				params.showId,
-				cls.id,
-				user.id,
-				variety.id,
-				20000 + Math.floor(Math.random() * 9e5),
-				plantId
-			]
-		);
-		return { entryId, plantId };
+	const { entryId, plantId } = await enterNewPlant({
+		email: 'member@crownbench.test',
+		label: 'Upload test',
+		daysOwned: 100
 	});
+	return { entryId, plantId };
 }
 
 async function photoCounts(ids: { entryId: string; plantId: string }) {

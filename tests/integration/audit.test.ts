@@ -520,10 +520,7 @@ describe('reading the log', () => {
 		const scores = await listAuditLog({ showId: f.showId }, { page: 1, action: 'score.change' });
 		expect(scores.rows).toHaveLength(1);
 		expect(scores.rows[0]).toMatchObject({ targetLabel: 'Entry 2', details: { after: 92 } });
-		const byPerson = await listAuditLog(
-			{ societyId: f.societyId },
-			{ page: 1, personId: actor.id }
-		);
+		const byPerson = await listAuditLog({ societyId: f.societyId }, { page: 1, person: actor.id });
 		expect(byPerson.total).toBe(2);
 		const future = addCalendarDays(todayIso(), 2);
 		expect((await listAuditLog({ societyId: f.societyId }, { page: 1, from: future })).total).toBe(

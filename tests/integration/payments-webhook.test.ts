@@ -143,6 +143,31 @@ async function lapsedMemberAtCheckout(tag: string) {
 	return { member, ...started };
 }
 
+/** A new entry, not yet checked in, whose fee is owed. */
+function entryOwingFee(
+	showId: string,
+	classId: string,
+	exhibitorId: string,
+	title: string,
+	number: number
+): Promise<Entry> {
+	return Entry.create({
+		showId,
+		classId,
+		exhibitorId,
+		varietyId: null,
+		title,
+		number,
+		acquiredOn: null,
+		measuredDiameterIn: null,
+		measuredCrowns: null,
+		potSizeIn: null,
+		checkedInAt: null,
+		checkedInBy: null,
+		feeStatus: 'due'
+	});
+}
+
 async function paidThrough(userId: string): Promise<string | null> {
 	const m = await Membership.findOne({ where: { societyId: society.id, userId } });
 	return m?.duesPaidThrough ?? null;
@@ -353,23 +378,7 @@ describe('entry fees and refunds for withdrawn entries', () => {
 		const classes = await ShowClass.findAll({ where: { showId: show.id }, limit: 2 });
 		const base = 90000 + Math.floor(Math.random() * 9000);
 		const entries = await Promise.all(
-			classes.map((c, i) =>
-				Entry.create({
-					showId: show.id,
-					classId: c.id,
-					exhibitorId: member.id,
-					varietyId: null,
-					title: `Fee test ${i}`,
-					number: base + i,
-					acquiredOn: null,
-					measuredDiameterIn: null,
-					measuredCrowns: null,
-					potSizeIn: null,
-					checkedInAt: null,
-					checkedInBy: null,
-					feeStatus: 'due'
-				})
-			)
+			classes.map((c, i) => entryOwingFee(show.id, c.id, member.id, `Fee test ${i}`, base + i))
 		);
 		const { url, paymentId } = await startEntryFeeCheckout(member, { showId: show.id }, { origin });
 		expect((await Payment.findByPk(paymentId))?.amountCents).toBe(400);
@@ -423,21 +432,13 @@ describe('entry fees and refunds for withdrawn entries', () => {
 		const member = await newLapsedMember('unpaid');
 		const show = (await Show.findOne({ where: { societyId: society.id } }))!;
 		const klass = (await ShowClass.findOne({ where: { showId: show.id } }))!;
-		const entry = await Entry.create({
-			showId: show.id,
-			classId: klass.id,
-			exhibitorId: member.id,
-			varietyId: null,
-			title: 'Unpaid',
-			number: 99500 + Math.floor(Math.random() * 400),
-			acquiredOn: null,
-			measuredDiameterIn: null,
-			measuredCrowns: null,
-			potSizeIn: null,
-			checkedInAt: null,
-			checkedInBy: null,
-			feeStatus: 'due'
-		});
+		const entry = await entryOwingFee(
+			show.id,
+			klass.id,
+			member.id,
+			'Unpaid',
+			99500 + Math.floor(Math.random() * 400)
+		);
 		const outcome = await sequelize.transaction((transaction) =>
 			settleFeeOfWithdrawnEntry(entry.id, { transaction })
 		);

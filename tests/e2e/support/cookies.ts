@@ -1,6 +1,6 @@
-import { expect, type Browser } from '@playwright/test';
+import type { Browser } from '@playwright/test';
 import { VISITORS, type Visitor } from '../access/people';
-import { signIn } from './session';
+import { cookieFor } from './visitors';
 
 /** A session cookie header ("name=value") for each signed-in kind of visitor, from real sign-ins. */
 export async function sessionCookies(
@@ -10,14 +10,7 @@ export async function sessionCookies(
 	const cookies: Partial<Record<Visitor, string>> = {};
 	for (const visitor of new Set(visitors)) {
 		const email = VISITORS[visitor];
-		if (!email) continue;
-		const context = await browser.newContext();
-		const page = await context.newPage();
-		await signIn(page, email);
-		const session = (await context.cookies()).find((c) => c.name.endsWith('authjs.session-token'));
-		expect(session, `session for ${email}`).toBeTruthy();
-		cookies[visitor] = `${session!.name}=${session!.value}`;
-		await context.close();
+		if (email) cookies[visitor] = await cookieFor(browser, email);
 	}
 	return cookies;
 }
