@@ -6,14 +6,21 @@ import {
 	type InferCreationAttributes,
 	type Sequelize
 } from 'sequelize';
+import type { PaperSize } from '../../../domain/society-settings';
+import type { LengthUnit } from '../../../domain/units';
 
-/** A plant society that holds shows. */
+/** A plant society that holds shows, with the settings its pages and documents follow. */
 export class Society extends Model<InferAttributes<Society>, InferCreationAttributes<Society>> {
 	declare id: CreationOptional<string>;
 	declare name: string;
 	declare slug: string;
 	declare currency: CreationOptional<string>;
+	declare country: CreationOptional<string>;
+	declare lengthUnit: CreationOptional<LengthUnit>;
+	declare paperSize: CreationOptional<PaperSize>;
+	declare timeZone: CreationOptional<string>;
 	declare createdAt: CreationOptional<Date>;
+	declare updatedAt: CreationOptional<Date>;
 
 	static initModel(sequelize: Sequelize): typeof Society {
 		return Society.init(
@@ -22,9 +29,18 @@ export class Society extends Model<InferAttributes<Society>, InferCreationAttrib
 				name: { type: DataTypes.STRING(160), allowNull: false },
 				slug: { type: DataTypes.STRING(80), allowNull: false, unique: true },
 				currency: { type: DataTypes.STRING(3), allowNull: false, defaultValue: 'USD' },
-				createdAt: { type: DataTypes.DATE, defaultValue: DataTypes.NOW }
+				country: { type: DataTypes.STRING(2), allowNull: false, defaultValue: 'US' },
+				lengthUnit: { type: DataTypes.STRING(2), allowNull: false, defaultValue: 'in' },
+				paperSize: { type: DataTypes.STRING(8), allowNull: false, defaultValue: 'letter' },
+				timeZone: {
+					type: DataTypes.STRING(64),
+					allowNull: false,
+					defaultValue: 'America/New_York'
+				},
+				createdAt: { type: DataTypes.DATE, defaultValue: DataTypes.NOW },
+				updatedAt: { type: DataTypes.DATE, defaultValue: DataTypes.NOW }
 			},
-			{ sequelize, tableName: 'societies', underscored: true, timestamps: false }
+			{ sequelize, tableName: 'societies', underscored: true, timestamps: true }
 		);
 	}
 }
