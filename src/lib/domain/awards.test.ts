@@ -677,6 +677,20 @@ describe('one top award per plant', () => {
 			won: [],
 			ties: ['bis:a1,b1', 'std:a1,b1']
 		});
+		expect(
+			entryTies(
+				computeAwards({
+					classes,
+					entries: [
+						buildEntry('a1', 96, { classId: 'a', number: 21 }),
+						buildEntry('b1', 96, { classId: 'b', number: 22 })
+					],
+					rules: buildRules({ topAwards: [bestInShow, bestStandard], topAwardsPerPlant: 'one' })
+				})
+			).find((t) => t.topAwardId === 'std')?.reason
+		).toBe(
+			'Best standard is not given yet: entry 21 leads it but may still win Best in show, and a plant takes only one top award at this show.'
+		);
 		// with several per plant best standard is tied the same way, independently
 		expect(run(entries, 'several').ties).toEqual(['bis:a1,b1', 'std:a1,b1']);
 		const third = { id: 'bc', name: 'Best of class C', classIds: ['c'], minScore: 90 };

@@ -765,10 +765,12 @@ function computeTopAwards(
 		const leadScore = lead ? lead[0].score : -Infinity;
 		const markUndecided = (): void => {
 			if (!onePerPlant) return;
-			for (const c of candidates) undecided.set(c.entry.id, top.name);
-			for (const id of classIds) {
-				for (const e of openBestByClass.get(id)?.entryIds ?? []) undecided.set(e, top.name);
-			}
+			const ids = [
+				...candidates.map((c) => c.entry.id),
+				...classIds.flatMap((id) => openBestByClass.get(id)?.entryIds ?? [])
+			];
+			// The earliest undecided top award is the one named in the reason.
+			for (const id of ids) if (!undecided.has(id)) undecided.set(id, top.name);
 		};
 		const waiting = classIds.filter((id) => {
 			const open = openBestByClass.get(id);
