@@ -1,8 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import {
+	awardRulesFrom,
 	computeAwards,
 	DEFAULT_AWARD_RULES,
+	describeAwardSettings,
 	validateAwardRules,
 	type Award,
 	type AwardClass,
@@ -382,6 +384,145 @@ describe('placement judging', () => {
 	});
 });
 
+describe('honorable mentions under placement judging', () => {
+	// Place minimums 90/85/80/75 are this file's placement values (our own, not published).
+	// Sources for the choices: one mention per class is common practice (and today's default);
+	// several, growing with the entries, are given in the "Awards Table" of the Cranbury Digital
+	// Camera Club's "Results" page (2 honorable mentions for 10-12 entries); mentions "at the
+	// judges' discretion" to any entry worth one are described on the "Awards" page of the
+	// Garden Club of Houston's "Graffiti" flower show, 2021.
+	const placement = { first: 90, second: 85, third: 80, honourable: 75 };
+	const classes = [buildClass('a')];
+	const scores: [string, number][] = [
+		['p1', 95],
+		['p2', 92],
+		['p3', 88],
+		['p4', 86],
+		['p5', 84],
+		['p6', 80],
+		['p7', 78],
+		['p8', 70]
+	];
+	const mentions = (
+		honorableMentions: AwardRules['honorableMentions'],
+		list: [string, number][] = scores
+	) => {
+		const result = computeAwards({
+			classes,
+			entries: list.map(([id, score]) => buildEntry(id, score)),
+			rules: buildRules({ system: 'placement', placement, honorableMentions })
+		});
+		return {
+			given: result.awards
+				.filter((a) => a.level === 'honourable')
+				.map((a) => a.entryId)
+				.join(','),
+			ties: entryTies(result).map((t) => `${(t.entryIds ?? []).join(',')}:${t.levels}`),
+			result
+		};
+	};
+
+	it.each<[string, AwardRules['honorableMentions'], string]>([
+		// p1-p3 take first to third; p4 (86), p5 (84), p6 (80), p7 (78) reach 75; p8 (70) does not
+		['one: the next entry only', { rule: 'one', count: 1 }, 'p4'],
+		['up to 3: the next three', { rule: 'number', count: 3 }, 'p4,p5,p6'],
+		['up to 10: only the four that reach 75', { rule: 'number', count: 10 }, 'p4,p5,p6,p7'],
+		['every entry reaching the minimum', { rule: 'all', count: 1 }, 'p4,p5,p6,p7']
+	])('%s', (_name, rule, expected) => {
+		const { given, ties, result } = mentions(rule);
+		expect(given).toBe(expected);
+		expect(ties).toEqual([]);
+		// first, second and third stay one each
+		expect(
+			result.awards.filter((a) => a.kind === 'placement' && a.level !== 'honourable')
+		).toHaveLength(3);
+	});
+
+	it('gives every tied entry a mention when enough are left, and holds them open when not', () => {
+		const tied: [string, number][] = [
+			['p1', 95],
+			['p2', 92],
+			['p3', 88],
+			['p4', 86],
+			['p5', 84],
+			['p6', 84]
+		];
+		// up to 2: p4 takes one, p5 and p6 tie on 84 for the last one
+		expect(mentions({ rule: 'number', count: 2 }, tied)).toMatchObject({
+			given: 'p4',
+			ties: ['p5,p6:honourable']
+		});
+		// up to 3, or every entry: mentions are equal, so both tied entries get one
+		expect(mentions({ rule: 'number', count: 3 }, tied)).toMatchObject({
+			given: 'p4,p5,p6',
+			ties: []
+		});
+		expect(mentions({ rule: 'all', count: 1 }, tied)).toMatchObject({
+			given: 'p4,p5,p6',
+			ties: []
+		});
+	});
+
+	it('explains a mention shared by tied entries', () => {
+		const entries = [
+			buildEntry('q1', 95),
+			buildEntry('q2', 84, { number: 12 }),
+			buildEntry('q3', 84, { number: 15 })
+		];
+		const result = computeAwards({
+			classes: [buildClass('a', { code: '7' })],
+			entries,
+			rules: buildRules({
+				system: 'placement',
+				placement,
+				honorableMentions: { rule: 'all', count: 1 }
+			})
+		});
+		// q1 first; q2 and q3 (84) below second's 85, so one would be third: a tie holds open
+		// third place and one honorable mention
+		expect(entryTies(result).map((t) => t.reason)).toEqual([
+			'Entries 12 and 15 in class 7 are tied on 84, and the show sets no tie-break; third place and honourable mention are held open until the judges decide.'
+		]);
+		const four = computeAwards({
+			classes: [buildClass('a', { code: '7' })],
+			entries: [
+				buildEntry('r1', 95),
+				buildEntry('r2', 92),
+				buildEntry('r3', 88),
+				buildEntry('r4', 84, { number: 12 }),
+				buildEntry('r5', 84, { number: 15 })
+			],
+			rules: buildRules({
+				system: 'placement',
+				placement,
+				honorableMentions: { rule: 'all', count: 1 }
+			})
+		});
+		expect(four.awards.find((a) => a.entryId === 'r4')?.reason).toBe(
+			'Scored 84, ranked 4th of 5 judged entries in class 7 (level with entry 15), and at or above the honourable mention minimum of 75; each of them gets one.'
+		);
+	});
+
+	it('counts every mention in the sweepstakes', () => {
+		const result = computeAwards({
+			classes,
+			entries: scores.slice(0, 5).map(([id, score]) => buildEntry(id, score, { exhibitorId: 'x' })),
+			rules: buildRules({
+				system: 'placement',
+				placement,
+				honorableMentions: { rule: 'all', count: 1 }
+			})
+		});
+		// 95 first, 92 second, 88 third, 86 and 84 honorable mentions
+		expect(result.sweepstakes[0].standings[0]).toMatchObject({
+			first: 1,
+			second: 1,
+			third: 1,
+			honourable: 2
+		});
+	});
+});
+
 describe('top awards', () => {
 	const classes = [buildClass('a'), buildClass('b'), buildClass('c'), buildClass('t')];
 	const bestInShow = { id: 'bis', name: 'Best in show', classIds: ['a', 'b', 'c'], minScore: 94 };
@@ -459,6 +600,102 @@ describe('top awards', () => {
 		expect(tops[0].reason).toBe(
 			'Best in show: the highest score (96) among the 2 eligible best-in-class entries, at or above the minimum of 94.'
 		);
+	});
+});
+
+describe('one top award per plant', () => {
+	// "A plant takes only one top award" is a show rule some societies set: common practice
+	// (from memory; no published schedule found stating it). The scores are invented totals on
+	// the published scale; the top award minimums are this file's values.
+	const classes = [buildClass('a'), buildClass('b'), buildClass('c')];
+	const bestInShow = { id: 'bis', name: 'Best in show', classIds: ['a', 'b', 'c'], minScore: 94 };
+	const bestStandard = { id: 'std', name: 'Best standard', classIds: ['a', 'b'], minScore: 90 };
+	const run = (
+		entries: AwardEntry[],
+		topAwardsPerPlant: AwardRules['topAwardsPerPlant'],
+		topAwards = [bestInShow, bestStandard]
+	) => {
+		const result = computeAwards({
+			classes,
+			entries,
+			rules: buildRules({ topAwards, topAwardsPerPlant })
+		});
+		return {
+			result,
+			won: summary(result, ['top_award']),
+			ties: entryTies(result)
+				.filter((t) => t.kind === 'top_award')
+				.map((t) => `${t.topAwardId}:${(t.entryIds ?? []).join(',')}`)
+		};
+	};
+
+	it('several (today): a1 on 96 takes both; one per plant: b1 on 95 takes best standard', () => {
+		const entries = () => [
+			buildEntry('a1', 96, { classId: 'a' }),
+			buildEntry('b1', 95, { classId: 'b', number: 41 })
+		];
+		expect(run(entries(), 'several').won).toEqual(['a1:top_award:bis', 'a1:top_award:std']);
+		const one = run(entries(), 'one');
+		expect(one.won).toEqual(['a1:top_award:bis', 'b1:top_award:std']);
+		expect(one.result.awards.find((a) => a.topAwardId === 'std')?.reason).toMatch(
+			/^Best standard: the only eligible best-in-class entry, with 95, .* Entry \d+ scores higher but already holds a top award \(Best in show\), and a plant takes only one at this show\.$/
+		);
+	});
+
+	it('decides in the listed order: listed first, best standard goes to a1 and best in show to b1', () => {
+		const entries = [
+			buildEntry('a1', 96, { classId: 'a' }),
+			buildEntry('b1', 95, { classId: 'b' })
+		];
+		expect(run(entries, 'one', [bestStandard, bestInShow]).won).toEqual([
+			'a1:top_award:std',
+			'b1:top_award:bis'
+		]);
+	});
+
+	it('gives nothing when the only eligible plant already holds one', () => {
+		const onlyA = { id: 'bsa', name: 'Best in class A group', classIds: ['a'], minScore: 90 };
+		const entries = [
+			buildEntry('a1', 96, { classId: 'a' }),
+			buildEntry('a2', 95, { classId: 'a' })
+		];
+		// a2 is not best in class, so it cannot compete
+		expect(run(entries, 'one', [bestInShow, onlyA])).toMatchObject({
+			won: ['a1:top_award:bis'],
+			ties: []
+		});
+	});
+
+	it('waits while the leader may still win an earlier top award that is tied', () => {
+		const entries = [
+			buildEntry('a1', 96, { classId: 'a' }),
+			buildEntry('b1', 96, { classId: 'b' }),
+			buildEntry('c1', 91, { classId: 'c' })
+		];
+		// best in show: a1 and b1 tied; best standard (a, b) cannot be given before that is decided
+		expect(run(entries, 'one')).toMatchObject({
+			won: [],
+			ties: ['bis:a1,b1', 'std:a1,b1']
+		});
+		expect(
+			entryTies(
+				computeAwards({
+					classes,
+					entries: [
+						buildEntry('a1', 96, { classId: 'a', number: 21 }),
+						buildEntry('b1', 96, { classId: 'b', number: 22 })
+					],
+					rules: buildRules({ topAwards: [bestInShow, bestStandard], topAwardsPerPlant: 'one' })
+				})
+			).find((t) => t.topAwardId === 'std')?.reason
+		).toBe(
+			'Best standard is not given yet: entry 21 leads it but may still win Best in show, and a plant takes only one top award at this show.'
+		);
+		// with several per plant best standard is tied the same way, independently
+		expect(run(entries, 'several').ties).toEqual(['bis:a1,b1', 'std:a1,b1']);
+		const third = { id: 'bc', name: 'Best of class C', classIds: ['c'], minScore: 90 };
+		// a top award none of the undecided plants can lead is still given
+		expect(run(entries, 'one', [bestInShow, bestStandard, third]).won).toEqual(['c1:top_award:bc']);
 	});
 });
 
@@ -627,6 +864,75 @@ describe('input', () => {
 		expect(() => computeAwards(input)).toThrow();
 	});
 
+	it('fills settings missing from stored rules with today’s behavior', () => {
+		const old = { system: 'placement', merit: { blue: 92 } };
+		const read = awardRulesFrom(old);
+		expect(read).toMatchObject({
+			system: 'placement',
+			merit: { blue: 92, red: 80, white: 70 },
+			honorableMentions: { rule: 'one', count: 1 },
+			meanRounding: 'tenth',
+			topAwardsPerPlant: 'several'
+		});
+		expect(awardRulesFrom(null)).toEqual({ ...DEFAULT_AWARD_RULES, topAwards: [] });
+		expect(
+			awardRulesFrom({ honorableMentions: { rule: 'number', count: 4 } }).honorableMentions
+		).toEqual({ rule: 'number', count: 4 });
+	});
+
+	it('describes the settings in use', () => {
+		expect(describeAwardSettings(DEFAULT_AWARD_RULES, 'mean')).toEqual([
+			'Panel score: mean of the judges, half up to one decimal',
+			'Top awards: a plant may take several'
+		]);
+		const set = buildRules({
+			system: 'placement',
+			honorableMentions: { rule: 'number', count: 3 },
+			meanRounding: 'whole',
+			topAwardsPerPlant: 'one'
+		});
+		expect(describeAwardSettings(set, 'mean')).toEqual([
+			'Honorable mentions: up to 3 per class',
+			'Panel score: mean of the judges, half up to whole points',
+			'Top awards: one per plant, in the order listed'
+		]);
+		expect(describeAwardSettings(set, 'consensus')[1]).toBe(
+			'Panel score: one consensus sheet, as written'
+		);
+	});
+
+	it.each<[string, Partial<AwardRules>, string[]]>([
+		[
+			'an unknown mention rule',
+			{ honorableMentions: { rule: 'many' as 'one', count: 1 } },
+			['honorableMentions.rule']
+		],
+		[
+			'no mentions',
+			{ honorableMentions: { rule: 'number', count: 0 } },
+			['honorableMentions.count']
+		],
+		[
+			'a negative count',
+			{ honorableMentions: { rule: 'number', count: -2 } },
+			['honorableMentions.count']
+		],
+		[
+			'a part count',
+			{ honorableMentions: { rule: 'number', count: 2.5 } },
+			['honorableMentions.count']
+		],
+		[
+			'a huge count',
+			{ honorableMentions: { rule: 'number', count: 1e9 } },
+			['honorableMentions.count']
+		],
+		['an unknown rounding', { meanRounding: 'even' as 'tenth' }, ['meanRounding']],
+		['an unknown top award rule', { topAwardsPerPlant: 'two' as 'one' }, ['topAwardsPerPlant']]
+	])('refuses %s', (_name, overrides, fields) => {
+		expect(validateAwardRules(buildRules(overrides)).map((p) => p.field)).toEqual(fields);
+	});
+
 	it('validates award rules', () => {
 		// defaults: national handbook, from memory (DOMAIN.md)
 		expect(validateAwardRules(DEFAULT_AWARD_RULES)).toEqual([]);
@@ -660,6 +966,11 @@ const showArbitrary = fc
 			'most_red',
 			'highest_total'
 		),
+		honorableMentions: fc.record({
+			rule: fc.constantFrom<AwardRules['honorableMentions']['rule']>('one', 'number', 'all'),
+			count: fc.integer({ min: 1, max: 4 })
+		}),
+		topAwardsPerPlant: fc.constantFrom<AwardRules['topAwardsPerPlant']>('several', 'one'),
 		entries: fc.array(
 			fc.record({
 				classIndex: fc.nat(5),
@@ -694,6 +1005,8 @@ const showArbitrary = fc
 				placement: { first: 90, second: 85, third: 80, honourable: 75 },
 				tieBreak: { criterionKey: show.criterionKey, useJudgesChoice: show.useJudgesChoice },
 				sweepstakesTieBreak: show.sweepstakesTieBreak,
+				honorableMentions: show.honorableMentions,
+				topAwardsPerPlant: show.topAwardsPerPlant,
 				topAwards: [
 					{
 						id: 'bis',
@@ -708,7 +1021,7 @@ const showArbitrary = fc
 	});
 
 describe('determinism and invariants', () => {
-	it('gives the same result whatever the order of the input arrays', () => {
+	it('gives the same result whatever the order of the input arrays (top awards: when several per plant)', () => {
 		fc.assert(
 			fc.property(
 				showArbitrary.chain((input) =>
@@ -720,10 +1033,14 @@ describe('determinism and invariants', () => {
 					)
 				),
 				([input, classes, entries, topAwards]) => {
+					// Under one top award per plant the listed order is the order of precedence.
 					const shuffled: AwardInput = {
 						classes,
 						entries,
-						rules: { ...input.rules, topAwards }
+						rules: {
+							...input.rules,
+							topAwards: input.rules.topAwardsPerPlant === 'one' ? input.rules.topAwards : topAwards
+						}
 					};
 					expect(computeAwards(shuffled)).toEqual(computeAwards(input));
 				}
@@ -754,12 +1071,21 @@ describe('determinism and invariants', () => {
 					);
 					expect(result.awards.filter((a) => a.kind === 'ribbon')).toHaveLength(judged.length);
 				} else {
-					const seen = new Set<string>();
+					const seen = new Map<string, number>();
+					const hm = input.rules.honorableMentions;
+					const mentionLimit = hm.rule === 'one' ? 1 : hm.rule === 'number' ? hm.count : Infinity;
 					for (const a of result.awards.filter((x) => x.kind === 'placement')) {
 						const key = `${a.classId}:${a.level}`;
-						expect(seen.has(key)).toBe(false);
-						seen.add(key);
+						seen.set(key, (seen.get(key) ?? 0) + 1);
+						expect(seen.get(key)).toBeLessThanOrEqual(a.level === 'honourable' ? mentionLimit : 1);
+						if (a.level === 'honourable') {
+							expect(a.score).toBeGreaterThanOrEqual(input.rules.placement.honourable);
+						}
 					}
+				}
+				if (input.rules.topAwardsPerPlant === 'one') {
+					const tops = result.awards.filter((a) => a.kind === 'top_award').map((a) => a.entryId);
+					expect(new Set(tops).size).toBe(tops.length);
 				}
 			}),
 			{ numRuns: 300 }

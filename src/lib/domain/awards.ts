@@ -21,27 +21,36 @@
  * - Entries that were not judged or have no score get nothing.
  * - Merit judging: every judged entry gets the highest ribbon whose mark it reaches, as many
  *   of each colour as deserved. Best in class is chosen only among blue-ribbon entries.
- * - Placement judging: one first, second, third and honourable mention per class, in order of
- *   score. An entry takes the highest open place whose minimum it reaches; a place nobody reaches
- *   is not given. Best in class is the first-place entry.
+ * - Placement judging: one first, second and third per class, in order of score, then honorable
+ *   mentions as the show sets (`honorableMentions`: one, up to a number, or every entry reaching
+ *   the minimum). An entry takes the highest open place whose minimum it reaches; a place nobody
+ *   reaches is not given. Entries tied where only honorable mentions are left, and enough of them,
+ *   all get one (the mentions are equal, so there is nothing to decide). Best in class is the
+ *   first-place entry.
+ * - Scores arrive already rounded (`meanRounding` is applied where the panel's sheets are
+ *   combined, `combinePanelSheets`); the engine compares them as they are.
  * - Ranking: score, highest first; then, if the show names one, that criterion's points, highest
  *   first (an entry without them ranks below one with them); then, if the show uses it, the
  *   judges' choice rank, lowest first (an unranked entry ranks below a ranked one). Entries still
  *   equal are tied.
  * - Top awards: chosen among the best-in-class entries of their classes, each needing its
- *   minimum score; one entry may win several top awards. A top award waits while a class it
- *   covers has an unresolved best-in-class tie at or above the leading score.
+ *   minimum score. One entry may win several top awards (`topAwardsPerPlant` `'several'`), or
+ *   only one (`'one'`): then the top awards are decided in the order the show lists them and a
+ *   plant that already won one is passed over for the later ones. A top award waits while a class
+ *   it covers has an unresolved best-in-class tie at or above the leading score; under `'one'` it
+ *   also waits while its leader is a contender for an earlier top award that is not decided.
  * - Sweepstakes: per division, the exhibitor with the most blue ribbons (placement judging: most
  *   first places); ties are shared unless the show sets a sweepstakes tie-break.
  *
  * Determinism: the result depends only on the content of the input, not on the order of its
- * arrays. Classes, divisions, top awards and exhibitors are ordered by id (code-unit order);
+ * arrays, except the order of `rules.topAwards` under `topAwardsPerPlant: 'one'`, which is the
+ * show's order of precedence. Classes, divisions, top awards and exhibitors are ordered by id (code-unit order);
  * entries within a class by rank, then entry number, then id. Throws an Error on inconsistent
  * input (duplicate ids, an entry in an unknown class, a score that is not a finite number).
  * Work is O(n log n) in the number of entries: entries are grouped with Maps and sorted per class.
  */
 
-import type { ScaleOfPoints } from './scoring';
+import type { MeanRounding, PanelMethod, ScaleOfPoints } from './scoring';
 
 /** A merit ribbon. */
 export type MeritLevel = 'blue' | 'red' | 'white';
@@ -68,7 +77,26 @@ export interface AwardRules {
 	sweepstakesTieBreak: 'none' | 'most_red' | 'highest_total';
 	/** Top awards (best in show, best trailer, …), each chosen among best-in-class entries. */
 	topAwards: TopAwardRule[];
+	/** How many honorable mentions a class may give under placement judging. */
+	honorableMentions: HonorableMentions;
+	/** How a panel's mean is rounded before the minimums apply (see `panelScore`). */
+	meanRounding: MeanRounding;
+	/** Whether one plant may take several top awards, or only one. */
+	topAwardsPerPlant: 'several' | 'one';
 }
+
+/**
+ * Honorable mentions per class under placement judging: `'one'`, `'number'` (up to `count`), or
+ * `'all'` (every entry reaching the minimum that took no higher place). `count` is read only
+ * for `'number'`.
+ */
+export interface HonorableMentions {
+	rule: 'one' | 'number' | 'all';
+	count: number;
+}
+
+/** The largest number of honorable mentions a show may set per class. */
+export const MAX_HONORABLE_MENTIONS = 99;
 
 /** One top award: its name, the classes whose best-in-class entries compete, and a minimum. */
 export interface TopAwardRule {
@@ -184,8 +212,66 @@ export const DEFAULT_AWARD_RULES: AwardRules = Object.freeze({
 	bestInClassMin: null,
 	tieBreak: Object.freeze({ criterionKey: null, useJudgesChoice: true }),
 	sweepstakesTieBreak: 'none',
-	topAwards: Object.freeze([]) as unknown as TopAwardRule[]
+	topAwards: Object.freeze([]) as unknown as TopAwardRule[],
+	honorableMentions: Object.freeze({ rule: 'one', count: 1 }),
+	meanRounding: 'tenth',
+	topAwardsPerPlant: 'several'
 }) as AwardRules;
+
+/**
+ * The one reader of stored award rules (shows.award_rules): every part that is missing takes
+ * its default from `DEFAULT_AWARD_RULES`, so rules stored before a setting existed keep
+ * today's behavior. It does not judge the values; check them with `validateAwardRules` (or the
+ * zod schema in `$lib/schemas/award-rules`).
+ */
+export function awardRulesFrom(stored: unknown): AwardRules {
+	const s = (stored && typeof stored === 'object' ? stored : {}) as Partial<AwardRules>;
+	const d = DEFAULT_AWARD_RULES;
+	return {
+		system: s.system ?? d.system,
+		merit: { ...d.merit, ...s.merit },
+		placement: { ...d.placement, ...s.placement },
+		bestInClassMin: s.bestInClassMin === undefined ? d.bestInClassMin : s.bestInClassMin,
+		tieBreak: { ...d.tieBreak, ...s.tieBreak },
+		sweepstakesTieBreak: s.sweepstakesTieBreak ?? d.sweepstakesTieBreak,
+		topAwards: s.topAwards ?? [],
+		honorableMentions: { ...d.honorableMentions, ...s.honorableMentions },
+		meanRounding: s.meanRounding ?? d.meanRounding,
+		topAwardsPerPlant: s.topAwardsPerPlant ?? d.topAwardsPerPlant
+	};
+}
+
+/**
+ * The award settings a show used, in plain words, for the award rules page and the award
+ * sheets: honorable mentions (placement judging only), how the panel's score is rounded, and
+ * whether a plant may take several top awards.
+ */
+export function describeAwardSettings(rules: AwardRules, method: PanelMethod): string[] {
+	const lines: string[] = [];
+	if (rules.system === 'placement') {
+		const hm = rules.honorableMentions;
+		lines.push(
+			hm.rule === 'all'
+				? 'Honorable mentions: every entry reaching the minimum'
+				: hm.rule === 'number'
+					? `Honorable mentions: up to ${hm.count} per class`
+					: 'Honorable mentions: one per class'
+		);
+	}
+	lines.push(
+		method === 'consensus'
+			? 'Panel score: one consensus sheet, as written'
+			: rules.meanRounding === 'whole'
+				? 'Panel score: mean of the judges, half up to whole points'
+				: 'Panel score: mean of the judges, half up to one decimal'
+	);
+	lines.push(
+		rules.topAwardsPerPlant === 'one'
+			? 'Top awards: one per plant, in the order listed'
+			: 'Top awards: a plant may take several'
+	);
+	return lines;
+}
 
 const MERIT_LEVELS: readonly MeritLevel[] = ['blue', 'red', 'white'];
 const PLACEMENT_LEVELS: readonly PlacementLevel[] = ['first', 'second', 'third', 'honourable'];
@@ -231,6 +317,28 @@ export function validateAwardRules(rules: AwardRules): AwardRulesProblem[] {
 	}
 	if (!['none', 'most_red', 'highest_total'].includes(rules.sweepstakesTieBreak)) {
 		problems.push({ field: 'sweepstakesTieBreak', message: 'Choose a sweepstakes tie-break.' });
+	}
+	if (!['one', 'number', 'all'].includes(rules.honorableMentions.rule)) {
+		problems.push({
+			field: 'honorableMentions.rule',
+			message: 'Choose how many honorable mentions a class may give.'
+		});
+	}
+	const hmCount = rules.honorableMentions.count;
+	if (!Number.isInteger(hmCount) || hmCount < 1 || hmCount > MAX_HONORABLE_MENTIONS) {
+		problems.push({
+			field: 'honorableMentions.count',
+			message: `Honorable mentions: enter a whole number from 1 to ${MAX_HONORABLE_MENTIONS}.`
+		});
+	}
+	if (!['tenth', 'whole'].includes(rules.meanRounding)) {
+		problems.push({ field: 'meanRounding', message: 'Choose how a panel’s mean is rounded.' });
+	}
+	if (!['several', 'one'].includes(rules.topAwardsPerPlant)) {
+		problems.push({
+			field: 'topAwardsPerPlant',
+			message: 'Choose whether a plant may take several top awards.'
+		});
 	}
 	const ids = new Set<string>();
 	rules.topAwards.forEach((top, i) => {
@@ -516,6 +624,26 @@ function meritReason(score: number, level: MeritLevel, rules: AwardRules): strin
 	return `${reason} and below the ${LEVEL_WORDS[above]} mark of ${formatScore(rules.merit[above])}.`;
 }
 
+/** The places a class can give, in order: first, second, third, then the honorable mentions. */
+function placeSlots(rules: AwardRules, judged: number): PlacementLevel[] {
+	const hm = rules.honorableMentions;
+	const mentions = hm.rule === 'all' ? judged : hm.rule === 'number' ? hm.count : 1;
+	return [
+		...PLACEMENT_LEVELS.slice(0, 3),
+		...Array.from({ length: Math.max(0, mentions) }, () => 'honourable' as const)
+	];
+}
+
+/** "honourable mention", or "2 honourable mentions" when several are held open. */
+function levelListWords(levels: PlacementLevel[]): string {
+	const words: string[] = [];
+	for (const level of [...new Set(levels)]) {
+		const n = levels.filter((l) => l === level).length;
+		words.push(n === 1 ? LEVEL_WORDS[level] : `${n} ${LEVEL_WORDS[level]}s`);
+	}
+	return joinWords(words);
+}
+
 /**
  * Gives the places of one class under placement judging and reports placement ties. Returns the
  * best-in-class candidates: the first-place entry, or the group tied for first place.
@@ -534,49 +662,69 @@ function assignPlaces(
 	let next = 0;
 	let rank = 1;
 	const judged = groups.reduce((n, group) => n + group.length, 0);
+	const slots = placeSlots(rules, judged);
 	const firsts: Scored[][] = [];
-	for (let g = 0; g < groups.length && next < PLACEMENT_LEVELS.length; g++) {
-		const group = groups[g];
-		const score = group[0].score;
-		const open: number[] = [];
-		for (let p = next; p < PLACEMENT_LEVELS.length && open.length < group.length; p++) {
-			if (score >= rules.placement[PLACEMENT_LEVELS[p]]) open.push(p);
-		}
-		const groupRank = rank;
-		rank += group.length;
-		if (open.length === 0) continue;
-		const missed = PLACEMENT_LEVELS.slice(next, open[0]).map(
-			(l) => `the ${LEVEL_WORDS[l]} minimum of ${formatScore(rules.placement[l])}`
-		);
-		next = open[open.length - 1] + 1;
-		const levels = open.map((p) => PLACEMENT_LEVELS[p]);
-		if (group.length > 1) {
-			ties.push({
-				kind: 'placement',
-				...base,
-				levels,
-				entryIds: group.map((s) => s.entry.id),
-				reason: `${sentence(entryWords(group))} in ${where} are tied on ${formatScore(score)}, and ${tieBreakWords(rules, criterionName)}; ${joinWords(levels.map((l) => LEVEL_WORDS[l]))} ${levels.length === 1 ? 'is' : 'are'} held open until the judges decide.`
-			});
-			if (levels[0] === 'first') firsts.push(group);
-			continue;
-		}
-		const item = group[0];
-		const level = levels[0];
+	const give = (item: Scored, level: PlacementLevel, reason: string): void => {
 		classAwards.push({ scored: item, level, divisionId: cls.divisionId });
-		if (level === 'first') firsts.push(group);
-		const below = missed.length === 0 ? '' : ` (below ${joinWords(missed)})`;
 		awards.push({
 			kind: 'placement',
 			...base,
 			entryId: item.entry.id,
 			exhibitorId: item.entry.exhibitorId,
 			level,
-			score,
-			reason:
-				`Scored ${formatScore(score)}, ranked ${ordinal(groupRank)} of ${judged} judged ${judged === 1 ? 'entry' : 'entries'} in ${where}, and at or above the ${LEVEL_WORDS[level]} minimum of ${formatScore(rules.placement[level])}${below}.` +
-				tieBreakClause(item, groups[g + 1]?.[0], rules, criterionName)
+			score: item.score,
+			reason
 		});
+	};
+	for (let g = 0; g < groups.length && next < slots.length; g++) {
+		const group = groups[g];
+		const score = group[0].score;
+		const open: number[] = [];
+		for (let p = next; p < slots.length && open.length < group.length; p++) {
+			if (score >= rules.placement[slots[p]]) open.push(p);
+		}
+		const groupRank = rank;
+		rank += group.length;
+		if (open.length === 0) continue;
+		const missed = [...new Set(slots.slice(next, open[0]))].map(
+			(l) => `the ${LEVEL_WORDS[l]} minimum of ${formatScore(rules.placement[l])}`
+		);
+		next = open[open.length - 1] + 1;
+		const levels = open.map((p) => slots[p]);
+		const below = missed.length === 0 ? '' : ` (below ${joinWords(missed)})`;
+		const ranked = `ranked ${ordinal(groupRank)} of ${judged} judged ${judged === 1 ? 'entry' : 'entries'} in ${where}`;
+		if (group.length > 1) {
+			const allMentions = levels.length === group.length && levels.every((l) => l === 'honourable');
+			if (allMentions) {
+				for (const item of group) {
+					const others = group.filter((o) => o !== item);
+					give(
+						item,
+						'honourable',
+						`Scored ${formatScore(score)}, ${ranked} (level with ${entryWords(others)}), and at or above the ${LEVEL_WORDS.honourable} minimum of ${formatScore(rules.placement.honourable)}${below}; each of them gets one.`
+					);
+				}
+				continue;
+			}
+			ties.push({
+				kind: 'placement',
+				...base,
+				levels: [...new Set(levels)],
+				entryIds: group.map((s) => s.entry.id),
+				reason: `${sentence(entryWords(group))} in ${where} are tied on ${formatScore(score)}, and ${tieBreakWords(rules, criterionName)}; ${levelListWords(levels)} ${levels.length === 1 ? 'is' : 'are'} held open until the judges decide.`
+			});
+			if (levels[0] === 'first') firsts.push(group);
+			continue;
+		}
+		const item = group[0];
+		const level = levels[0];
+		if (level === 'first') firsts.push(group);
+		give(
+			item,
+			level,
+			`Scored ${formatScore(score)}, ${ranked}, and at or above the ${LEVEL_WORDS[level]} minimum of ${formatScore(rules.placement[level])}${below}.` +
+				tieBreakClause(item, groups[g + 1]?.[0], rules, criterionName)
+		);
 	}
 	return firsts;
 }
@@ -591,19 +739,39 @@ function computeTopAwards(
 	awards: Award[],
 	ties: AwardTie[]
 ): void {
-	const topAwards = [...rules.topAwards].sort((a, b) => compareStrings(a.id, b.id));
+	const onePerPlant = rules.topAwardsPerPlant === 'one';
+	// Under one top award per plant the show's listed order is the order of precedence.
+	const topAwards = onePerPlant
+		? [...rules.topAwards]
+		: [...rules.topAwards].sort((a, b) => compareStrings(a.id, b.id));
+	/** Entries that won a top award (one per plant). */
+	const won = new Map<string, string>();
+	/** Entries that may yet win an earlier top award that is not decided, with its name. */
+	const undecided = new Map<string, string>();
 	for (const top of topAwards) {
 		const classIds = [...new Set(top.classIds)]
 			.filter((id) => classById.has(id))
 			.sort(compareStrings);
 		const candidates: Scored[] = [];
+		const passedOver: Scored[] = [];
 		for (const id of classIds) {
 			const best = bestByClass.get(id);
-			if (best && best.score >= top.minScore) candidates.push(best);
+			if (!best || best.score < top.minScore) continue;
+			if (onePerPlant && won.has(best.entry.id)) passedOver.push(best);
+			else candidates.push(best);
 		}
 		const groups = rankGroups(candidates, rules);
 		const lead = groups[0];
 		const leadScore = lead ? lead[0].score : -Infinity;
+		const markUndecided = (): void => {
+			if (!onePerPlant) return;
+			const ids = [
+				...candidates.map((c) => c.entry.id),
+				...classIds.flatMap((id) => openBestByClass.get(id)?.entryIds ?? [])
+			];
+			// The earliest undecided top award is the one named in the reason.
+			for (const id of ids) if (!undecided.has(id)) undecided.set(id, top.name);
+		};
 		const waiting = classIds.filter((id) => {
 			const open = openBestByClass.get(id);
 			return open !== undefined && open.score >= top.minScore && open.score >= leadScore;
@@ -616,9 +784,21 @@ function computeTopAwards(
 				entryIds: waiting.flatMap((id) => (openBestByClass.get(id) as OpenBest).entryIds),
 				reason: `${top.name} is not given yet: best in class is tied in ${joinWords(codes)} at a score that could win it.`
 			});
+			markUndecided();
 			continue;
 		}
 		if (!lead) continue;
+		const waitsFor = onePerPlant ? lead.find((s) => undecided.has(s.entry.id)) : undefined;
+		if (waitsFor) {
+			ties.push({
+				kind: 'top_award',
+				topAwardId: top.id,
+				entryIds: lead.map((s) => s.entry.id),
+				reason: `${top.name} is not given yet: entry ${waitsFor.entry.number} leads it but may still win ${undecided.get(waitsFor.entry.id)}, and a plant takes only one top award at this show.`
+			});
+			markUndecided();
+			continue;
+		}
 		if (lead.length > 1) {
 			ties.push({
 				kind: 'top_award',
@@ -626,9 +806,18 @@ function computeTopAwards(
 				entryIds: lead.map((s) => s.entry.id),
 				reason: `${top.name}: best-in-class ${entryWords(lead)} are tied on ${formatScore(leadScore)}, and ${tieBreakWords(rules, criterionName)}; the award is not given until the judges decide.`
 			});
+			markUndecided();
 			continue;
 		}
 		const winner = lead[0];
+		won.set(winner.entry.id, top.name);
+		const passed = passedOver
+			.filter((s) => compareRank(s, winner, rules) < 0)
+			.sort((a, b) => compareRank(a, b, rules) || a.entry.number - b.entry.number);
+		const passedClause =
+			passed.length === 0
+				? ''
+				: ` ${sentence(entryWords(passed))} ${passed.length === 1 ? 'scores' : 'score'} higher but already ${passed.length === 1 ? 'holds' : 'hold'} a top award (${joinWords([...new Set(passed.map((p) => won.get(p.entry.id) as string))])}), and a plant takes only one at this show.`;
 		const cls = classById.get(winner.entry.classId) as AwardClass;
 		awards.push({
 			kind: 'top_award',
@@ -642,7 +831,8 @@ function computeTopAwards(
 				(candidates.length === 1
 					? `${top.name}: the only eligible best-in-class entry, with ${formatScore(winner.score)}, at or above the minimum of ${formatScore(top.minScore)}.`
 					: `${top.name}: the highest score (${formatScore(winner.score)}) among the ${candidates.length} eligible best-in-class entries, at or above the minimum of ${formatScore(top.minScore)}.`) +
-				tieBreakClause(winner, groups[1]?.[0], rules, criterionName)
+				tieBreakClause(winner, groups[1]?.[0], rules, criterionName) +
+				passedClause
 		});
 	}
 }

@@ -113,6 +113,40 @@ describe('combinePanelSheets, mean of the judges', () => {
 	});
 });
 
+describe('combinePanelSheets, rounding the mean to whole points', () => {
+	// Half up to whole points: a show setting (common practice, no published rule found).
+	const judges = ['j1', 'j2'];
+	// 100 - 2 - 2 - 2 - 1 - 3 = 90 and 100 - 2 - 2 - 2 - 1 - 4 = 89: mean 89.5
+	const sheets = [sheet('j1', [2, 2, 2, 1, 3]), sheet('j2', [2, 2, 2, 1, 4])];
+
+	it('rounds the score, keeps the criterion points to one decimal', () => {
+		const tenth = combinePanelSheets(scale, 'mean', judges, sheets);
+		const whole = combinePanelSheets(scale, 'mean', judges, sheets, 'whole');
+		expect(tenth.score).toBe(89.5);
+		expect(whole.score).toBe(90);
+		// color of blossom: 10 - 3 = 7 and 10 - 4 = 6, mean 6.5 either way
+		expect(whole.criterionScores?.color_of_blossom).toBe(6.5);
+	});
+
+	it('turns a red ribbon into a blue one when 89.5 becomes 90', () => {
+		// Merit marks blue 90, red 80: national handbook, from memory (DOMAIN.md)
+		const ribbon = (score: number | null) =>
+			computeAwards({
+				classes: [{ id: 'c', divisionId: 'd', code: '1', name: 'Standards' }],
+				entries: [{ id: 'e', number: 1, classId: 'c', exhibitorId: 'x', score }],
+				rules: DEFAULT_AWARD_RULES
+			}).awards.find((a) => a.kind === 'ribbon')?.level;
+		expect(ribbon(combinePanelSheets(scale, 'mean', judges, sheets).score)).toBe('red');
+		expect(ribbon(combinePanelSheets(scale, 'mean', judges, sheets, 'whole').score)).toBe('blue');
+	});
+
+	it('does not round a consensus sheet', () => {
+		// 100 - 2 - 2 - 2 - 1 - 3.5 = 89.5, used as written
+		const consensus = [sheet(null, [2, 2, 2, 1, 3.5])];
+		expect(combinePanelSheets(scale, 'consensus', [], consensus, 'whole').score).toBe(89.5);
+	});
+});
+
 describe('combinePanelSheets, one consensus sheet', () => {
 	it('takes the consensus sheet’s total and ignores judges’ own sheets', () => {
 		const result = combinePanelSheets(

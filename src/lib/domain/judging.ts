@@ -8,6 +8,7 @@ import {
 	panelScore,
 	scoreSheet,
 	type Deductions,
+	type MeanRounding,
 	type NotJudgedReason,
 	type PanelMethod,
 	type ScaleOfPoints
@@ -60,18 +61,21 @@ export function runningTotal(scale: ScaleOfPoints, deductions: Deductions): numb
  * Combines the sheets of one entry into the panel's result.
  *
  * - `'mean'`: every judge now on the panel keeps a sheet; the score is the mean of their totals
- *   (one decimal, half up, from `panelScore`) once every sheet is complete. Sheets of people no
- *   longer on the panel are ignored.
+ *   once every sheet is complete, rounded half up as the show sets (`rounding`: one decimal by
+ *   default, or whole points; see `panelScore`). Sheets of people no longer on the panel are
+ *   ignored.
  * - `'consensus'`: the panel's one consensus sheet gives the score once it is complete.
  *
  * An entry that a sheet marks not judged is not judged (the first reason found, in judge order,
- * is reported). Criterion points are combined with the same rounding as the score.
+ * is reported). Criterion points are combined to one decimal, half up, whatever the score's
+ * rounding, so a tie-break on a criterion keeps its precision.
  */
 export function combinePanelSheets(
 	scale: ScaleOfPoints,
 	method: PanelMethod,
 	judgeIds: readonly string[],
-	sheets: readonly PanelSheet[]
+	sheets: readonly PanelSheet[],
+	rounding: MeanRounding = 'tenth'
 ): PanelResult {
 	const counted =
 		method === 'consensus'
@@ -107,7 +111,9 @@ export function combinePanelSheets(
 	const scored = complete.map((s) => scoreSheet(scale, s.deductions));
 	const score = panelScore(
 		scored.map((s) => s.total),
-		'mean'
+		'mean',
+		undefined,
+		method === 'mean' ? rounding : 'tenth'
 	);
 	const criterionScores: Record<string, number> = {};
 	for (const c of scale.criteria) {

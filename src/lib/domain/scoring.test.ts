@@ -296,6 +296,67 @@ describe('panelScore', () => {
 	});
 });
 
+describe('panelScore, the rounding setting', () => {
+	// Rounding the mean half up, to one decimal or to whole points, is common practice (no
+	// published show rule found that states either); each expected value is the exact mean worked
+	// by hand from the totals beside it.
+	it.each<[string, number[], number, number]>([
+		['89 and 90: 89.5 exactly', [89, 90], 89.5, 90],
+		['89.5, 89.5 and 89: 89.333…', [89.5, 89.5, 89], 89.3, 89],
+		['89.5, 89.5 and 90: 89.666…', [89.5, 89.5, 90], 89.7, 90],
+		['90 and 90.5: 90.25', [90, 90.5], 90.3, 90],
+		// ten judges, nine on 89.5 and one on 89: 1,789 half points / 20 = 89.45 exactly; to one
+		// decimal 89.5, to whole points 89 (rounding 89.5 again would wrongly give 90)
+		['89.45 from ten judges', [...Array<number>(9).fill(89.5), 89], 89.5, 89],
+		// nine on 90 and one on 89.5: 1,799 / 20 = 89.95 exactly; both roundings reach 90
+		['89.95 from ten judges', [...Array<number>(9).fill(90), 89.5], 90, 90],
+		// nine on 80 and one on 80.5: 1,601 / 20 = 80.05 exactly
+		['80.05 from ten judges', [...Array<number>(9).fill(80), 80.5], 80.1, 80],
+		['79.75: 79.5 and 80', [79.5, 80], 79.8, 80],
+		['0 and 0.5: 0.25', [0, 0.5], 0.3, 0]
+	])('%s: %s to one decimal, %s to whole points', (_name, totals, tenth, whole) => {
+		expect(panelScore(totals, 'mean')).toBe(tenth);
+		expect(panelScore(totals, 'mean', undefined, 'tenth')).toBe(tenth);
+		expect(panelScore(totals, 'mean', undefined, 'whole')).toBe(whole);
+	});
+
+	it('does not trust floating-point rounding, which misses these halves', () => {
+		// Why the mean is rounded in integers: the binary double nearest 80.05 lies just below it,
+		// so the usual float idioms round it down, while the exact mean of the sheets is 80.05.
+		expect((80.05).toFixed(1)).toBe('80.0');
+		expect(Math.round(1.005 * 100) / 100).toBe(1);
+		expect(panelScore([...Array<number>(9).fill(80), 80.5], 'mean')).toBe(80.1);
+	});
+
+	it('leaves a consensus total as written', () => {
+		expect(panelScore([], 'consensus', 89.5, 'whole')).toBe(89.5);
+		expect(panelScore([89.5], 'consensus', undefined, 'whole')).toBe(89.5);
+	});
+
+	it('is the exact mean rounded half up to whole points', () => {
+		fc.assert(
+			fc.property(
+				fc.array(fc.integer({ min: 0, max: 200 }), { minLength: 1, maxLength: 12 }),
+				(halves) => {
+					const n = halves.length;
+					const sum = halves.reduce((a, b) => a + b, 0);
+					const score = panelScore(
+						halves.map((h) => h / 2),
+						'mean',
+						undefined,
+						'whole'
+					) as number;
+					expect(Number.isInteger(score)).toBe(true);
+					// |score - sum / (2n)| <= 1/2 with halves going up: -n < 2n*score - sum <= n
+					const diff = 2 * n * score - sum;
+					expect(diff).toBeGreaterThan(-n);
+					expect(diff).toBeLessThanOrEqual(n);
+				}
+			)
+		);
+	});
+});
+
 describe('sheets', () => {
 	it('tells a not-judged sheet from a judged one', () => {
 		const judged: ScoreSheet = { deductions: { condition: 1 } };

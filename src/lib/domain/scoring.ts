@@ -86,6 +86,12 @@ export interface SheetScore {
 /** How a panel turns its sheets into one score. */
 export type PanelMethod = 'mean' | 'consensus';
 
+/**
+ * How the mean of the judges' totals is rounded before the ribbon and place minimums apply:
+ * `'tenth'` to one decimal (half up), `'whole'` to whole points (half up).
+ */
+export type MeanRounding = 'tenth' | 'whole';
+
 /** True when the sheet records a plant the panel did not judge. */
 export function isNotJudged(sheet: ScoreSheet): sheet is NotJudgedSheet {
 	return sheet.notJudged === true;
@@ -241,12 +247,14 @@ function floorDiv(dividend: number, divisor: number): number {
 /**
  * The panel's score for one entry, from its sheet totals.
  *
- * - `'mean'`: the mean of the judges' totals, rounded half-up to one decimal place. The mean is
- *   computed exactly from half-point integers, so 92.5, 93 and 93 give 92.8333… → 92.8, and
- *   90 and 90.5 give 90.25 → 90.3 (a half is always rounded up, never to even).
+ * - `'mean'`: the mean of the judges' totals, rounded half up: to one decimal place by default
+ *   (`rounding` `'tenth'`), or to whole points (`'whole'`). The mean is computed exactly from
+ *   half-point integers, never from a float: 92.5, 93 and 93 give 92.8333… → 92.8 (or 93), and
+ *   90 and 90.5 give 90.25 → 90.3 (or 90); a half always goes up, never to even, and a mean of
+ *   89.45 becomes 89.5 (or 89: the whole-point rounding starts from the exact mean, not from 89.5).
  * - `'consensus'`: the panel agrees on one sheet kept by the clerk. That sheet's total is the
- *   score: `consensusTotal` when given, otherwise the only total in `sheetTotals` (more than one
- *   total without a `consensusTotal` is an error).
+ *   score as written (`rounding` does not apply): `consensusTotal` when given, otherwise the only
+ *   total in `sheetTotals` (more than one total without a `consensusTotal` is an error).
  *
  * Returns null when there is no sheet at all. Throws a RangeError when a total is not a finite
  * multiple of 0.5.
@@ -254,7 +262,8 @@ function floorDiv(dividend: number, divisor: number): number {
 export function panelScore(
 	sheetTotals: number[],
 	method: PanelMethod,
-	consensusTotal?: number
+	consensusTotal?: number,
+	rounding: MeanRounding = 'tenth'
 ): number | null {
 	if (method === 'consensus') {
 		if (consensusTotal !== undefined) {
@@ -272,6 +281,10 @@ export function panelScore(
 	let sumHalves = 0;
 	for (const total of sheetTotals) sumHalves += requireHalfPoints(total, 'A sheet total');
 	const count = sheetTotals.length;
+	if (rounding === 'whole') {
+		// mean = sumHalves / (2 * count); half-up = floor(mean + 1/2) = floor((sumHalves + count) / (2 * count))
+		return floorDiv(sumHalves + count, 2 * count);
+	}
 	// mean in tenths = (sumHalves / 2 / count) * 10 = 5 * sumHalves / count; half-up = floor(x + 1/2)
 	const tenths = floorDiv(10 * sumHalves + count, 2 * count);
 	return tenths / 10;

@@ -47,6 +47,7 @@ function smallShow(): ResultsSource {
 			venue: null,
 			judgingDay: '2026-04-18',
 			system: 'merit',
+			awardSettings: [],
 			publishedAt: '2026-04-18T18:00:00Z'
 		},
 		divisions: [{ id: 'd1', code: 'A', name: 'Horticulture' }],

@@ -3,7 +3,12 @@
  * source, awards from the real awards engine (`computeAwards`) under the seed rules. Used by the
  * unit tests of the documents, the CSV, the e-mails and the charts.
  */
-import { computeAwards, DEFAULT_AWARD_RULES, type AwardRules } from '$lib/domain/awards';
+import {
+	computeAwards,
+	DEFAULT_AWARD_RULES,
+	describeAwardSettings,
+	type AwardRules
+} from '$lib/domain/awards';
 import { assembleResults, type ResultsSource } from './assemble';
 import type { ShowResults } from './types';
 
@@ -110,6 +115,7 @@ export function generateShow(options: GeneratedShowOptions): {
 			venue: 'Community hall',
 			judgingDay: '2026-10-10',
 			system: rules.system,
+			awardSettings: describeAwardSettings(rules, 'mean'),
 			publishedAt: '2026-10-10T18:00:00.000Z'
 		},
 		divisions,

@@ -83,6 +83,8 @@ export interface ShowResults {
 		venue: string | null;
 		judgingDay: string;
 		system: 'merit' | 'placement';
+		/** The award settings the results were decided under, in words (`describeAwardSettings`). */
+		awardSettings: string[];
 		/** ISO time of publishing; null while results are not public. */
 		publishedAt: string | null;
 	};

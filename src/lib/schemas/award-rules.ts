@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { DEFAULT_AWARD_RULES, type AwardRules } from '$lib/domain/awards';
+import { awardRulesFrom, MAX_HONORABLE_MENTIONS, type AwardRules } from '$lib/domain/awards';
 
 const points = (what: string) =>
 	z.coerce
@@ -37,20 +37,29 @@ export const awardRulesSchema = z.object({
 				minScore: points('Top award minimum')
 			})
 		)
-		.max(40)
+		.max(40),
+	honorableMentions: z.object({
+		rule: z.enum(['one', 'number', 'all'], 'Choose how many honorable mentions a class may give.'),
+		count: z.coerce
+			.number({ error: 'Honorable mentions: enter a whole number.' })
+			.int(`Honorable mentions: enter a whole number from 1 to ${MAX_HONORABLE_MENTIONS}.`)
+			.min(1, `Honorable mentions: enter a whole number from 1 to ${MAX_HONORABLE_MENTIONS}.`)
+			.max(
+				MAX_HONORABLE_MENTIONS,
+				`Honorable mentions: enter a whole number from 1 to ${MAX_HONORABLE_MENTIONS}.`
+			)
+	}),
+	meanRounding: z.enum(['tenth', 'whole'], 'Choose how a panel’s mean is rounded.'),
+	topAwardsPerPlant: z.enum(
+		['several', 'one'],
+		'Choose whether a plant may take several top awards.'
+	)
 });
 
-/** Reads stored award rules, filling what is missing from the defaults; throws on nonsense. */
+/**
+ * Reads stored award rules: the domain's reader (`awardRulesFrom`) fills what is missing from
+ * the defaults, then the schema checks the values; throws on nonsense.
+ */
 export function readAwardRules(stored: unknown): AwardRules {
-	const s = (stored && typeof stored === 'object' ? stored : {}) as Partial<AwardRules>;
-	const d = DEFAULT_AWARD_RULES;
-	return awardRulesSchema.parse({
-		system: s.system ?? d.system,
-		merit: { ...d.merit, ...s.merit },
-		placement: { ...d.placement, ...s.placement },
-		bestInClassMin: s.bestInClassMin === undefined ? d.bestInClassMin : s.bestInClassMin,
-		tieBreak: { ...d.tieBreak, ...s.tieBreak },
-		sweepstakesTieBreak: s.sweepstakesTieBreak ?? d.sweepstakesTieBreak,
-		topAwards: s.topAwards ?? []
-	});
+	return awardRulesSchema.parse(awardRulesFrom(stored));
 }

@@ -182,7 +182,12 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 			'bestInClassMin',
 			'topAwards',
 			'tieBreak',
-			'useJudgesChoice'
+			'useJudgesChoice',
+			// i-awards: the three award settings (issue 13, item 6)
+			'honorableMentions.rule',
+			'honorableMentions.count',
+			'meanRounding',
+			'topAwardsPerPlant'
 		]
 	},
 	'/chair/shows/[slug]/panels action:createPanel': {

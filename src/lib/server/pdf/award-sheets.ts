@@ -72,10 +72,21 @@ function sweepstakesTable(
 	};
 }
 
+/** One short line naming the award settings the results were decided under. */
+function settingsLine(results: ShowResults): Content {
+	if (results.show.awardSettings.length === 0) return [];
+	return {
+		text: `Settings used: ${results.show.awardSettings.join('; ')}.`,
+		style: 'small',
+		margin: [0, 0, 0, 8]
+	};
+}
+
 /** The pdfmake definition of the award sheets. */
 export function awardSheetsDefinition(results: ShowResults): TDocumentDefinitions {
 	const content: Content[] = [
 		...showHeading(results, 'Award sheets'),
+		settingsLine(results),
 		{ text: 'Top awards', style: 'heading' },
 		topAwardsTable(results)
 	];

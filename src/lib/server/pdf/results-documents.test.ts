@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { PDFParse } from 'pdf-parse';
+import { DEFAULT_AWARD_RULES } from '$lib/domain/awards';
 import { generateShow } from '$lib/results/generated-show';
 import { eachEntry } from '$lib/results/assemble';
 import { entryAwards } from '$lib/results/labels';
@@ -22,6 +23,10 @@ describe('results documents of a small show', () => {
 	it('award sheets hold every class, the top awards and the sweepstakes', async () => {
 		const { text } = await textOf(await renderAwardSheets(results));
 		expect(text).toContain('Award sheets: Generated Autumn Show');
+		// The settings line, here today's defaults (see describeAwardSettings).
+		expect(text).toContain(
+			'Settings used: Panel score: mean of the judges, half up to one decimal; Top awards: a plant may take several.'
+		);
 		const top = results.topAwards[0];
 		expect(top).toBeDefined();
 		expect(text).toMatch(new RegExp(`Best in show ${top.classCode} ${top.number} `));
@@ -43,6 +48,25 @@ describe('results documents of a small show', () => {
 			)
 		);
 	});
+
+	it(
+		'award sheets name other award settings when the show sets them',
+		{ timeout: 60_000 },
+		async () => {
+			const rules = {
+				...DEFAULT_AWARD_RULES,
+				system: 'placement' as const,
+				honorableMentions: { rule: 'number' as const, count: 3 },
+				meanRounding: 'whole' as const,
+				topAwardsPerPlant: 'one' as const
+			};
+			const placed = generateShow({ entries: 30, classesPerDivision: 3, exhibitors: 6, rules });
+			const { text } = await textOf(await renderAwardSheets(placed.results));
+			expect(text).toContain(
+				'Settings used: Honorable mentions: up to 3 per class; Panel score: mean of the judges, half up to whole points; Top awards: one per plant, in the order listed.'
+			);
+		}
+	);
 
 	it('award cards: one per awarded entry with award, class, variety, score and comment', async () => {
 		const { text, pages } = await textOf(await renderAwardCards(results));

@@ -5,6 +5,7 @@
 import { QueryTypes, type Transaction } from 'sequelize';
 import {
 	computeAwards,
+	describeAwardSettings,
 	validateAwardRules,
 	type AwardResult,
 	type AwardRules,
@@ -154,11 +155,18 @@ export async function loadShowJudging(
 				: DEFAULT_STANDARD_SCALE
 	}));
 	const classById = new Map(classViews.map((c) => [c.id, c]));
+	const rules = readAwardRules(show.award_rules);
 	const judged: JudgedEntry[] = entries.map((e) => {
 		const cls = classById.get(e.class_id);
 		const panelJudges = cls?.panelId ? (judgesOf.get(cls.panelId) ?? []) : [];
 		const result = cls?.panelId
-			? combinePanelSheets(cls.scale, show.method, panelJudges, sheetsOf.get(e.id) ?? [])
+			? combinePanelSheets(
+					cls.scale,
+					show.method,
+					panelJudges,
+					sheetsOf.get(e.id) ?? [],
+					rules.meanRounding
+				)
 			: combinePanelSheets(DEFAULT_STANDARD_SCALE, show.method, [], []);
 		return {
 			...result,
@@ -177,7 +185,7 @@ export async function loadShowJudging(
 			method: show.method,
 			published: show.published !== null
 		},
-		rules: readAwardRules(show.award_rules),
+		rules,
 		classes: classViews.map(({ panelId: _p, ...c }) => c),
 		entries: judged
 	};
@@ -504,6 +512,7 @@ export async function loadAwardRulesPage(showId: string) {
 	return {
 		rules: judging.rules,
 		method: judging.show.method,
+		settings: describeAwardSettings(judging.rules, judging.show.method),
 		published: judging.show.published,
 		classes: judging.classes.map((c) => ({
 			id: c.id,

@@ -1,5 +1,5 @@
 import { Op, type Transaction } from 'sequelize';
-import { DEFAULT_AWARD_RULES, validateAwardRules, type AwardRules } from '$lib/domain/awards';
+import { awardRulesFrom, validateAwardRules, type AwardRules } from '$lib/domain/awards';
 import type { ClassRules, SizeClass } from '$lib/domain/eligibility';
 import type { ClassDescribed } from '$lib/schedule-text';
 import type { ClassInput, DivisionInput, ShowSettingsInput } from '$lib/schemas/show';
@@ -46,17 +46,9 @@ export interface ShowSettings {
 	schedulePublished: boolean;
 }
 
-/** The show's award rules, filled from the defaults where a field is missing. */
+/** The show's award rules, filled from the defaults where a field is missing (`awardRulesFrom`). */
 export function awardRulesOf(show: Show): AwardRules {
-	const stored = (show.awardRules ?? {}) as Partial<AwardRules>;
-	return {
-		...DEFAULT_AWARD_RULES,
-		...stored,
-		merit: { ...DEFAULT_AWARD_RULES.merit, ...stored.merit },
-		placement: { ...DEFAULT_AWARD_RULES.placement, ...stored.placement },
-		tieBreak: { ...DEFAULT_AWARD_RULES.tieBreak, ...stored.tieBreak },
-		topAwards: stored.topAwards ?? []
-	};
+	return awardRulesFrom(show.awardRules);
 }
 
 /** Plain settings of a show for the chair's form. */

@@ -5,7 +5,7 @@
  * transaction, and the chair's view of their delivery.
  */
 import { QueryTypes, type Transaction } from 'sequelize';
-import type { Award } from '$lib/domain/awards';
+import { describeAwardSettings, type Award } from '$lib/domain/awards';
 import { assembleResults, publicResults, type ResultsSource } from '$lib/results/assemble';
 import type { ShowResults } from '$lib/results/types';
 import type { AuditActor } from '../audit';
@@ -141,6 +141,7 @@ export async function loadShowResults(
 			venue: show.venue,
 			judgingDay: show.judgingDay,
 			system: judging.rules.system,
+			awardSettings: describeAwardSettings(judging.rules, judging.show.method),
 			publishedAt: show.publishedAt
 		},
 		divisions,

@@ -14,7 +14,9 @@ export function readRulesForm(
 	const indexes = new Set(
 		[...form.keys()].map((k) => /^top\.([^.]+)\.name$/.exec(k)?.[1]).filter((x) => x !== undefined)
 	);
-	for (const i of [...indexes].sort()) {
+	// Keep the listed order (it is the order of precedence for one top award per plant).
+	const order = (i: string) => (i === 'new' ? Number.POSITIVE_INFINITY : Number(i));
+	for (const i of [...indexes].sort((a, b) => order(a) - order(b) || (a < b ? -1 : 1))) {
 		const name = text(`top.${i}.name`);
 		if (form.get(`top.${i}.remove`) === 'on' || (i === 'new' && name === '')) continue;
 		topAwards.push({
@@ -47,7 +49,17 @@ export function readRulesForm(
 			useJudgesChoice: form.get('tieBreak.useJudgesChoice') === 'on'
 		},
 		sweepstakesTieBreak: text('sweepstakesTieBreak'),
-		topAwards
+		topAwards,
+		honorableMentions: {
+			rule: text('honorableMentions.rule'),
+			// The count is read only for "up to a number"; otherwise a blank keeps the form valid.
+			count:
+				text('honorableMentions.count') === '' && text('honorableMentions.rule') !== 'number'
+					? 1
+					: num('honorableMentions.count')
+		},
+		meanRounding: text('meanRounding'),
+		topAwardsPerPlant: text('topAwardsPerPlant')
 	});
 	if (!parsed.success) {
 		const issue = parsed.error.issues[0];
