@@ -12,6 +12,7 @@ import { recordShowAudit, type AuditActor } from '../audit';
 import { Division, Entry, Show, ShowClass, User, Variety, sequelize } from '../db';
 import { exhibitorContextFor, plantFactsOf, showContextOf, withStandingHint } from './entries';
 import { classRulesOf } from './schedule';
+import { societyToday } from './society-today';
 
 /** A line of the desk's search results. */
 export interface DeskHit {
@@ -125,7 +126,7 @@ async function judgeAtDesk(
 		exceptEntryId: entry.id,
 		transaction
 	});
-	const context = showContextOf(show);
+	const context = showContextOf(show, await societyToday(show.societyId, { transaction }));
 	const current = classes.find((c) => c.id === entry.classId)!;
 	const result = checkEligibility({
 		rules: classRulesOf(current),

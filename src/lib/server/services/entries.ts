@@ -1,5 +1,5 @@
 import { Op, QueryTypes, type Transaction } from 'sequelize';
-import { formatDateLong, formatIsoDate, type IsoDate } from '$lib/domain/dates';
+import { formatDateLong, type IsoDate } from '$lib/domain/dates';
 import {
 	checkEligibility,
 	type CheckPhase,
@@ -16,17 +16,13 @@ import { classRulesOf } from './schedule';
 import { MEMBERSHIP_PAGE, isInGoodStanding } from './standing';
 import { initialFeeStatus } from '$lib/domain/dues';
 import { settleFeeOfWithdrawnEntry } from './refunds';
+import { societyToday } from './society-today';
 
 /** Statuses that no longer count towards an exhibitor's limits. */
 export const INACTIVE_STATUSES = ['withdrawn', 'scratched'] as const;
 
-/** Today's calendar date on the server. */
-export function todayIso(): IsoDate {
-	return formatIsoDate(new Date());
-}
-
-/** The show's dates and limits as the eligibility module reads them. */
-export function showContextOf(show: Show, today: IsoDate = todayIso()): ShowContext {
+/** The show's dates and limits as the eligibility module reads them, on the society's `today`. */
+export function showContextOf(show: Show, today: IsoDate): ShowContext {
 	return {
 		showDate: show.judgingDay,
 		today,
@@ -151,10 +147,11 @@ async function judge(
 	transaction?: Transaction
 ): Promise<EligibilityResult> {
 	const exhibitorIn = await exhibitorContextFor(show, exhibitorId, variety.id, { transaction });
+	const today = await societyToday(show.societyId, { transaction });
 	const result = checkEligibility({
 		rules: classRulesOf(showClass),
 		plant: plantFactsOf(variety, acquiredOn),
-		show: showContextOf(show),
+		show: showContextOf(show, today),
 		exhibitor: exhibitorIn(showClass.id),
 		phase
 	});
@@ -269,11 +266,11 @@ export async function listMyEntriesInShow(showId: string, exhibitorId: string): 
 	}));
 }
 
-/** True while exhibitors may still enter and withdraw: on or before the day entries close. */
-export function entriesStillOpen(
-	show: Pick<Show, 'entriesClose'>,
-	today: IsoDate = todayIso()
-): boolean {
+/**
+ * True while exhibitors may still enter and withdraw: on or before the day entries close, with
+ * `today` read in the society's time zone.
+ */
+export function entriesStillOpen(show: Pick<Show, 'entriesClose'>, today: IsoDate): boolean {
 	return today <= show.entriesClose;
 }
 
@@ -295,7 +292,8 @@ export async function withdrawEntry(
 	});
 	if (!entry) return 'That entry is not one of yours.';
 	const show = await Show.findByPk(entry.showId, { transaction });
-	if (!show || !entriesStillOpen(show)) {
+	const today = show ? await societyToday(show.societyId, { transaction }) : '';
+	if (!show || !entriesStillOpen(show, today)) {
 		return `Entries closed on ${show ? formatDateLong(show.entriesClose) : 'an earlier day'}; ask the show chair to withdraw it.`;
 	}
 	if (entry.status !== 'entered')

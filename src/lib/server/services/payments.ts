@@ -1,15 +1,10 @@
 import { Op, QueryTypes } from 'sequelize';
-import { compareIsoDates, formatIsoDate, type IsoDate } from '../../domain/dates';
+import { compareIsoDates, todayIn, type IsoDate } from '../../domain/dates';
 import { duesStanding, periodAddsTime, type DuesStanding } from '../../domain/dues';
 import { sumCents } from '../../domain/money';
 import { DuesPeriod, Entry, Membership, Payment, Show, Society, sequelize } from '../db';
 import type { PaymentPurpose, PaymentStatus } from '../db/models/payment';
 import { stripe } from '../payments/stripe';
-
-/** Today's calendar date on the server. */
-export function todayIso(): IsoDate {
-	return formatIsoDate(new Date());
-}
 
 /** A payment could not be started; the message is meant for the member. */
 export class PaymentStartError extends Error {
@@ -82,7 +77,7 @@ export async function startDuesCheckout(
 	user: { id: string; email: string },
 	input: { societyId: string; periodId: string },
 	urls: { origin: string },
-	today: IsoDate = todayIso()
+	today?: IsoDate
 ): Promise<{ url: string; paymentId: string }> {
 	const [membership, period, society] = await Promise.all([
 		Membership.findOne({ where: { societyId: input.societyId, userId: user.id } }),
@@ -91,6 +86,7 @@ export async function startDuesCheckout(
 	]);
 	if (!membership || !society) throw new PaymentStartError('You are not a member of that society.');
 	if (!period) throw new PaymentStartError('Choose one of the dues periods listed.', 'periodId');
+	today ??= todayIn(society.timeZone);
 	if (
 		compareIsoDates(period.endsOn, today) < 0 ||
 		!periodAddsTime(membership.duesPaidThrough, period.endsOn)
@@ -184,10 +180,13 @@ export interface MembershipView {
 	periods: { id: string; label: string; amountCents: number; startsOn: string; endsOn: string }[];
 }
 
-/** The member's standing in each society, with the dues periods they can still pay. */
+/**
+ * The member's standing in each society, with the dues periods they can still pay; each
+ * society's "today" is read in its own time zone.
+ */
 export async function membershipOverview(
 	userId: string,
-	today: IsoDate = todayIso()
+	now: Date = new Date()
 ): Promise<MembershipView[]> {
 	const memberships = await Membership.findAll({
 		where: { userId },
@@ -195,6 +194,12 @@ export async function membershipOverview(
 	});
 	const societyIds = memberships.map((m) => m.societyId);
 	if (societyIds.length === 0) return [];
+	const todayOf = new Map(
+		memberships.map((m) => [m.societyId, todayIn((m.get('society') as Society).timeZone, now)])
+	);
+	// The earliest of the societies' days, so no society's rows are left out; each is then
+	// compared with its own day below.
+	const today = [...todayOf.values()].sort(compareIsoDates)[0];
 	const [periods, shows] = await Promise.all([
 		DuesPeriod.findAll({
 			where: { societyId: societyIds, endsOn: { [Op.gte]: today } },
@@ -213,7 +218,11 @@ export async function membershipOverview(
 		.filter((m) => m.roles.includes('member'))
 		.map((m) => {
 			const society = m.get('society') as Society;
-			const next = shows.find((s) => s.societyId === m.societyId) ?? null;
+			const today = todayOf.get(m.societyId)!;
+			const next =
+				shows.find(
+					(s) => s.societyId === m.societyId && compareIsoDates(s.judgingDay, today) >= 0
+				) ?? null;
 			return {
 				societyId: m.societyId,
 				societyName: society.name,
@@ -228,7 +237,12 @@ export async function membershipOverview(
 						}
 					: null,
 				periods: periods
-					.filter((p) => p.societyId === m.societyId && periodAddsTime(m.duesPaidThrough, p.endsOn))
+					.filter(
+						(p) =>
+							p.societyId === m.societyId &&
+							compareIsoDates(p.endsOn, today) >= 0 &&
+							periodAddsTime(m.duesPaidThrough, p.endsOn)
+					)
 					.map((p) => ({
 						id: p.id,
 						label: p.label,

@@ -111,7 +111,9 @@ export async function loadShowForReadiness(
 export async function listUpcomingShows(
 	societyIds: string[],
 	today: IsoDate
-): Promise<{ id: string; name: string; entriesClose: string; judgingDay: string }[]> {
+): Promise<
+	{ id: string; societyId: string; name: string; entriesClose: string; judgingDay: string }[]
+> {
 	if (societyIds.length === 0) return [];
 	const shows = await Show.findAll({
 		where: {
@@ -123,6 +125,7 @@ export async function listUpcomingShows(
 	});
 	return shows.map((s) => ({
 		id: s.id,
+		societyId: s.societyId,
 		name: s.name,
 		entriesClose: s.entriesClose,
 		judgingDay: s.judgingDay
