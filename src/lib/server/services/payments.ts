@@ -2,6 +2,7 @@ import { Op, QueryTypes } from 'sequelize';
 import { compareIsoDates, todayIn, type IsoDate } from '../../domain/dates';
 import { duesStanding, periodAddsTime, type DuesStanding } from '../../domain/dues';
 import { sumCents } from '../../domain/money';
+import { DEFAULT_SOCIETY_SETTINGS } from '../../domain/society-settings';
 import { DuesPeriod, Entry, Membership, Payment, Show, Society, sequelize } from '../db';
 import type { PaymentPurpose, PaymentStatus } from '../db/models/payment';
 import { stripe } from '../payments/stripe';
@@ -266,12 +267,14 @@ export interface PaymentRow {
 	currency: string;
 	createdAt: string;
 	paidAt: string | null;
+	/** The calendar day it was paid (or started) in the society's time zone. */
+	day: IsoDate;
 	payerName?: string | null;
 	payerEmail?: string;
 }
 
-/** A payment as the member and admin pages list it. */
-export function toPaymentRow(p: Payment): PaymentRow {
+/** A payment as the member and admin pages list it, dated in its society's time zone. */
+export function toPaymentRow(p: Payment, timeZone: string): PaymentRow {
 	return {
 		id: p.id,
 		purpose: p.purpose,
@@ -281,8 +284,21 @@ export function toPaymentRow(p: Payment): PaymentRow {
 		refundedCents: p.refundedCents,
 		currency: p.currency,
 		createdAt: p.createdAt.toISOString(),
-		paidAt: p.paidAt ? p.paidAt.toISOString() : null
+		paidAt: p.paidAt ? p.paidAt.toISOString() : null,
+		day: todayIn(timeZone, p.paidAt ?? p.createdAt)
 	};
+}
+
+/** The time zone of each of the given societies. */
+export async function timeZonesOf(societyIds: string[]): Promise<Map<string, string>> {
+	const unique = [...new Set(societyIds)];
+	if (unique.length === 0) return new Map();
+	const rows = await Society.findAll({ where: { id: unique }, attributes: ['id', 'timeZone'] });
+	return new Map(rows.map((s) => [s.id, s.timeZone]));
+}
+
+function zoneOf(zones: Map<string, string>, societyId: string): string {
+	return zones.get(societyId) ?? DEFAULT_SOCIETY_SETTINGS.timeZone;
 }
 
 /** A member's payments, newest first (abandoned checkouts older than a day are left out). */
@@ -299,7 +315,8 @@ export async function paymentsOfMember(userId: string): Promise<PaymentRow[]> {
 		order: [['createdAt', 'DESC']],
 		limit: 100
 	});
-	return rows.map(toPaymentRow);
+	const zones = await timeZonesOf(rows.map((p) => p.societyId));
+	return rows.map((p) => toPaymentRow(p, zoneOf(zones, p.societyId)));
 }
 
 /** Entry fees a member owes or has paid, grouped by show. */
@@ -373,5 +390,6 @@ export async function paymentForSession(
 	sessionId: string
 ): Promise<PaymentRow | null> {
 	const p = await Payment.findOne({ where: { userId, checkoutSessionId: sessionId } });
-	return p ? toPaymentRow(p) : null;
+	if (!p) return null;
+	return toPaymentRow(p, zoneOf(await timeZonesOf([p.societyId]), p.societyId));
 }
