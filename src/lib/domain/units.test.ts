@@ -4,6 +4,7 @@ import {
 	CM_PER_INCH,
 	formatLength,
 	formatLengthBoth,
+	lengthInUnit,
 	unitsFirst,
 	isLengthUnit,
 	toCentimetres,
@@ -140,5 +141,15 @@ describe('unitsFirst', () => {
 	it('puts the society unit first', () => {
 		expect(unitsFirst('cm')).toEqual(['cm', 'in']);
 		expect(unitsFirst('in')).toEqual(['in', 'cm']);
+	});
+});
+
+describe('lengthInUnit', () => {
+	it.each<[number, LengthUnit, string, string]>([
+		[2.25, 'in', '2.25', 'inches as stored'],
+		[2.25, 'cm', '5.7', '2.25 in = 5.715 cm: NIST SP 811'],
+		[6, 'cm', '15.2', '6 in = 15.24 cm: NIST SP 811']
+	])('%s in in %s is %s (%s)', (inches, unit, expected) => {
+		expect(lengthInUnit(inches, unit)).toBe(expected);
 	});
 });

@@ -90,3 +90,12 @@ export function formatLengthBoth(inches: number, first: LengthUnit): string {
 export function unitsFirst(first: LengthUnit): LengthUnit[] {
 	return [first, ...LENGTH_UNITS.filter((u) => u !== first)];
 }
+
+/**
+ * A length held in inches written as a plain number in a unit, for a form field that shows a
+ * stored value (inches to the hundredth, centimetres to the millimetre), e.g. 2.25 in → "5.7".
+ */
+export function lengthInUnit(inches: number, unit: LengthUnit): string {
+	assertUnit(unit);
+	return shownNumber(unit === 'in' ? toInches(inches, 'in') : toCentimetres(inches, 'in'), unit);
+}

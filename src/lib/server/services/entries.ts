@@ -1,5 +1,6 @@
 import { Op, QueryTypes, type Transaction } from 'sequelize';
-import { formatDateLong, type IsoDate } from '$lib/domain/dates';
+import { formatDateLong, todayIn, type IsoDate } from '$lib/domain/dates';
+import type { LengthUnit } from '$lib/domain/units';
 import {
 	checkEligibility,
 	type CheckPhase,
@@ -16,16 +17,25 @@ import { classRulesOf } from './schedule';
 import { MEMBERSHIP_PAGE, isInGoodStanding } from './standing';
 import { initialFeeStatus } from '$lib/domain/dues';
 import { settleFeeOfWithdrawnEntry } from './refunds';
+import { loadSocietySettings } from './society-settings';
 import { societyToday } from './society-today';
 
 /** Statuses that no longer count towards an exhibitor's limits. */
 export const INACTIVE_STATUSES = ['withdrawn', 'scratched'] as const;
 
-/** The show's dates and limits as the eligibility module reads them, on the society's `today`. */
-export function showContextOf(show: Show, today: IsoDate): ShowContext {
+/**
+ * The show's dates and limits as the eligibility module reads them, on the society's `today`
+ * and with lengths in its unit.
+ */
+export function showContextOf(
+	show: Show,
+	today: IsoDate,
+	lengthUnit: LengthUnit = 'in'
+): ShowContext {
 	return {
 		showDate: show.judgingDay,
 		today,
+		lengthUnit,
 		entriesOpen: show.entriesOpen,
 		entriesClose: show.entriesClose,
 		possessionMonths: show.possessionMonths,
@@ -147,11 +157,11 @@ async function judge(
 	transaction?: Transaction
 ): Promise<EligibilityResult> {
 	const exhibitorIn = await exhibitorContextFor(show, exhibitorId, variety.id, { transaction });
-	const today = await societyToday(show.societyId, { transaction });
+	const settings = await loadSocietySettings(show.societyId, { transaction });
 	const result = checkEligibility({
 		rules: classRulesOf(showClass),
 		plant: plantFactsOf(variety, acquiredOn),
-		show: showContextOf(show, today),
+		show: showContextOf(show, todayIn(settings.timeZone), settings.lengthUnit),
 		exhibitor: exhibitorIn(showClass.id),
 		phase
 	});
