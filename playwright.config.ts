@@ -30,7 +30,7 @@ export default defineConfig({
 	projects: [
 		{
 			name: 'laptop',
-			testIgnore: /bad-input\.spec\.ts/,
+			testIgnore: /bad-input\.spec\.ts|society-settings\.spec\.ts/,
 			use: { ...devices['Desktop Chrome'], viewport: { width: 1280, height: 800 } }
 		},
 		{
@@ -38,6 +38,13 @@ export default defineConfig({
 			name: 'bad-input',
 			testMatch: /bad-input\.spec\.ts/,
 			dependencies: ['laptop'],
+			use: { ...devices['Desktop Chrome'], viewport: { width: 1280, height: 800 } }
+		},
+		{
+			// Changes the demo society's settings for a moment: runs alone, after every other test.
+			name: 'settings',
+			testMatch: /society-settings\.spec\.ts/,
+			dependencies: ['bad-input'],
 			use: { ...devices['Desktop Chrome'], viewport: { width: 1280, height: 800 } }
 		}
 	]

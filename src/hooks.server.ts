@@ -9,7 +9,7 @@ import { startOutboxWorker } from '$lib/server/mail/outbox';
 import { loadSignedInUser } from '$lib/server/services/people';
 import { startRefundSender } from '$lib/server/services/refunds';
 import { startReminderSchedule } from '$lib/server/services/reminders';
-import { todayIso } from '$lib/schemas/plants';
+import { todayIn } from '$lib/domain/dates';
 import { answerThrown, withSecurityHeaders } from '$lib/server/security-headers';
 import { registerFastLane, UNEXPECTED_ERROR_MESSAGE } from '$lib/server/fast-lane';
 
@@ -113,7 +113,7 @@ export const init: ServerInit = () => {
 	const stopRefunds = off ? () => {} : startRefundSender();
 	// Entry reminders: an hourly check queues them once per show and member (CB_REMINDERS=off stops it).
 	const stopReminders =
-		process.env.CB_REMINDERS !== 'off' ? startReminderSchedule(todayIso) : () => {};
+		process.env.CB_REMINDERS !== 'off' ? startReminderSchedule((zone) => todayIn(zone)) : () => {};
 	// adapter-node emits this after it stops taking requests (SIGTERM, SIGINT): let the process end.
 	process.once('sveltekit:shutdown', () => {
 		stopWorker();

@@ -11,7 +11,7 @@ async function buildAwardSheets(id: string): Promise<Buffer> {
 	const services = '../../src/lib/server/services/show-results';
 	const pdfs = '../../src/lib/server/pdf/award-sheets';
 	let loadShowResults: (showId: string) => Promise<unknown>;
-	let renderAwardSheets: (results: unknown) => Promise<Buffer>;
+	let renderAwardSheets: (results: unknown, paper: 'letter' | 'a4') => Promise<Buffer>;
 	try {
 		({ loadShowResults } = (await import(services)) as {
 			loadShowResults: typeof loadShowResults;
@@ -24,7 +24,7 @@ async function buildAwardSheets(id: string): Promise<Buffer> {
 	}
 	const results = await loadShowResults(id);
 	if (!results) throw new Error('The show has no published results.');
-	return renderAwardSheets(results);
+	return renderAwardSheets(results, 'letter');
 }
 
 async function main(): Promise<Record<string, unknown>> {

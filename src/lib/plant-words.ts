@@ -40,8 +40,3 @@ export const STATUS_LABELS: Record<ReadinessStatus, string> = {
 	cannot_enter: 'Cannot be entered',
 	no_class: 'No class for it'
 };
-
-/** Inches with up to two decimals, e.g. 2.25 in. */
-export function inchesText(value: number | null): string {
-	return value === null ? '' : `${Number(value.toFixed(2))} in`;
-}

@@ -1,3 +1,5 @@
+import { formatMoney } from './domain/money';
+import { formatLengthBoth, type LengthUnit } from './domain/units';
 import { formatDate } from './format';
 
 /** The class fields that the schedule describes in words. */
@@ -27,8 +29,11 @@ function list(items: string[], joiner = 'or'): string {
 	return `${items.slice(0, -1).join(', ')} ${joiner} ${items[items.length - 1]}`;
 }
 
-/** A class's eligibility as short plain phrases, for the schedule page and PDF. */
-export function describeClass(c: ClassDescribed): string[] {
+/**
+ * A class's eligibility as short plain phrases, for the schedule page and PDF; lengths first in
+ * the society's unit.
+ */
+export function describeClass(c: ClassDescribed, unit: LengthUnit): string[] {
 	const parts: string[] = [];
 	if (c.speciesOnly) parts.push('species only');
 	if (c.habit !== 'any') parts.push(c.habit === 'trailer' ? 'trailers' : 'single crown');
@@ -45,7 +50,8 @@ export function describeClass(c: ClassDescribed): string[] {
 	}
 	if (c.collectionSize !== null)
 		parts.push(`collection of ${c.collectionSize} different named varieties`);
-	if (c.maxDiameterIn !== null) parts.push(`up to ${c.maxDiameterIn} in across`);
+	if (c.maxDiameterIn !== null)
+		parts.push(`up to ${formatLengthBoth(c.maxDiameterIn, unit)} across`);
 	if (c.scaleName) parts.push(`judged on: ${c.scaleName}`);
 	return parts.length ? parts : ['open to any plant'];
 }
@@ -67,10 +73,15 @@ export interface ShowDescribed {
 		merit: { blue: number; red: number; white: number };
 		placement: { first: number; second: number; third: number; honourable: number };
 	};
+	/** The fee for each entry in cents, when the schedule states it. */
+	entryFeeCents?: number;
 }
 
-/** The show's dates and rules as sentences. */
-export function describeShowRules(s: ShowDescribed): { dates: string[]; rules: string[] } {
+/** The show's dates and rules as sentences, with money in the society's currency. */
+export function describeShowRules(
+	s: ShowDescribed,
+	currency: string
+): { dates: string[]; rules: string[] } {
 	const dates = [
 		`Entries taken ${formatDate(s.entriesOpen)} to ${formatDate(s.entriesClose)}.`,
 		`Entry day (plants checked in): ${formatDate(s.entryDay)}.`,
@@ -89,6 +100,13 @@ export function describeShowRules(s: ShowDescribed): { dates: string[]; rules: s
 	rules.push(
 		`At most ${s.maxEntriesPerClass} ${s.maxEntriesPerClass === 1 ? 'entry' : 'entries'} per exhibitor in a class, and ${s.maxEntriesPerVariety} of each variety in the show.`
 	);
+	if (s.entryFeeCents !== undefined) {
+		rules.push(
+			s.entryFeeCents > 0
+				? `Entry fee: ${formatMoney(s.entryFeeCents, currency)} per entry.`
+				: 'No entry fee.'
+		);
+	}
 	const a = s.awardRules;
 	rules.push(
 		a.system === 'merit'

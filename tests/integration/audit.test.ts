@@ -1,8 +1,7 @@
 import { afterAll, afterEach, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
 import { Op, QueryTypes, type Transaction } from 'sequelize';
-import { addCalendarDays, addCalendarMonths } from '../../src/lib/domain/dates';
-import { todayIso } from '../../src/lib/schemas/plants';
+import { addCalendarDays, addCalendarMonths, todayIn } from '../../src/lib/domain/dates';
 import { listAuditLog } from '../../src/lib/server/audit';
 import {
 	DuesPeriod,
@@ -227,7 +226,7 @@ describe('entries', () => {
 
 	it('withdrawing an entry: one record under the exhibitor, with what became of the fee', async () => {
 		const f = await buildFixture();
-		const today = todayIso();
+		const today = todayIn('UTC');
 		await Show.update(
 			{
 				entriesOpen: addCalendarDays(today, -10),
@@ -522,7 +521,7 @@ describe('reading the log', () => {
 		expect(scores.rows[0]).toMatchObject({ targetLabel: 'Entry 2', details: { after: 92 } });
 		const byPerson = await listAuditLog({ societyId: f.societyId }, { page: 1, person: actor.id });
 		expect(byPerson.total).toBe(2);
-		const future = addCalendarDays(todayIso(), 2);
+		const future = addCalendarDays(todayIn('UTC'), 2);
 		expect((await listAuditLog({ societyId: f.societyId }, { page: 1, from: future })).total).toBe(
 			0
 		);

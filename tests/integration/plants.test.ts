@@ -4,8 +4,8 @@ import os from 'node:os';
 import path from 'node:path';
 import { QueryTypes } from 'sequelize';
 import sharp from 'sharp';
-import { addCalendarDays, addCalendarMonths } from '$lib/domain/dates';
-import { plantSchema, todayIso } from '$lib/schemas/plants';
+import { addCalendarDays, addCalendarMonths, todayIn } from '$lib/domain/dates';
+import { plantSchema } from '$lib/schemas/plants';
 import { sequelize } from '$lib/server/db';
 import { PlantEntryRefused, createEntryFromPlant } from '$lib/server/services/plant-entries';
 import { addPlantPhoto, readPlantPhoto } from '$lib/server/services/plant-photos';
@@ -27,7 +27,7 @@ import {
 	queueEntryReminders
 } from '$lib/server/services/reminders';
 
-const today = todayIso();
+const today = todayIn('UTC');
 let societyId: string;
 let showId: string;
 let member: string;
@@ -314,8 +314,8 @@ describe('readiness, entries and reminders against the demo show', () => {
 		]);
 		// 30 days before closing: nothing due. (Reminders for the show were queued above, so a
 		// run inside the window adds nothing new either: dedupe per show and member.)
-		expect(await queueDueReminders(addCalendarDays(close.d, -30))).toBe(0);
-		expect(await queueDueReminders(addCalendarDays(close.d, -3))).toBe(0);
+		expect(await queueDueReminders(() => addCalendarDays(close.d, -30))).toBe(0);
+		expect(await queueDueReminders(() => addCalendarDays(close.d, -3))).toBe(0);
 		const count = await one<{ n: string }>(
 			'SELECT count(*) AS n FROM outbox_messages WHERE kind = $1 AND show_id = $2',
 			[REMINDER_KIND, showId]

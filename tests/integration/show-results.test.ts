@@ -142,7 +142,9 @@ describe('publishing results with placements e-mails', () => {
 
 	it('the award sheets from the database hold the right awards', async () => {
 		const results = (await loadShowResults(showId))!;
-		const parser = new PDFParse({ data: new Uint8Array(await renderAwardSheets(results)) });
+		const parser = new PDFParse({
+			data: new Uint8Array(await renderAwardSheets(results, 'letter'))
+		});
 		const text = (await parser.getText()).text.replace(/\s+/g, ' ');
 		await parser.destroy();
 		expect(text).toMatch(/Best in show 2 5 \S.* Imogen Tallis 97/);

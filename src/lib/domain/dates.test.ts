@@ -10,7 +10,8 @@ import {
 	isIsoDate,
 	isOnOrBetween,
 	parseIsoDate,
-	possessionReachedOn
+	possessionReachedOn,
+	todayIn
 } from './dates';
 
 // possession period 3 months: state council show rules 2018 (DOMAIN.md)
@@ -218,5 +219,35 @@ describe('properties', () => {
 				expect(formatIsoDate(parseIsoDate(date))).toBe(date);
 			})
 		);
+	});
+});
+
+describe('todayIn', () => {
+	// Offsets from the IANA tz database: Europe/London GMT (UTC+0) in winter and BST (UTC+1) from
+	// the last Sunday of March at 01:00 UTC; America/New_York EST (UTC-5) in winter and EDT (UTC-4)
+	// in summer; Pacific/Auckland NZDT (UTC+13) in December.
+	it.each<[string, string, string, string]>([
+		['2026-12-15T23:30:00Z', 'Europe/London', '2026-12-15', '23:30 GMT, still the 15th'],
+		['2026-12-16T00:30:00Z', 'Europe/London', '2026-12-16', '00:30 GMT, already the 16th'],
+		['2026-12-16T00:30:00Z', 'America/New_York', '2026-12-15', '19:30 EST the evening before'],
+		['2026-12-16T04:59:00Z', 'America/New_York', '2026-12-15', '23:59 EST, one minute to midnight'],
+		['2026-12-16T05:00:00Z', 'America/New_York', '2026-12-16', 'midnight EST'],
+		['2026-12-15T11:00:00Z', 'Pacific/Auckland', '2026-12-16', 'midnight NZDT is 11:00 UTC'],
+		['2027-06-30T23:30:00Z', 'Europe/London', '2027-07-01', '00:30 BST, summer time'],
+		['2027-06-30T23:30:00Z', 'America/New_York', '2027-06-30', '19:30 EDT'],
+		['2027-03-28T00:59:00Z', 'Europe/London', '2027-03-28', 'the night summer time begins'],
+		['2026-12-16T00:30:00Z', 'UTC', '2026-12-16', 'UTC itself']
+	])('at %s in %s it is %s (%s)', (instant, zone, expected) => {
+		expect(todayIn(zone, new Date(instant))).toBe(expected);
+	});
+
+	it('gives two different days at one instant in two zones', () => {
+		const instant = new Date('2026-12-16T02:00:00Z');
+		expect(todayIn('Europe/London', instant)).toBe('2026-12-16');
+		expect(todayIn('America/New_York', instant)).toBe('2026-12-15');
+	});
+
+	it('refuses a zone the runtime does not know', () => {
+		expect(() => todayIn('Mars/Olympus_Mons')).toThrow(RangeError);
 	});
 });

@@ -184,3 +184,29 @@ export function hasPossessionPeriod(
 ): boolean {
 	return compareIsoDates(showDate, possessionReachedOn(acquiredOn, months)) >= 0;
 }
+
+const dayFormats = new Map<string, Intl.DateTimeFormat>();
+
+/**
+ * The calendar date it is at `now` in a time zone (an IANA name such as Europe/London): a
+ * society's "today", which decides whether entries are open, which reminders go out and how long
+ * a plant has been grown. Throws a RangeError for a zone the runtime does not know.
+ */
+export function todayIn(timeZone: string, now: Date = new Date()): IsoDate {
+	let format = dayFormats.get(timeZone);
+	if (!format) {
+		format = new Intl.DateTimeFormat('en-US', {
+			timeZone,
+			year: 'numeric',
+			month: '2-digit',
+			day: '2-digit'
+		});
+		dayFormats.set(timeZone, format);
+	}
+	const parts = Object.fromEntries(format.formatToParts(now).map((p) => [p.type, p.value]));
+	return writeIsoDate({
+		year: Number(parts.year),
+		month: Number(parts.month),
+		day: Number(parts.day)
+	});
+}

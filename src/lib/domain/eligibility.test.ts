@@ -589,6 +589,16 @@ describe('checkEligibility: messages a grower understands', () => {
 			'This class takes plants up to 12 in across, and this plant measures 12.5 in.'
 		],
 		[
+			// miniature up to 6 in (DOMAIN.md); 6 in = 15.24 cm, 6.1 in = 15.494 cm (NIST SP 811)
+			'names the lengths in cm first for a society that measures in cm',
+			{
+				plant: { ...miniature, measured: { diameterIn: 6.1 } },
+				show: { lengthUnit: 'cm' },
+				phase: 'desk'
+			},
+			'At 15.5 cm (6.1 in) across, this miniature is over the 15.2 cm (6 in) limit for a miniature, so it cannot be judged in this class.'
+		],
+		[
 			// single crown: state council show rules 2018 (DOMAIN.md)
 			'counts the suckers',
 			{ plant: { measured: { crowns: 3 } }, phase: 'desk' },

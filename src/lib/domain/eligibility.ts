@@ -14,6 +14,7 @@ import {
 	possessionReachedOn,
 	type IsoDate
 } from './dates';
+import { formatLengthBoth, type LengthUnit } from './units';
 
 /** How a variety grows: a single rosette, or several crowns from one main stem. */
 export type Habit = 'single_crown' | 'trailer';
@@ -91,6 +92,11 @@ export interface PlantFacts {
 export interface ShowContext {
 	showDate: IsoDate;
 	today: IsoDate;
+	/**
+	 * The unit the society reads lengths in. Inches (the default) keep the messages in inches;
+	 * centimetres put cm first with inches in brackets.
+	 */
+	lengthUnit?: LengthUnit;
 	/** First day entries are taken (included). */
 	entriesOpen: IsoDate;
 	/** Last day entries are taken (included). */
@@ -341,7 +347,7 @@ function collectFailures(
 		);
 	}
 	if (phase === 'desk') {
-		checkMeasurements(rules, plant, fail);
+		checkMeasurements(rules, plant, fail, show?.lengthUnit ?? 'in');
 	}
 	if (
 		rules.blossomTypes.length > 0 &&
@@ -424,8 +430,10 @@ function collectFailures(
 function checkMeasurements(
 	rules: ClassRules,
 	plant: PlantFacts,
-	fail: (code: FailureCode, message: string) => void
+	fail: (code: FailureCode, message: string) => void,
+	unit: LengthUnit
 ): void {
+	const inches = (value: number) => lengthWords(value, unit);
 	const diameter = plant.measured?.diameterIn;
 	if (diameter !== undefined) {
 		assertMeasure('diameter', diameter);
@@ -527,8 +535,8 @@ function quoted(varietyName: string): string {
 	return trimmed ? `"${trimmed}"` : 'this variety';
 }
 
-function inches(value: number): string {
-	return `${Number(value.toFixed(2))} in`;
+function lengthWords(value: number, unit: LengthUnit): string {
+	return unit === 'cm' ? formatLengthBoth(value, 'cm') : `${Number(value.toFixed(2))} in`;
 }
 
 function count(n: number, one: string, many: string): string {

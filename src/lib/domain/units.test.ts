@@ -3,6 +3,9 @@ import fc from 'fast-check';
 import {
 	CM_PER_INCH,
 	formatLength,
+	formatLengthBoth,
+	lengthInUnit,
+	unitsFirst,
 	isLengthUnit,
 	toCentimetres,
 	toInches,
@@ -109,5 +112,44 @@ describe('properties', () => {
 				expect(toCentimetres(inches, 'in')).toBeGreaterThanOrEqual(inches);
 			})
 		);
+	});
+});
+
+describe('formatLengthBoth', () => {
+	// Every value below: 1 in = 2.54 cm exactly (NIST SP 811).
+	it.each<[number, LengthUnit, string, string]>([
+		[6, 'in', '6 in (15.2 cm)', 'miniature limit, 6 in = 15.24 cm'],
+		[6, 'cm', '15.2 cm (6 in)', 'the same limit for a society that measures in cm'],
+		[8, 'in', '8 in (20.3 cm)', 'semiminiature limit, 8 in = 20.32 cm'],
+		[16, 'cm', '40.6 cm (16 in)', 'large, 16 in = 40.64 cm'],
+		[2.25, 'in', '2.25 in (5.7 cm)', 'a 2 1/4 in pot = 5.715 cm'],
+		[2.25, 'cm', '5.7 cm (2.25 in)', 'the same pot in cm first'],
+		[5.91, 'cm', '15 cm (5.91 in)', '15 cm typed and stored as 5.91 in = 15.0114 cm'],
+		[1, 'cm', '2.5 cm (1 in)', '1 in = 2.54 cm, to the millimetre'],
+		[0, 'in', '0 in (0 cm)', 'zero stays zero']
+	])('%s in shown with %s first is %s (%s)', (inches, unit, expected) => {
+		expect(formatLengthBoth(inches, unit)).toBe(expected);
+	});
+
+	it('refuses a negative length and an unknown unit', () => {
+		expect(() => formatLengthBoth(-1, 'in')).toThrow(RangeError);
+		expect(() => formatLengthBoth(1, 'mm' as LengthUnit)).toThrow(RangeError);
+	});
+});
+
+describe('unitsFirst', () => {
+	it('puts the society unit first', () => {
+		expect(unitsFirst('cm')).toEqual(['cm', 'in']);
+		expect(unitsFirst('in')).toEqual(['in', 'cm']);
+	});
+});
+
+describe('lengthInUnit', () => {
+	it.each<[number, LengthUnit, string, string]>([
+		[2.25, 'in', '2.25', 'inches as stored'],
+		[2.25, 'cm', '5.7', '2.25 in = 5.715 cm: NIST SP 811'],
+		[6, 'cm', '15.2', '6 in = 15.24 cm: NIST SP 811']
+	])('%s in in %s is %s (%s)', (inches, unit, expected) => {
+		expect(lengthInUnit(inches, unit)).toBe(expected);
 	});
 });

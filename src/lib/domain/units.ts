@@ -62,3 +62,40 @@ export function formatLength(inches: number, unit: LengthUnit, digits = 1): stri
 	const value = unit === 'in' ? toInches(inches, 'in') : toCentimetres(inches, 'in');
 	return `${value.toFixed(digits)} ${unit}`;
 }
+
+/** Decimals a length is shown with: inches to the hundredth (2 1/4 in pots), cm to the millimetre. */
+const SHOWN_DECIMALS: Record<LengthUnit, number> = { in: 2, cm: 1 };
+
+function shownNumber(value: number, unit: LengthUnit): string {
+	const scale = 10 ** SHOWN_DECIMALS[unit];
+	// The small nudge keeps halves that binary floating point stores just below .5 rounding up.
+	const rounded = Math.round(value * scale + 1e-9) / scale;
+	return String(rounded);
+}
+
+/**
+ * Shows a length held in inches the way a society reads it: first in its own unit, then the
+ * other in brackets, e.g. `6 in (15.2 cm)` or `15.2 cm (6 in)`. Inches keep up to two decimals
+ * and centimetres one, without trailing zeros. Throws a RangeError for a negative or non-finite
+ * length.
+ */
+export function formatLengthBoth(inches: number, first: LengthUnit): string {
+	assertUnit(first);
+	const inText = `${shownNumber(toInches(inches, 'in'), 'in')} in`;
+	const cmText = `${shownNumber(toCentimetres(inches, 'in'), 'cm')} cm`;
+	return first === 'in' ? `${inText} (${cmText})` : `${cmText} (${inText})`;
+}
+
+/** The units in the order a form offers them: the society's unit first. */
+export function unitsFirst(first: LengthUnit): LengthUnit[] {
+	return [first, ...LENGTH_UNITS.filter((u) => u !== first)];
+}
+
+/**
+ * A length held in inches written as a plain number in a unit, for a form field that shows a
+ * stored value (inches to the hundredth, centimetres to the millimetre), e.g. 2.25 in → "5.7".
+ */
+export function lengthInUnit(inches: number, unit: LengthUnit): string {
+	assertUnit(unit);
+	return shownNumber(unit === 'in' ? toInches(inches, 'in') : toCentimetres(inches, 'in'), unit);
+}

@@ -1,15 +1,12 @@
 import { z } from 'zod';
-import { addCalendarDays, compareIsoDates, formatIsoDate, isIsoDate } from '$lib/domain/dates';
+import { addCalendarDays, compareIsoDates, isIsoDate, todayIn } from '$lib/domain/dates';
 import { OBTAINED_HOW, PLANT_EVENT_KINDS, PROPAGATED } from '$lib/domain/readiness';
 import { toInches } from '$lib/domain/units';
 
-/** Today's calendar date where the server runs (forms default to it). */
-export function todayIso(): string {
-	const now = new Date();
-	return formatIsoDate(new Date(Date.UTC(now.getFullYear(), now.getMonth(), now.getDate())));
-}
-
-/** A past (or today's) calendar date; tomorrow is let through for growers a time zone ahead. */
+/**
+ * A past (or today's) calendar date. "Today" is UTC's, and tomorrow is let through, so a grower
+ * in any time zone (up to UTC+14) can give their own today.
+ */
 const pastDate = (what: string) =>
 	z
 		.string(`Give the date ${what}.`)
@@ -19,7 +16,7 @@ const pastDate = (what: string) =>
 			abort: true
 		})
 		.refine(
-			(d) => compareIsoDates(d, addCalendarDays(todayIso(), 1)) <= 0,
+			(d) => compareIsoDates(d, addCalendarDays(todayIn('UTC'), 1)) <= 0,
 			`The date ${what} cannot be in the future.`
 		);
 

@@ -1,7 +1,16 @@
 import { lengthField, plantSchema, type PlantInput } from '$lib/schemas/plants';
 import { fieldErrors } from './plant-route';
 
-const FIELDS = ['varietyId', 'label', 'obtainedHow', 'obtainedOn', 'parentId', 'potSize', 'notes'];
+const FIELDS = [
+	'varietyId',
+	'label',
+	'obtainedHow',
+	'obtainedOn',
+	'parentId',
+	'potSize',
+	'potSizeUnit',
+	'notes'
+];
 
 /** The plant form's fields as sent, to show again after an error. */
 export function plantFormValues(form: FormData): Record<string, string> {

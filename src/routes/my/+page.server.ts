@@ -1,5 +1,4 @@
 import { requireRole, societiesWithRole } from '$lib/server/policies';
-import { todayIso } from '$lib/server/services/entries';
 import { listEntriesOfExhibitor, listShowsTakingEntries } from '$lib/server/services/shows';
 import type { PageServerLoad } from './$types';
 
@@ -7,7 +6,7 @@ export const load: PageServerLoad = async (event) => {
 	const user = requireRole(event, ['member']);
 	const [entries, openShows] = await Promise.all([
 		listEntriesOfExhibitor(user.id),
-		listShowsTakingEntries(societiesWithRole(user, ['member']), todayIso())
+		listShowsTakingEntries(societiesWithRole(user, ['member']))
 	]);
 	return { entries, openShows };
 };

@@ -1,17 +1,23 @@
 /**
- * Award cards: one per entry that won anything, four to a letter page (each about 4 by 5¼ in,
- * with dashed cut lines) so a card can stand beside the plant on the bench. Each card gives the
+ * Award cards: one per entry that won anything, four to a page of the society's paper (on Letter
+ * each about 4 by 5¼ in, on A4 about 10 by 14 cm, with dashed cut lines) so a card can stand beside the plant on the bench. Each card gives the
  * award, the class, the variety, the entry number, the score and the judges' comment.
  */
 import type { Content, TableCell, TDocumentDefinitions } from 'pdfmake/interfaces';
 import { entryAwards, formatScore } from '$lib/results/labels';
+import type { PaperSize } from '$lib/domain/society-settings';
 import type { ResultClass, ResultEntry, ShowResults } from '$lib/results/types';
 import { eachEntry } from '$lib/results/assemble';
 import { renderPdf } from './render';
+import { paperOf } from './paper';
 import { clip } from './results-common';
 
-/** Height of one card in points (a letter page less margins, halved). */
-const CARD_HEIGHT = 372;
+const MARGIN = 18; // points (0.25 in)
+
+/** Height of one card in points: the page less its margins, halved, less room for the cut lines. */
+export function cardHeight(pageHeight: number): number {
+	return Math.floor((pageHeight - 2 * MARGIN) / 2) - 6;
+}
 
 function card(results: ShowResults, cls: ResultClass, entry: ResultEntry): TableCell {
 	const comment = entry.comments.join(' ');
@@ -38,7 +44,11 @@ function card(results: ShowResults, cls: ResultClass, entry: ResultEntry): Table
 }
 
 /** The pdfmake definition of the award cards. */
-export function awardCardsDefinition(results: ShowResults): TDocumentDefinitions {
+export function awardCardsDefinition(
+	results: ShowResults,
+	paperSize: PaperSize
+): TDocumentDefinitions {
+	const paper = paperOf(paperSize);
 	const cards: TableCell[] = [];
 	for (const { cls, entry } of eachEntry(results)) {
 		if (entryAwards(entry).length > 0) cards.push(card(results, cls, entry));
@@ -46,7 +56,7 @@ export function awardCardsDefinition(results: ShowResults): TDocumentDefinitions
 	if (cards.length === 0) {
 		return {
 			info: { title: `Award cards: ${results.show.name}` },
-			pageSize: 'LETTER',
+			pageSize: paper.pageSize,
 			content: [{ text: 'No entry won an award, so there are no cards to print.' }]
 		};
 	}
@@ -63,20 +73,20 @@ export function awardCardsDefinition(results: ShowResults): TDocumentDefinitions
 		const body: TableCell[][] = [[cards[i], cards[i + 1] ?? '']];
 		if (i + 2 < cards.length) body.push([cards[i + 2], cards[i + 3] ?? '']);
 		pages.push({
-			table: { widths: ['*', '*'], heights: CARD_HEIGHT, body },
+			table: { widths: ['*', '*'], heights: cardHeight(paper.height), body },
 			layout,
 			pageBreak: i > 0 ? 'before' : undefined
 		});
 	}
 	return {
 		info: { title: `Award cards: ${results.show.name}` },
-		pageSize: 'LETTER',
-		pageMargins: [18, 18, 18, 18],
+		pageSize: paper.pageSize,
+		pageMargins: [MARGIN, MARGIN, MARGIN, MARGIN],
 		content: pages
 	};
 }
 
-/** Renders the award cards to PDF. */
-export function renderAwardCards(results: ShowResults): Promise<Buffer> {
-	return renderPdf(awardCardsDefinition(results));
+/** Renders the award cards to PDF on the society's paper. */
+export function renderAwardCards(results: ShowResults, paperSize: PaperSize): Promise<Buffer> {
+	return renderPdf(awardCardsDefinition(results, paperSize));
 }

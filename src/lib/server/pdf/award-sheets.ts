@@ -4,7 +4,9 @@
  */
 import type { Content, TableCell, TDocumentDefinitions } from 'pdfmake/interfaces';
 import { awardLine, formatScore } from '$lib/results/labels';
+import type { PaperSize } from '$lib/domain/society-settings';
 import type { ResultDivision, ShowResults } from '$lib/results/types';
+import { paperOf } from './paper';
 import { renderPdf } from './render';
 import { showHeading } from './results-common';
 
@@ -83,7 +85,10 @@ function settingsLine(results: ShowResults): Content {
 }
 
 /** The pdfmake definition of the award sheets. */
-export function awardSheetsDefinition(results: ShowResults): TDocumentDefinitions {
+export function awardSheetsDefinition(
+	results: ShowResults,
+	paperSize: PaperSize
+): TDocumentDefinitions {
 	const content: Content[] = [
 		...showHeading(results, 'Award sheets'),
 		settingsLine(results),
@@ -131,7 +136,7 @@ export function awardSheetsDefinition(results: ShowResults): TDocumentDefinition
 	}
 	return {
 		info: { title: `Award sheets: ${results.show.name}` },
-		pageSize: 'LETTER',
+		pageSize: paperOf(paperSize).pageSize,
 		pageMargins: [40, 40, 40, 48],
 		footer: (page, pages) => ({
 			text: `${results.show.name} · award sheets · page ${page} of ${pages}`,
@@ -142,7 +147,7 @@ export function awardSheetsDefinition(results: ShowResults): TDocumentDefinition
 	};
 }
 
-/** Renders the award sheets to PDF. */
-export function renderAwardSheets(results: ShowResults): Promise<Buffer> {
-	return renderPdf(awardSheetsDefinition(results));
+/** Renders the award sheets to PDF on the society's paper. */
+export function renderAwardSheets(results: ShowResults, paperSize: PaperSize): Promise<Buffer> {
+	return renderPdf(awardSheetsDefinition(results, paperSize));
 }

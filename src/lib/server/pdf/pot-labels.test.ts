@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { PDFParse } from 'pdf-parse';
 import { renderPdf } from './render';
-import { potLabelsDocument } from './pot-labels';
+import { LABEL_COLUMNS, potLabelsDocument } from './pot-labels';
+import { A4_POINTS, LETTER_POINTS, readPdf } from './read-pdf';
 
 async function textOf(buffer: Buffer): Promise<{ text: string; pages: number }> {
 	const parser = new PDFParse({ data: new Uint8Array(buffer) });
@@ -13,15 +14,23 @@ async function textOf(buffer: Buffer): Promise<{ text: string; pages: number }> 
 describe('potLabelsDocument', () => {
 	it('puts each plant on a label with its variety, how and when it was potted', async () => {
 		const buffer = await renderPdf(
-			potLabelsDocument([
-				{
-					varietyName: 'Harbor Dusk',
-					label: 'window sill',
-					obtainedHow: 'sucker',
-					obtainedOn: '2027-03-12'
-				},
-				{ varietyName: "Wren's Ladder", label: null, obtainedHow: 'leaf', obtainedOn: '2028-02-29' }
-			])
+			potLabelsDocument(
+				[
+					{
+						varietyName: 'Harbor Dusk',
+						label: 'window sill',
+						obtainedHow: 'sucker',
+						obtainedOn: '2027-03-12'
+					},
+					{
+						varietyName: "Wren's Ladder",
+						label: null,
+						obtainedHow: 'leaf',
+						obtainedOn: '2028-02-29'
+					}
+				],
+				'a4'
+			)
 		);
 		expect(buffer.subarray(0, 5).toString()).toBe('%PDF-');
 		const { text } = await textOf(buffer);
@@ -39,10 +48,28 @@ describe('potLabelsDocument', () => {
 			obtainedHow: 'bought' as const,
 			obtainedOn: '2027-01-05'
 		}));
-		const { text, pages } = await textOf(await renderPdf(potLabelsDocument(many)));
+		const { text, pages } = await textOf(await renderPdf(potLabelsDocument(many, 'letter')));
 		expect(text).toContain('Seedling 90');
 		expect(pages).toBeGreaterThan(1);
-		const empty = await textOf(await renderPdf(potLabelsDocument([])));
+		const empty = await textOf(await renderPdf(potLabelsDocument([], 'a4')));
 		expect(empty.text).toContain('No plants chosen.');
+	});
+
+	it.each([
+		['a4', A4_POINTS],
+		['letter', LETTER_POINTS]
+	] as const)('print on %s with every label on the sheet', async (paper, size) => {
+		const many = Array.from({ length: 90 }, (_, i) => ({
+			varietyName: `Seedling ${i + 1}`,
+			label: null,
+			obtainedHow: 'bought' as const,
+			obtainedOn: '2027-01-05'
+		}));
+		const pdf = await readPdf(await renderPdf(potLabelsDocument(many, paper)));
+		for (const page of pdf.sizes) expect(page).toEqual(size);
+		expect(pdf.text.match(/Seedling \d+ /g)).toHaveLength(90);
+		// Rows of 48 pt within 28 pt margins: whole rows per page, never more pages than that needs.
+		const rowsPerPage = Math.floor((size.height - 2 * 28) / 48);
+		expect(pdf.pages).toBeLessThanOrEqual(Math.ceil(90 / LABEL_COLUMNS / (rowsPerPage - 1)));
 	});
 });

@@ -1,6 +1,8 @@
 import type { Content, TableCell, TDocumentDefinitions } from 'pdfmake/interfaces';
 import { formatDateLong } from '../../domain/dates';
 import type { ObtainedHow } from '../../domain/readiness';
+import type { PaperSize } from '../../domain/society-settings';
+import { paperOf } from './paper';
 
 /** What goes on one pot label. */
 export interface PotLabel {
@@ -10,7 +12,7 @@ export interface PotLabel {
 	obtainedOn: string;
 }
 
-/** Columns of labels across an A4 page, and the size of one label in points (72 pt = 1 in). */
+/** Columns of labels across the page (Letter or A4: the columns share the width), and the size of one label in points (72 pt = 1 in). */
 export const LABEL_COLUMNS = 4;
 const LABEL_HEIGHT = 48;
 const PAGE_MARGIN = 28;
@@ -40,9 +42,9 @@ function labelCell(label: PotLabel): TableCell {
 
 /**
  * A sheet of small pot labels (variety and date, a name tag when the plant has one) in a grid
- * with dashed cutting lines, for newly potted plants.
+ * with dashed cutting lines, for newly potted plants, on the member's paper.
  */
-export function potLabelsDocument(labels: PotLabel[]): TDocumentDefinitions {
+export function potLabelsDocument(labels: PotLabel[], paperSize: PaperSize): TDocumentDefinitions {
 	const rows: TableCell[][] = [];
 	for (let i = 0; i < labels.length; i += LABEL_COLUMNS) {
 		const row = labels.slice(i, i + LABEL_COLUMNS).map(labelCell);
@@ -69,7 +71,7 @@ export function potLabelsDocument(labels: PotLabel[]): TDocumentDefinitions {
 			}
 		: { text: 'No plants chosen.' };
 	return {
-		pageSize: 'A4',
+		pageSize: paperOf(paperSize).pageSize,
 		pageMargins: [PAGE_MARGIN, PAGE_MARGIN, PAGE_MARGIN, PAGE_MARGIN],
 		info: { title: 'Pot labels', creator: 'Crownbench' },
 		content: [content]

@@ -1,19 +1,26 @@
 import type { Content, TDocumentDefinitions } from 'pdfmake/interfaces';
+import type { SocietySettings } from '$lib/domain/society-settings';
 import { describeClass, describeShowRules } from '$lib/schedule-text';
 import type { ScheduleDivision, ShowSettings } from '../services/schedule';
+import { paperOf } from './paper';
 
-/** The printable show schedule, made from the same data as the public schedule page. */
+/**
+ * The printable show schedule, made from the same data as the public schedule page, on the
+ * society's paper and with lengths in its unit first and fees in its currency.
+ */
 export function scheduleDocument(
 	show: ShowSettings & { societyName: string },
-	divisions: ScheduleDivision[]
+	divisions: ScheduleDivision[],
+	settings: Pick<SocietySettings, 'paperSize' | 'lengthUnit' | 'currency'>
 ): TDocumentDefinitions {
+	const text = describeShowRules(show, settings.currency);
 	const content: Content[] = [
 		{ text: show.name, style: 'title' },
 		{ text: show.societyName, style: 'small', margin: [0, 0, 0, 8] },
 		{ text: 'Dates and place', style: 'heading' },
-		{ ul: describeShowRules(show).dates },
+		{ ul: text.dates },
 		{ text: 'Rules', style: 'heading' },
-		{ ul: describeShowRules(show).rules }
+		{ ul: text.rules }
 	];
 	for (const division of divisions) {
 		content.push({ text: `Division ${division.code}: ${division.name}`, style: 'heading' });
@@ -25,14 +32,14 @@ export function scheduleDocument(
 				stack: [
 					{ text: `Class ${c.code}. ${c.name}`, bold: true },
 					...(c.description ? [{ text: c.description }] : []),
-					{ text: describeClass(c).join(' · '), style: 'small' }
+					{ text: describeClass(c, settings.lengthUnit).join(' · '), style: 'small' }
 				]
 			});
 		}
 	}
 	return {
 		info: { title: `Schedule: ${show.name}` },
-		pageSize: 'A4',
+		pageSize: paperOf(settings.paperSize).pageSize,
 		pageMargins: [48, 48, 48, 56],
 		footer: (current, count) => ({
 			text: `${show.name} · page ${current} of ${count}`,

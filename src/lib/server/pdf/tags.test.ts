@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { PDFParse } from 'pdf-parse';
 import { renderPdf } from './render';
+import { A4_POINTS, LETTER_POINTS, readPdf } from './read-pdf';
 import { entryLink, entryTagsDocument } from './tags';
 
 describe('entry tags', () => {
@@ -15,7 +16,8 @@ describe('entry tags', () => {
 					exhibitor: 'Wren Halloway'
 				}
 			],
-			'https://cb.example'
+			'https://cb.example',
+			'letter'
 		);
 		const pdf = await renderPdf(doc);
 		const parser = new PDFParse({ data: new Uint8Array(pdf) });
@@ -29,6 +31,27 @@ describe('entry tags', () => {
 		}
 		expect(text.indexOf('Wren Halloway')).toBeGreaterThan(fold);
 		expect(pdf.toString('latin1')).toMatch(/\/Subtype\s*\/Image/); // the QR code
+	});
+
+	it.each([
+		['a4', A4_POINTS],
+		['letter', LETTER_POINTS]
+	] as const)('fit three to a %s page', async (paper, size) => {
+		const entries = Array.from({ length: 7 }, (_, i) => ({
+			number: i + 1,
+			classLabel: '3 Standards',
+			plant: `Seedling ${i + 1}`,
+			exhibitor: 'Wren Halloway'
+		}));
+		const doc = await entryTagsDocument(
+			{ name: 'Spring', slug: 'spring' },
+			entries,
+			'https://cb.example',
+			paper
+		);
+		const pdf = await readPdf(await renderPdf(doc));
+		expect(pdf.pages).toBe(3);
+		for (const page of pdf.sizes) expect(page).toEqual(size);
 	});
 
 	it('link to the entry by show and number', () => {

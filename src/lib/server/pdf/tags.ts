@@ -1,25 +1,30 @@
 import QRCode from 'qrcode';
 import type { Content, TDocumentDefinitions } from 'pdfmake/interfaces';
+import type { PaperSize } from '$lib/domain/society-settings';
 import type { TagEntry } from '../services/desk';
+import { paperOf } from './paper';
 
 /** The address a tag's QR code opens: the entry in Crownbench, by show and number. */
 export function entryLink(origin: string, showSlug: string, number: number): string {
 	return `${origin}/e/${encodeURIComponent(showSlug)}/${number}`;
 }
 
-const PAGE_WIDTH = 595.28 - 2 * 36; // A4 less margins, in points
+const MARGIN = 36; // points (0.5 in)
 const TAGS_PER_PAGE = 3;
 
 /**
  * Entry tags: the judge-facing part shows only the anonymous number, the class, the variety and
  * a QR code; below a dashed fold line, the exhibitor's stub (name and number) folds away or
- * tears off so judges never see whose plant it is.
+ * tears off so judges never see whose plant it is. Three to a page of the society's paper.
  */
 export async function entryTagsDocument(
 	show: { name: string; slug: string },
 	entries: TagEntry[],
-	origin: string
+	origin: string,
+	paperSize: PaperSize
 ): Promise<TDocumentDefinitions> {
+	const paper = paperOf(paperSize);
+	const lineWidth = paper.width - 2 * MARGIN;
 	const tags: Content[] = [];
 	for (const [i, entry] of entries.entries()) {
 		const qr = await QRCode.toDataURL(entryLink(origin, show.slug, entry.number), {
@@ -52,7 +57,7 @@ export async function entryTagsDocument(
 							type: 'line',
 							x1: 0,
 							y1: 8,
-							x2: PAGE_WIDTH,
+							x2: lineWidth,
 							y2: 8,
 							dash: { length: 5, space: 4 },
 							lineWidth: 1,
@@ -80,8 +85,8 @@ export async function entryTagsDocument(
 	if (!tags.length) tags.push({ text: 'No entries to print.' });
 	return {
 		info: { title: `Entry tags: ${show.name}` },
-		pageSize: 'A4',
-		pageMargins: [36, 36, 36, 36],
+		pageSize: paper.pageSize,
+		pageMargins: [MARGIN, MARGIN, MARGIN, MARGIN],
 		content: tags
 	};
 }

@@ -6,12 +6,14 @@ import {
 	type EligibilityResult,
 	type PlantFacts
 } from '$lib/domain/eligibility';
+import { todayIn } from '$lib/domain/dates';
 import { toInches } from '$lib/domain/units';
 import type { CheckInInput } from '$lib/schemas/desk';
 import { recordShowAudit, type AuditActor } from '../audit';
 import { Division, Entry, Show, ShowClass, User, Variety, sequelize } from '../db';
 import { exhibitorContextFor, plantFactsOf, showContextOf, withStandingHint } from './entries';
 import { classRulesOf } from './schedule';
+import { loadSocietySettings } from './society-settings';
 
 /** A line of the desk's search results. */
 export interface DeskHit {
@@ -125,7 +127,8 @@ async function judgeAtDesk(
 		exceptEntryId: entry.id,
 		transaction
 	});
-	const context = showContextOf(show);
+	const settings = await loadSocietySettings(show.societyId, { transaction });
+	const context = showContextOf(show, todayIn(settings.timeZone), settings.lengthUnit);
 	const current = classes.find((c) => c.id === entry.classId)!;
 	const result = checkEligibility({
 		rules: classRulesOf(current),

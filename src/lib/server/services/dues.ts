@@ -2,7 +2,7 @@ import type { Transaction } from 'sequelize';
 import type { EntryFeeRefund } from '../../domain/dues';
 import { recordAudit, type AuditActor } from '../audit';
 import { DuesPeriod, Payment, Show, Society, User } from '../db';
-import { toPaymentRow, type PaymentRow } from './payments';
+import { timeZonesOf, toPaymentRow, type PaymentRow } from './payments';
 
 /** A dues period as the admin sees it. */
 export interface DuesPeriodRow {
@@ -146,8 +146,9 @@ export async function recentPayments(societyId: string, limit = 30): Promise<Pay
 		order: [['paidAt', 'DESC']],
 		limit
 	});
+	const zone = (await timeZonesOf([societyId])).get(societyId) ?? 'UTC';
 	return rows.map((p) => {
 		const user = p.get('user') as User;
-		return { ...toPaymentRow(p), payerName: user.name, payerEmail: user.email };
+		return { ...toPaymentRow(p, zone), payerName: user.name, payerEmail: user.email };
 	});
 }

@@ -1,5 +1,6 @@
 import { Op, QueryTypes, type Transaction } from 'sequelize';
-import { formatDateLong, formatIsoDate, type IsoDate } from '$lib/domain/dates';
+import { formatDateLong, todayIn, type IsoDate } from '$lib/domain/dates';
+import type { LengthUnit } from '$lib/domain/units';
 import {
 	checkEligibility,
 	type CheckPhase,
@@ -16,20 +17,25 @@ import { classRulesOf } from './schedule';
 import { MEMBERSHIP_PAGE, isInGoodStanding } from './standing';
 import { initialFeeStatus } from '$lib/domain/dues';
 import { settleFeeOfWithdrawnEntry } from './refunds';
+import { loadSocietySettings } from './society-settings';
+import { societyToday } from './society-today';
 
 /** Statuses that no longer count towards an exhibitor's limits. */
 export const INACTIVE_STATUSES = ['withdrawn', 'scratched'] as const;
 
-/** Today's calendar date on the server. */
-export function todayIso(): IsoDate {
-	return formatIsoDate(new Date());
-}
-
-/** The show's dates and limits as the eligibility module reads them. */
-export function showContextOf(show: Show, today: IsoDate = todayIso()): ShowContext {
+/**
+ * The show's dates and limits as the eligibility module reads them, on the society's `today`
+ * and with lengths in its unit.
+ */
+export function showContextOf(
+	show: Show,
+	today: IsoDate,
+	lengthUnit: LengthUnit = 'in'
+): ShowContext {
 	return {
 		showDate: show.judgingDay,
 		today,
+		lengthUnit,
 		entriesOpen: show.entriesOpen,
 		entriesClose: show.entriesClose,
 		possessionMonths: show.possessionMonths,
@@ -151,10 +157,11 @@ async function judge(
 	transaction?: Transaction
 ): Promise<EligibilityResult> {
 	const exhibitorIn = await exhibitorContextFor(show, exhibitorId, variety.id, { transaction });
+	const settings = await loadSocietySettings(show.societyId, { transaction });
 	const result = checkEligibility({
 		rules: classRulesOf(showClass),
 		plant: plantFactsOf(variety, acquiredOn),
-		show: showContextOf(show),
+		show: showContextOf(show, todayIn(settings.timeZone), settings.lengthUnit),
 		exhibitor: exhibitorIn(showClass.id),
 		phase
 	});
@@ -269,11 +276,11 @@ export async function listMyEntriesInShow(showId: string, exhibitorId: string): 
 	}));
 }
 
-/** True while exhibitors may still enter and withdraw: on or before the day entries close. */
-export function entriesStillOpen(
-	show: Pick<Show, 'entriesClose'>,
-	today: IsoDate = todayIso()
-): boolean {
+/**
+ * True while exhibitors may still enter and withdraw: on or before the day entries close, with
+ * `today` read in the society's time zone.
+ */
+export function entriesStillOpen(show: Pick<Show, 'entriesClose'>, today: IsoDate): boolean {
 	return today <= show.entriesClose;
 }
 
@@ -295,7 +302,8 @@ export async function withdrawEntry(
 	});
 	if (!entry) return 'That entry is not one of yours.';
 	const show = await Show.findByPk(entry.showId, { transaction });
-	if (!show || !entriesStillOpen(show)) {
+	const today = show ? await societyToday(show.societyId, { transaction }) : '';
+	if (!show || !entriesStillOpen(show, today)) {
 		return `Entries closed on ${show ? formatDateLong(show.entriesClose) : 'an earlier day'}; ask the show chair to withdraw it.`;
 	}
 	if (entry.status !== 'entered')

@@ -7,7 +7,7 @@ import { recordAudit, type AuditActor } from '../audit';
 import { Membership, Society, User, sequelize } from '../db';
 import { queueMail } from '../mail/outbox';
 import { invitationMessage } from '../mail/payment-messages';
-import { todayIso } from './payments';
+import { societyToday } from './society-today';
 import type { PersonRow } from './people';
 
 /** One row of the admin's members table: a person of the society, with standing and sign-in. */
@@ -41,8 +41,9 @@ const SORT_SQL: Record<MemberQuery['sort'], string> = {
 export async function listMembers(
 	societyId: string,
 	query: MemberQuery,
-	today: IsoDate = todayIso()
+	today?: IsoDate
 ): Promise<MemberPage> {
+	today ??= await societyToday(societyId);
 	const where = ['m.society_id = $1'];
 	const bind: unknown[] = [societyId, today];
 	if (query.q) {

@@ -1,15 +1,11 @@
 import { Op, QueryTypes } from 'sequelize';
-import { compareIsoDates, formatIsoDate, type IsoDate } from '../../domain/dates';
+import { compareIsoDates, todayIn, type IsoDate } from '../../domain/dates';
 import { duesStanding, periodAddsTime, type DuesStanding } from '../../domain/dues';
 import { sumCents } from '../../domain/money';
+import { DEFAULT_SOCIETY_SETTINGS } from '../../domain/society-settings';
 import { DuesPeriod, Entry, Membership, Payment, Show, Society, sequelize } from '../db';
 import type { PaymentPurpose, PaymentStatus } from '../db/models/payment';
 import { stripe } from '../payments/stripe';
-
-/** Today's calendar date on the server. */
-export function todayIso(): IsoDate {
-	return formatIsoDate(new Date());
-}
 
 /** A payment could not be started; the message is meant for the member. */
 export class PaymentStartError extends Error {
@@ -82,7 +78,7 @@ export async function startDuesCheckout(
 	user: { id: string; email: string },
 	input: { societyId: string; periodId: string },
 	urls: { origin: string },
-	today: IsoDate = todayIso()
+	today?: IsoDate
 ): Promise<{ url: string; paymentId: string }> {
 	const [membership, period, society] = await Promise.all([
 		Membership.findOne({ where: { societyId: input.societyId, userId: user.id } }),
@@ -91,6 +87,7 @@ export async function startDuesCheckout(
 	]);
 	if (!membership || !society) throw new PaymentStartError('You are not a member of that society.');
 	if (!period) throw new PaymentStartError('Choose one of the dues periods listed.', 'periodId');
+	today ??= todayIn(society.timeZone);
 	if (
 		compareIsoDates(period.endsOn, today) < 0 ||
 		!periodAddsTime(membership.duesPaidThrough, period.endsOn)
@@ -184,10 +181,13 @@ export interface MembershipView {
 	periods: { id: string; label: string; amountCents: number; startsOn: string; endsOn: string }[];
 }
 
-/** The member's standing in each society, with the dues periods they can still pay. */
+/**
+ * The member's standing in each society, with the dues periods they can still pay; each
+ * society's "today" is read in its own time zone.
+ */
 export async function membershipOverview(
 	userId: string,
-	today: IsoDate = todayIso()
+	now: Date = new Date()
 ): Promise<MembershipView[]> {
 	const memberships = await Membership.findAll({
 		where: { userId },
@@ -195,6 +195,12 @@ export async function membershipOverview(
 	});
 	const societyIds = memberships.map((m) => m.societyId);
 	if (societyIds.length === 0) return [];
+	const todayOf = new Map(
+		memberships.map((m) => [m.societyId, todayIn((m.get('society') as Society).timeZone, now)])
+	);
+	// The earliest of the societies' days, so no society's rows are left out; each is then
+	// compared with its own day below.
+	const today = [...todayOf.values()].sort(compareIsoDates)[0];
 	const [periods, shows] = await Promise.all([
 		DuesPeriod.findAll({
 			where: { societyId: societyIds, endsOn: { [Op.gte]: today } },
@@ -213,7 +219,11 @@ export async function membershipOverview(
 		.filter((m) => m.roles.includes('member'))
 		.map((m) => {
 			const society = m.get('society') as Society;
-			const next = shows.find((s) => s.societyId === m.societyId) ?? null;
+			const today = todayOf.get(m.societyId)!;
+			const next =
+				shows.find(
+					(s) => s.societyId === m.societyId && compareIsoDates(s.judgingDay, today) >= 0
+				) ?? null;
 			return {
 				societyId: m.societyId,
 				societyName: society.name,
@@ -228,7 +238,12 @@ export async function membershipOverview(
 						}
 					: null,
 				periods: periods
-					.filter((p) => p.societyId === m.societyId && periodAddsTime(m.duesPaidThrough, p.endsOn))
+					.filter(
+						(p) =>
+							p.societyId === m.societyId &&
+							compareIsoDates(p.endsOn, today) >= 0 &&
+							periodAddsTime(m.duesPaidThrough, p.endsOn)
+					)
 					.map((p) => ({
 						id: p.id,
 						label: p.label,
@@ -252,12 +267,14 @@ export interface PaymentRow {
 	currency: string;
 	createdAt: string;
 	paidAt: string | null;
+	/** The calendar day it was paid (or started) in the society's time zone. */
+	day: IsoDate;
 	payerName?: string | null;
 	payerEmail?: string;
 }
 
-/** A payment as the member and admin pages list it. */
-export function toPaymentRow(p: Payment): PaymentRow {
+/** A payment as the member and admin pages list it, dated in its society's time zone. */
+export function toPaymentRow(p: Payment, timeZone: string): PaymentRow {
 	return {
 		id: p.id,
 		purpose: p.purpose,
@@ -267,8 +284,21 @@ export function toPaymentRow(p: Payment): PaymentRow {
 		refundedCents: p.refundedCents,
 		currency: p.currency,
 		createdAt: p.createdAt.toISOString(),
-		paidAt: p.paidAt ? p.paidAt.toISOString() : null
+		paidAt: p.paidAt ? p.paidAt.toISOString() : null,
+		day: todayIn(timeZone, p.paidAt ?? p.createdAt)
 	};
+}
+
+/** The time zone of each of the given societies. */
+export async function timeZonesOf(societyIds: string[]): Promise<Map<string, string>> {
+	const unique = [...new Set(societyIds)];
+	if (unique.length === 0) return new Map();
+	const rows = await Society.findAll({ where: { id: unique }, attributes: ['id', 'timeZone'] });
+	return new Map(rows.map((s) => [s.id, s.timeZone]));
+}
+
+function zoneOf(zones: Map<string, string>, societyId: string): string {
+	return zones.get(societyId) ?? DEFAULT_SOCIETY_SETTINGS.timeZone;
 }
 
 /** A member's payments, newest first (abandoned checkouts older than a day are left out). */
@@ -285,7 +315,8 @@ export async function paymentsOfMember(userId: string): Promise<PaymentRow[]> {
 		order: [['createdAt', 'DESC']],
 		limit: 100
 	});
-	return rows.map(toPaymentRow);
+	const zones = await timeZonesOf(rows.map((p) => p.societyId));
+	return rows.map((p) => toPaymentRow(p, zoneOf(zones, p.societyId)));
 }
 
 /** Entry fees a member owes or has paid, grouped by show. */
@@ -359,5 +390,6 @@ export async function paymentForSession(
 	sessionId: string
 ): Promise<PaymentRow | null> {
 	const p = await Payment.findOne({ where: { userId, checkoutSessionId: sessionId } });
-	return p ? toPaymentRow(p) : null;
+	if (!p) return null;
+	return toPaymentRow(p, zoneOf(await timeZonesOf([p.societyId]), p.societyId));
 }

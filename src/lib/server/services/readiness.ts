@@ -12,6 +12,7 @@ import {
 } from '$lib/domain/readiness';
 import { Division, Membership, Show, ShowClass, Society, sequelize } from '../db';
 import { plantName } from './plants';
+import type { LengthUnit } from '$lib/domain/units';
 
 /** A class of the schedule, as the readiness page names it. */
 export interface ClassLabel {
@@ -57,8 +58,13 @@ export function classRulesOf(c: ShowClass): ClassRules {
 }
 
 /** A show's dates and limits as the eligibility and readiness modules read them. */
-export function showContextOf(show: Show, today: IsoDate): ReadinessShow {
+export function showContextOf(
+	show: Show,
+	today: IsoDate,
+	lengthUnit: LengthUnit = 'in'
+): ReadinessShow {
 	return {
+		lengthUnit,
 		showDate: show.judgingDay,
 		entryDay: show.entryDay,
 		today,
@@ -79,10 +85,11 @@ export async function loadShowForReadiness(
 ): Promise<ShowForReadiness | null> {
 	const show = await Show.findOne({
 		where: { id: showId, schedulePublishedAt: { [Op.ne]: null } },
-		include: [{ model: Society, as: 'society', attributes: ['name'] }],
+		include: [{ model: Society, as: 'society', attributes: ['name', 'lengthUnit'] }],
 		transaction
 	});
 	if (!show) return null;
+	const society = show.get('society') as Society;
 	const classes = await ShowClass.findAll({
 		where: { showId },
 		include: [
@@ -98,8 +105,8 @@ export async function loadShowForReadiness(
 		id: show.id,
 		name: show.name,
 		societyId: show.societyId,
-		societyName: (show.get('society') as Society).name,
-		context: showContextOf(show, today),
+		societyName: society.name,
+		context: showContextOf(show, today, society.lengthUnit),
 		classes: classes.map((c) => ({ id: c.id, code: c.code, name: c.name, rules: classRulesOf(c) }))
 	};
 }
@@ -111,7 +118,9 @@ export async function loadShowForReadiness(
 export async function listUpcomingShows(
 	societyIds: string[],
 	today: IsoDate
-): Promise<{ id: string; name: string; entriesClose: string; judgingDay: string }[]> {
+): Promise<
+	{ id: string; societyId: string; name: string; entriesClose: string; judgingDay: string }[]
+> {
 	if (societyIds.length === 0) return [];
 	const shows = await Show.findAll({
 		where: {
@@ -123,6 +132,7 @@ export async function listUpcomingShows(
 	});
 	return shows.map((s) => ({
 		id: s.id,
+		societyId: s.societyId,
 		name: s.name,
 		entriesClose: s.entriesClose,
 		judgingDay: s.judgingDay

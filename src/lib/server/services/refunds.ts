@@ -3,7 +3,7 @@ import type { IsoDate } from '../../domain/dates';
 import { refundAllowed, type EntryFeeRefund } from '../../domain/dues';
 import { Entry, Payment, Refund, Show, sequelize } from '../db';
 import { stripe } from '../payments/stripe';
-import { todayIso } from './payments';
+import { societyToday } from './society-today';
 
 /** What happened to the fee of a withdrawn entry. */
 export type WithdrawnFeeOutcome = 'none' | 'cancelled' | 'refund_requested' | 'kept';
@@ -29,7 +29,7 @@ export async function settleFeeOfWithdrawnEntry(
 	const show = await Show.findByPk(entry.showId, { transaction });
 	const payment = await Payment.findByPk(entry.feePaymentId, { transaction });
 	if (!show || !payment) return 'none';
-	const today = options.today ?? todayIso();
+	const today = options.today ?? (await societyToday(show.societyId, { transaction }));
 	if (!refundAllowed(show.entryFeeRefund as EntryFeeRefund, show, today)) return 'kept';
 	await Refund.create(
 		{ paymentId: payment.id, entryId: entry.id, amountCents: payment.unitAmountCents },

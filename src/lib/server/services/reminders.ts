@@ -1,6 +1,12 @@
 import { QueryTypes, type Transaction } from 'sequelize';
 import { GROWING_CAUTION_LINE } from '$lib/cautions';
-import { addCalendarDays, formatDateLong, type IsoDate } from '$lib/domain/dates';
+import {
+	addCalendarDays,
+	compareIsoDates,
+	formatDateLong,
+	isOnOrBetween,
+	type IsoDate
+} from '$lib/domain/dates';
 import { sequelize } from '../db';
 import { escapeHtml } from '../mail/escape';
 import { queueMail, type QueuedMail } from '../mail/outbox';
@@ -134,20 +140,28 @@ export async function queueEntryReminders(
 
 /**
  * The daily check: queues reminders for every published show whose entries are open and close
- * within REMINDER_DAYS_BEFORE_CLOSE days. Safe to run often (dedupe keys).
+ * within REMINDER_DAYS_BEFORE_CLOSE days, "today" being read in each society's time zone by
+ * `todayOf` (e.g. `(zone) => todayIn(zone)`). Safe to run often (dedupe keys).
  */
-export async function queueDueReminders(today: IsoDate): Promise<number> {
-	const shows = await sequelize.query<{ id: string }>(
-		`SELECT id FROM shows
-		  WHERE schedule_published_at IS NOT NULL AND entries_open <= $1
-		    AND entries_close BETWEEN $1 AND $2`,
-		{
-			bind: [today, addCalendarDays(today, REMINDER_DAYS_BEFORE_CLOSE)],
-			type: QueryTypes.SELECT
-		}
+export async function queueDueReminders(todayOf: (timeZone: string) => IsoDate): Promise<number> {
+	const shows = await sequelize.query<{
+		id: string;
+		time_zone: string;
+		entries_open: string;
+		entries_close: string;
+	}>(
+		`SELECT s.id, so.time_zone, s.entries_open::text, s.entries_close::text
+		   FROM shows s JOIN societies so ON so.id = s.society_id
+		  WHERE s.schedule_published_at IS NOT NULL`,
+		{ type: QueryTypes.SELECT }
 	);
 	let queued = 0;
 	for (const show of shows) {
+		const today = todayOf(show.time_zone);
+		const due =
+			compareIsoDates(show.entries_open, today) <= 0 &&
+			isOnOrBetween(show.entries_close, today, addCalendarDays(today, REMINDER_DAYS_BEFORE_CLOSE));
+		if (!due) continue;
 		queued += await sequelize.transaction((transaction) =>
 			queueEntryReminders(show.id, { transaction, today })
 		);
@@ -160,12 +174,12 @@ export async function queueDueReminders(today: IsoDate): Promise<number> {
  * process; CB_REMINDERS=off turns it off. Returns a function that stops it.
  */
 export function startReminderSchedule(
-	today: () => IsoDate,
+	todayOf: (timeZone: string) => IsoDate,
 	intervalMs = Number(process.env.CB_REMINDER_INTERVAL_MS ?? 60 * 60 * 1000)
 ): () => void {
 	const run = async () => {
 		try {
-			await queueDueReminders(today());
+			await queueDueReminders(todayOf);
 		} catch (error) {
 			console.error('entry reminders:', error instanceof Error ? error.message : error);
 		}

@@ -1,4 +1,5 @@
 import { Op, QueryTypes, fn, col } from 'sequelize';
+import { todayIn } from '$lib/domain/dates';
 import type { ShowSummary } from '$lib/types';
 import { Entry, Show, Society } from '../db';
 
@@ -89,20 +90,23 @@ export async function listEntriesOfExhibitor(userId: string): Promise<
 	}));
 }
 
-/** Published shows of the given societies that still take entries, soonest first. */
+/** Published shows of the given societies that still take entries (on each society's own day), soonest first. */
 export async function listShowsTakingEntries(
 	societyIds: string[],
-	today: string
+	now: Date = new Date()
 ): Promise<ShowSummary[]> {
 	if (societyIds.length === 0) return [];
 	const shows = await Show.findAll({
 		where: {
 			societyId: societyIds,
 			schedulePublishedAt: { [Op.ne]: null },
-			entriesClose: { [Op.gte]: today }
+			// The earliest date anywhere (UTC-12); each society's own day is checked below.
+			entriesClose: { [Op.gte]: todayIn('Etc/GMT+12', now) }
 		},
-		include: [{ model: Society, as: 'society', attributes: ['name'] }],
+		include: [{ model: Society, as: 'society', attributes: ['name', 'timeZone'] }],
 		order: [['judgingDay', 'ASC']]
 	});
-	return shows.map((s) => toSummary(s));
+	return shows
+		.filter((s) => s.entriesClose >= todayIn((s.get('society') as Society).timeZone, now))
+		.map((s) => toSummary(s));
 }

@@ -1,8 +1,10 @@
 import { memberAndId } from '$lib/server/plant-route';
 import { listPlants } from '$lib/server/services/plants';
+import { loadMemberSettings } from '$lib/server/services/society-today';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	const { user } = memberAndId(event);
-	return { plants: await listPlants(user.id) };
+	const [plants, settings] = await Promise.all([listPlants(user.id), loadMemberSettings(user)]);
+	return { plants, lengthUnit: settings.lengthUnit };
 };

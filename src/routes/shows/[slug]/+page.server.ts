@@ -1,12 +1,13 @@
 import { hasRole } from '$lib/server/policies';
 import { loadPublicSchedule } from '$lib/server/services/public-schedule';
-import { entriesStillOpen, todayIso } from '$lib/server/services/entries';
+import { todayIn } from '$lib/domain/dates';
+import { entriesStillOpen } from '$lib/server/services/entries';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ params, locals }) => {
-	const { show, divisions } = await loadPublicSchedule(params.slug, locals.user);
+	const { show, divisions, settings } = await loadPublicSchedule(params.slug, locals.user);
 	const { awardRules, ...rest } = show;
-	const today = todayIso();
+	const today = todayIn(settings.timeZone);
 	return {
 		show: {
 			...rest,
@@ -17,6 +18,8 @@ export const load: PageServerLoad = async ({ params, locals }) => {
 			}
 		},
 		divisions,
+		lengthUnit: settings.lengthUnit,
+		currency: settings.currency,
 		entriesOpenNow:
 			today >= show.entriesOpen && entriesStillOpen({ entriesClose: show.entriesClose }, today),
 		canEnter: hasRole(locals.user, ['member'])

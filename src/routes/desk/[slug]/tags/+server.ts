@@ -3,6 +3,7 @@ import { requireShowRole } from '$lib/server/policies/show';
 import { pdfResponse, renderPdf } from '$lib/server/pdf/render';
 import { entryTagsDocument } from '$lib/server/pdf/tags';
 import { listTagEntries } from '$lib/server/services/desk';
+import { loadSocietySettings } from '$lib/server/services/society-settings';
 import type { RequestHandler } from './$types';
 
 /** Entry tags as a PDF: ?numbers=3,17 for some entries, or every active entry of the show. */
@@ -23,7 +24,12 @@ export const GET: RequestHandler = async (event) => {
 		}
 		numbers = parts.map(Number);
 	}
-	const entries = await listTagEntries(show.id, numbers);
-	const pdf = await renderPdf(await entryTagsDocument(show, entries, event.url.origin));
+	const [entries, settings] = await Promise.all([
+		listTagEntries(show.id, numbers),
+		loadSocietySettings(show.societyId)
+	]);
+	const pdf = await renderPdf(
+		await entryTagsDocument(show, entries, event.url.origin, settings.paperSize)
+	);
 	return pdfResponse(pdf, `tags-${show.slug}.pdf`);
 };

@@ -1,14 +1,8 @@
 import { error, fail, type RequestEvent } from '@sveltejs/kit';
 import type { Transaction } from 'sequelize';
 import { z } from 'zod';
-import { addCalendarDays, compareIsoDates, isIsoDate } from '$lib/domain/dates';
-import {
-	lengthField,
-	photoSchema,
-	plantEventSchema,
-	potSuckerSchema,
-	todayIso
-} from '$lib/schemas/plants';
+import { addCalendarDays, compareIsoDates, isIsoDate, todayIn } from '$lib/domain/dates';
+import { lengthField, photoSchema, plantEventSchema, potSuckerSchema } from '$lib/schemas/plants';
 import { requireConfirmation } from '$lib/server/confirm';
 import { sequelize } from '$lib/server/db';
 import { fieldErrors, memberAndId } from '$lib/server/plant-route';
@@ -21,14 +15,15 @@ import {
 	potUpSucker,
 	setPlantGone
 } from '$lib/server/services/plants';
+import { loadMemberSettings } from '$lib/server/services/society-today';
 import { readOnePhoto } from '$lib/server/uploads';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	const { user, id } = memberAndId(event, event.params.plantId);
-	const plant = await getPlant(user.id, id);
+	const [plant, settings] = await Promise.all([getPlant(user.id, id), loadMemberSettings(user)]);
 	if (!plant) error(404, 'This plant does not exist.');
-	return { plant, today: todayIso() };
+	return { plant, today: todayIn(settings.timeZone), lengthUnit: settings.lengthUnit };
 };
 
 type Write = (ownerId: string, plantId: string, transaction: Transaction) => Promise<string>;
@@ -134,7 +129,7 @@ export const actions: Actions = {
 			goneOn !== null &&
 			isIsoDate(goneOn) &&
 			goneOn >= '1900-01-01' &&
-			compareIsoDates(goneOn, addCalendarDays(todayIso(), 1)) <= 0;
+			compareIsoDates(goneOn, addCalendarDays(todayIn('UTC'), 1)) <= 0;
 		if (values.length !== 1 || (goneOn !== null && !realDate)) {
 			return fail(400, { action: 'gone', message: 'Give the date as a real date.' });
 		}

@@ -1,7 +1,7 @@
-import { addCalendarDays, compareIsoDates } from '$lib/domain/dates';
-import { todayIso } from '$lib/schemas/plants';
+import { addCalendarDays, compareIsoDates, todayIn } from '$lib/domain/dates';
 import { memberAndId } from '$lib/server/plant-route';
 import { listPlants, plantName } from '$lib/server/services/plants';
+import { loadMemberSettings } from '$lib/server/services/society-today';
 import type { PageServerLoad } from './$types';
 
 /** Plants got or potted this many days ago or later are ticked for labels. */
@@ -10,8 +10,9 @@ const NEW_DAYS = 30;
 export const load: PageServerLoad = async (event) => {
 	const { user } = memberAndId(event);
 	const asked = new Set(event.url.searchParams.getAll('plant'));
-	const since = addCalendarDays(todayIso(), -NEW_DAYS);
-	const plants = (await listPlants(user.id)).filter((p) => !p.goneOn);
+	const [all, settings] = await Promise.all([listPlants(user.id), loadMemberSettings(user)]);
+	const since = addCalendarDays(todayIn(settings.timeZone), -NEW_DAYS);
+	const plants = all.filter((p) => !p.goneOn);
 	return {
 		newDays: NEW_DAYS,
 		plants: plants

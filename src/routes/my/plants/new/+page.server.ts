@@ -1,8 +1,9 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { todayIso } from '$lib/schemas/plants';
+import { todayIn } from '$lib/domain/dates';
 import { sequelize } from '$lib/server/db';
 import { readPlantForm } from '$lib/server/plant-forms';
 import { memberAndId } from '$lib/server/plant-route';
+import { loadMemberSettings } from '$lib/server/services/society-today';
 import {
 	PlantInputError,
 	createPlant,
@@ -14,14 +15,16 @@ import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	const { user, societyIds } = memberAndId(event);
-	const [varieties, plants] = await Promise.all([
+	const [varieties, plants, settings] = await Promise.all([
 		listVarietyChoices(societyIds),
-		listPlants(user.id)
+		listPlants(user.id),
+		loadMemberSettings(user)
 	]);
 	return {
 		varieties,
 		parents: plants.map((p) => ({ value: p.id, label: plantName(p.varietyName, p.label) })),
-		today: todayIso()
+		today: todayIn(settings.timeZone),
+		lengthUnit: settings.lengthUnit
 	};
 };
 

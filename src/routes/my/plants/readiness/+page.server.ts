@@ -1,6 +1,6 @@
 import { error, fail } from '@sveltejs/kit';
 import { z } from 'zod';
-import { todayIso } from '$lib/schemas/plants';
+import { todayIn } from '$lib/domain/dates';
 import { sequelize } from '$lib/server/db';
 import { memberAndId } from '$lib/server/plant-route';
 import { PlantEntryRefused, createEntryFromPlant } from '$lib/server/services/plant-entries';
@@ -9,19 +9,21 @@ import {
 	listUpcomingShows,
 	loadShowForReadiness
 } from '$lib/server/services/readiness';
+import { loadMemberSettings, societyToday } from '$lib/server/services/society-today';
 import type { Actions, PageServerLoad } from './$types';
 
 const ORDER = { ready: 0, needs_work: 1, cannot_enter: 2, no_class: 3 } as const;
 
 export const load: PageServerLoad = async (event) => {
 	const { user, societyIds } = memberAndId(event);
-	const today = todayIso();
-	const shows = await listUpcomingShows(societyIds, today);
+	const settings = await loadMemberSettings(user);
+	const shows = await listUpcomingShows(societyIds, todayIn(settings.timeZone));
 	const asked = event.url.searchParams.get('show');
 	const chosen = asked ? shows.find((s) => s.id === asked) : shows[0];
 	if (asked && !chosen) error(404, 'This show is not one of your upcoming shows.');
 	if (!chosen) return { shows, show: null, classes: [], plants: [] };
-	const show = await loadShowForReadiness(chosen.id, today);
+	// The show's own society decides its "today" (entry window, possession period).
+	const show = await loadShowForReadiness(chosen.id, await societyToday(chosen.societyId));
 	if (!show) error(404, 'This show is not one of your upcoming shows.');
 	const plants = (await assessCollections(show, [user.id])).get(user.id) ?? [];
 	plants.sort(
@@ -45,8 +47,8 @@ export const actions: Actions = {
 		const form = await event.request.formData();
 		const parsed = enterSchema.safeParse(Object.fromEntries(form));
 		if (!parsed.success) return fail(400, { message: 'Choose a plant and a class to enter.' });
-		const today = todayIso();
-		const upcoming = await listUpcomingShows(societyIds, today);
+		const settings = await loadMemberSettings(user);
+		const upcoming = await listUpcomingShows(societyIds, todayIn(settings.timeZone));
 		if (!upcoming.some((s) => s.id === parsed.data.showId)) {
 			return fail(400, { message: 'This show is not one of your upcoming shows.' });
 		}

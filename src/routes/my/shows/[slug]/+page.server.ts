@@ -11,20 +11,20 @@ import {
 	enterPlant,
 	entriesStillOpen,
 	listMyEntriesInShow,
-	todayIso,
 	withdrawEntry
 } from '$lib/server/services/entries';
 import { sendRequestedRefunds } from '$lib/server/services/refunds';
 import { loadSchedule } from '$lib/server/services/schedule';
+import { societyToday } from '$lib/server/services/society-today';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	const { show, user } = await requireShowRole(event, event.params.slug, ['member']);
-	const [divisions, entries] = await Promise.all([
+	const [divisions, entries, today] = await Promise.all([
 		loadSchedule(show.id),
-		listMyEntriesInShow(show.id, user.id)
+		listMyEntriesInShow(show.id, user.id),
+		societyToday(show.societyId)
 	]);
-	const today = todayIso();
 	return {
 		show: {
 			slug: show.slug,

@@ -3,9 +3,9 @@ import { scheduleDocument } from '$lib/server/pdf/schedule';
 import { loadPublicSchedule } from '$lib/server/services/public-schedule';
 import type { RequestHandler } from './$types';
 
-/** The schedule as a PDF, made from the same data as the page. */
+/** The schedule as a PDF, made from the same data as the page, on the society's paper. */
 export const GET: RequestHandler = async ({ params, locals }) => {
-	const { show, divisions } = await loadPublicSchedule(params.slug, locals.user);
-	const pdf = await renderPdf(scheduleDocument(show, divisions));
+	const { show, divisions, settings } = await loadPublicSchedule(params.slug, locals.user);
+	const pdf = await renderPdf(scheduleDocument(show, divisions, settings));
 	return pdfResponse(pdf, `schedule-${show.slug}.pdf`);
 };

@@ -10,11 +10,16 @@ import {
 } from '$lib/server/services/results';
 import { publishResultsAndTell } from '$lib/server/services/show-results';
 import { requireShowRole } from '$lib/server/services/show-access';
+import { loadSocietySettings } from '$lib/server/services/society-settings';
+import { formatDateTime } from '$lib/format';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	const { show } = await requireShowRole(event, event.params.slug, ['chair']);
-	const judging = await loadShowJudging(show.id);
+	const [judging, settings] = await Promise.all([
+		loadShowJudging(show.id),
+		loadSocietySettings(show.societyId)
+	]);
 	const waiting = judging.entries.filter((e) => e.state === 'waiting' || e.state === 'in_progress');
 	const lines = judging.show.published
 		? await loadPublishedAwards(show.id)
@@ -24,7 +29,9 @@ export const load: PageServerLoad = async (event) => {
 			name: show.name,
 			slug: show.slug,
 			published: judging.show.published,
-			publishedAt: show.resultsPublishedAt?.toISOString() ?? null,
+			publishedAt: show.resultsPublishedAt
+				? formatDateTime(show.resultsPublishedAt, settings.timeZone)
+				: null,
 			system: judging.rules.system
 		},
 		waiting: waiting.length,

@@ -14,6 +14,7 @@ import {
 	saveClass,
 	saveDivision
 } from '$lib/server/services/schedule';
+import { loadSocietySettings } from '$lib/server/services/society-settings';
 import type { Actions, PageServerLoad } from './$types';
 
 const CLASS_FIELDS = [
@@ -35,11 +36,17 @@ const optionalId = z.uuid().nullable().catch(null);
 
 export const load: PageServerLoad = async (event) => {
 	const { show } = await requireShowRole(event, event.params.slug, ['chair']);
-	const [divisions, scales] = await Promise.all([
+	const [divisions, scales, settings] = await Promise.all([
 		loadSchedule(show.id),
-		listScales(show.societyId)
+		listScales(show.societyId),
+		loadSocietySettings(show.societyId)
 	]);
-	return { show: { name: show.name, slug: show.slug }, divisions, scales };
+	return {
+		show: { name: show.name, slug: show.slug },
+		divisions,
+		scales,
+		lengthUnit: settings.lengthUnit
+	};
 };
 
 /** Runs a schedule change in one transaction; a ScheduleProblem becomes a 400 with its field. */

@@ -11,6 +11,7 @@ import {
 	moveEntry,
 	scratchEntry
 } from '$lib/server/services/desk';
+import { loadSocietySettings } from '$lib/server/services/society-settings';
 import type { Actions, PageServerLoad } from './$types';
 
 const ROLES = ['clerk', 'chair'] as const;
@@ -36,7 +37,8 @@ async function attempt(change: (t: import('sequelize').Transaction) => Promise<u
 
 export const load: PageServerLoad = async (event) => {
 	const { show, entry } = await deskEntry(event);
-	return { show: { name: show.name, slug: show.slug }, entry };
+	const settings = await loadSocietySettings(show.societyId);
+	return { show: { name: show.name, slug: show.slug }, entry, lengthUnit: settings.lengthUnit };
 };
 
 export const actions: Actions = {

@@ -10,14 +10,17 @@ import {
 	plantName,
 	updatePlant
 } from '$lib/server/services/plants';
+import { lengthInUnit } from '$lib/domain/units';
+import { loadMemberSettings } from '$lib/server/services/society-today';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	const { user, societyIds, id } = memberAndId(event, event.params.plantId);
-	const [plant, varieties, plants] = await Promise.all([
+	const [plant, varieties, plants, settings] = await Promise.all([
 		getPlant(user.id, id),
 		listVarietyChoices(societyIds),
-		listPlants(user.id)
+		listPlants(user.id),
+		loadMemberSettings(user)
 	]);
 	if (!plant) error(404, 'This plant does not exist.');
 	return {
@@ -28,10 +31,13 @@ export const load: PageServerLoad = async (event) => {
 			obtainedHow: plant.obtainedHow,
 			obtainedOn: plant.obtainedOn,
 			parentId: plant.parentId ?? '',
-			potSize: plant.potSizeIn === null ? '' : String(plant.potSizeIn),
+			// The stored size (inches), shown in the member's society's unit.
+			potSize: plant.potSizeIn === null ? '' : lengthInUnit(plant.potSizeIn, settings.lengthUnit),
+			potSizeUnit: settings.lengthUnit,
 			notes: plant.notes ?? ''
 		},
 		varieties,
+		lengthUnit: settings.lengthUnit,
 		parents: plants
 			.filter((p) => p.id !== id)
 			.map((p) => ({ value: p.id, label: plantName(p.varietyName, p.label) }))

@@ -1,9 +1,9 @@
 import { error, json } from '@sveltejs/kit';
 import { z } from 'zod';
-import { todayIso } from '$lib/schemas/plants';
 import { Show, sequelize } from '$lib/server/db';
 import { requireRole } from '$lib/server/policies';
 import { queueEntryReminders } from '$lib/server/services/reminders';
+import { societyToday } from '$lib/server/services/society-today';
 import type { RequestHandler } from './$types';
 
 /**
@@ -16,8 +16,11 @@ export const POST: RequestHandler = async (event) => {
 	const show = await Show.findByPk(event.params.showId, { attributes: ['id', 'societyId'] });
 	if (!show) error(404, 'This show does not exist.');
 	requireRole(event, ['chair'], show.societyId);
-	const queued = await sequelize.transaction((transaction) =>
-		queueEntryReminders(show.id, { transaction, today: todayIso() })
+	const queued = await sequelize.transaction(async (transaction) =>
+		queueEntryReminders(show.id, {
+			transaction,
+			today: await societyToday(show.societyId, { transaction })
+		})
 	);
 	return json({ queued });
 };

@@ -1,0 +1,82 @@
+import { describe, expect, it } from 'vitest';
+import { DEFAULT_AWARD_RULES } from '$lib/domain/awards';
+import type { ScheduleDivision, ShowSettings } from '../services/schedule';
+import { A4_POINTS, LETTER_POINTS, readPdf } from './read-pdf';
+import { renderPdf } from './render';
+import { scheduleDocument } from './schedule';
+
+const show: ShowSettings & { societyName: string; entryFeeCents: number } = {
+	id: 'x',
+	slug: 'spring',
+	name: 'Spring Show',
+	venue: 'Hall',
+	publicHours: '',
+	entriesOpen: '2027-03-01',
+	entriesClose: '2027-03-20',
+	entryDay: '2027-03-26',
+	judgingDay: '2027-03-27',
+	possessionMonths: 3,
+	maxEntriesPerClass: 2,
+	maxEntriesPerVariety: 1,
+	requireGoodStanding: false,
+	awardRules: DEFAULT_AWARD_RULES,
+	schedulePublished: true,
+	societyName: 'Testwood Growers',
+	entryFeeCents: 150
+};
+
+const divisions: ScheduleDivision[] = [
+	{
+		id: 'd',
+		code: 'A',
+		name: 'Horticulture',
+		kind: 'horticulture',
+		classes: [
+			{
+				id: 'c',
+				divisionId: 'd',
+				code: '1',
+				name: 'Miniatures',
+				description: null,
+				habit: 'single_crown',
+				sizeClasses: ['miniature'],
+				blossomTypes: [],
+				blossomColours: [],
+				foliage: 'any',
+				minCrowns: null,
+				maxCrowns: null,
+				collectionSize: null,
+				speciesOnly: false,
+				maxDiameterIn: 6, // miniature up to 6 in (growers' references, DOMAIN.md)
+				scaleId: null,
+				scaleName: null
+			}
+		]
+	}
+];
+
+describe('scheduleDocument', () => {
+	it('prints on A4 with lengths in cm first and the fee in pounds for a British society', async () => {
+		const doc = scheduleDocument(show, divisions, {
+			paperSize: 'a4',
+			lengthUnit: 'cm',
+			currency: 'GBP'
+		});
+		const pdf = await readPdf(await renderPdf(doc));
+		for (const page of pdf.sizes) expect(page).toEqual(A4_POINTS); // ISO 216
+		expect(pdf.text).toContain('up to 15.2 cm (6 in) across'); // 6 in = 15.24 cm: NIST SP 811
+		expect(pdf.text).toContain('Entry fee: £1.50 per entry.');
+	});
+
+	it('prints on Letter with inches first and the fee in dollars by default settings', async () => {
+		const doc = scheduleDocument(show, divisions, {
+			paperSize: 'letter',
+			lengthUnit: 'in',
+			currency: 'USD'
+		});
+		const pdf = await readPdf(await renderPdf(doc));
+		for (const page of pdf.sizes) expect(page).toEqual(LETTER_POINTS); // ANSI/ASME Y14.1
+		expect(pdf.text).toContain('up to 6 in (15.2 cm) across');
+		expect(pdf.text).toContain('Entry fee: $1.50 per entry.');
+	});
+});
