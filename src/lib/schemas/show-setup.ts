@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { isIsoDate } from '$lib/domain/dates';
+import { CONTROL_CHARS_MESSAGE, hasNoControlChars } from './text';
 
 const date = (label: string) =>
 	z
@@ -37,9 +38,19 @@ export const showSlug = z
 
 const common = {
 	societyId: z.uuid('Choose the society.'),
-	name: z.string().trim().min(3, 'Give the show a name.').max(160, 'Keep the name short.'),
+	name: z
+		.string()
+		.trim()
+		.min(3, 'Give the show a name.')
+		.max(160, 'Keep the name short.')
+		.refine(hasNoControlChars, CONTROL_CHARS_MESSAGE),
 	slug: showSlug,
-	venue: z.string().trim().max(240, 'Keep the venue under 240 characters.').default('')
+	venue: z
+		.string()
+		.trim()
+		.max(240, 'Keep the venue under 240 characters.')
+		.refine(hasNoControlChars, CONTROL_CHARS_MESSAGE)
+		.default('')
 };
 
 /** Form: a new, empty show. */
