@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { QueryTypes, type Transaction } from 'sequelize';
+import { QueryTypes, UniqueConstraintError, type Transaction } from 'sequelize';
 import { DEFAULT_AWARD_RULES } from '$lib/domain/awards';
 import { datesForCopy, datesOutOfOrder, type ShowDates } from '$lib/domain/show-stage';
 import type { CopyShowInput, NewShowInput } from '$lib/schemas/show-setup';
@@ -57,14 +57,25 @@ function requireDatesInOrder(dates: ShowDates): void {
 	if (problem) throw new Refusal(problem.message, 400, problem.field);
 }
 
+const slugTaken = (slug: string) =>
+	new Refusal(
+		`The short name ${slug} is already used by another show; choose another.`,
+		400,
+		'slug'
+	);
+
 async function requireSlugFree(slug: string, transaction: Transaction): Promise<void> {
 	const taken = await Show.findOne({ where: { slug }, attributes: ['id'], transaction });
-	if (taken) {
-		throw new Refusal(
-			`The short name ${slug} is already used by another show; choose another.`,
-			400,
-			'slug'
-		);
+	if (taken) throw slugTaken(slug);
+}
+
+/** Runs the insert of a new show; a short name taken meanwhile by another chair is refused too. */
+async function insertingShow<T>(slug: string, insert: () => Promise<T>): Promise<T> {
+	try {
+		return await insert();
+	} catch (err) {
+		if (err instanceof UniqueConstraintError) throw slugTaken(slug);
+		throw err;
 	}
 }
 
@@ -82,26 +93,28 @@ export async function createShow(
 	requireChair(actor, input.societyId);
 	requireDatesInOrder(input);
 	await requireSlugFree(input.slug, transaction);
-	return Show.create(
-		{
-			societyId: input.societyId,
-			name: input.name,
-			slug: input.slug,
-			venue: input.venue || null,
-			publicHours: null,
-			entriesOpen: input.entriesOpen,
-			entriesClose: input.entriesClose,
-			entryDay: input.entryDay,
-			judgingDay: input.judgingDay,
-			panelScoreMethod: input.panelScoreMethod,
-			awardRules: { ...DEFAULT_AWARD_RULES, system: input.awardSystem } as unknown as Record<
-				string,
-				unknown
-			>,
-			schedulePublishedAt: null,
-			resultsPublishedAt: null
-		},
-		{ transaction }
+	return insertingShow(input.slug, () =>
+		Show.create(
+			{
+				societyId: input.societyId,
+				name: input.name,
+				slug: input.slug,
+				venue: input.venue || null,
+				publicHours: null,
+				entriesOpen: input.entriesOpen,
+				entriesClose: input.entriesClose,
+				entryDay: input.entryDay,
+				judgingDay: input.judgingDay,
+				panelScoreMethod: input.panelScoreMethod,
+				awardRules: { ...DEFAULT_AWARD_RULES, system: input.awardSystem } as unknown as Record<
+					string,
+					unknown
+				>,
+				schedulePublishedAt: null,
+				resultsPublishedAt: null
+			},
+			{ transaction }
+		)
 	);
 }
 
@@ -183,23 +196,25 @@ export async function copyShow(
 
 	const showId = randomUUID();
 	const show = await copiedColumns('shows', SHOW_OWN_COLUMNS, 's', transaction);
-	await sequelize.query(
-		`INSERT INTO shows (id, society_id, name, slug, venue, entries_open, entries_close, entry_day,
+	await insertingShow(input.slug, () =>
+		sequelize.query(
+			`INSERT INTO shows (id, society_id, name, slug, venue, entries_open, entries_close, entry_day,
 		                    judging_day${show.empty ? '' : `, ${show.names}`})
 		 SELECT :showId, s.society_id, :name, :slug, COALESCE(:venue, s.venue), :entriesOpen,
 		        :entriesClose, :entryDay, :judgingDay${show.empty ? '' : `, ${show.values}`}
 		   FROM shows s WHERE s.id = :sourceId`,
-		{
-			replacements: {
-				showId,
-				sourceId: source.id,
-				name: input.name,
-				slug: input.slug,
-				venue: input.venue || null,
-				...dates
-			},
-			transaction
-		}
+			{
+				replacements: {
+					showId,
+					sourceId: source.id,
+					name: input.name,
+					slug: input.slug,
+					venue: input.venue || null,
+					...dates
+				},
+				transaction
+			}
+		)
 	);
 
 	const divisions = idMap(await idsOf('divisions', source.id, transaction));
