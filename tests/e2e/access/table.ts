@@ -191,7 +191,9 @@ export const ACCESS_TABLE: AccessRow[] = [
 		route: '/admin/audit',
 		query: 'action=bogus&person=1%20OR%201%3D1&from=2026-13-45&page=-1',
 		answers: pageFor('admin', 'other')
-	}
+	},
+	// i-shows: starting a show, empty or as a copy (issue 13, item 3).
+	{ route: '/chair/shows/new', answers: pageFor('chair', 'other') }
 ];
 
 export { all, apiFor, pageFor };

@@ -363,5 +363,37 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 		fields: [],
 		noInput:
 			'signing out reads no input: whatever is sent, the session ends (checked in sign-in-and-roles.spec.ts)'
+	},
+	// i-shows: starting a show, empty or as a copy (issue 13, item 3).
+	'/chair/shows/new action:create': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: [
+			'societyId',
+			'name',
+			'slug',
+			'venue',
+			'entriesOpen',
+			'entriesClose',
+			'entryDay',
+			'judgingDay',
+			'awardSystem',
+			'panelScoreMethod'
+		]
+	},
+	'/chair/shows/new action:copy': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: [
+			'societyId',
+			'sourceShowId',
+			'name',
+			'slug',
+			'venue',
+			'entriesOpen',
+			'entriesClose',
+			'entryDay',
+			'judgingDay'
+		]
 	}
 };

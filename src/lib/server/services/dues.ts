@@ -3,6 +3,7 @@ import type { EntryFeeRefund } from '../../domain/dues';
 import { recordAudit, type AuditActor } from '../audit';
 import { DuesPeriod, Payment, Show, Society, User } from '../db';
 import { timeZonesOf, toPaymentRow, type PaymentRow } from './payments';
+import { verdictFor } from './show-stage';
 
 /** A dues period as the admin sees it. */
 export interface DuesPeriodRow {
@@ -120,7 +121,8 @@ export async function listShowFees(societyId: string): Promise<ShowFeeRow[]> {
 
 /**
  * Sets a show's entry fee and refund rule. Entries already made keep their fee status; new
- * entries owe the new fee. Returns false when the show is not the society's.
+ * entries owe the new fee. Returns false when the show is not the society's, and the stage's
+ * reason when the show can no longer change (results published).
  */
 export async function setShowFee(
 	input: {
@@ -130,7 +132,14 @@ export async function setShowFee(
 		entryFeeRefund: EntryFeeRefund;
 	},
 	options: { transaction: Transaction }
-): Promise<boolean> {
+): Promise<boolean | string> {
+	const show = await Show.findOne({
+		where: { id: input.showId, societyId: input.societyId },
+		transaction: options.transaction
+	});
+	if (!show) return false;
+	const verdict = await verdictFor(show, 'fees', options);
+	if (!verdict.allowed) return verdict.reason;
 	const [count] = await Show.update(
 		{ entryFeeCents: input.entryFeeCents, entryFeeRefund: input.entryFeeRefund },
 		{ where: { id: input.showId, societyId: input.societyId }, transaction: options.transaction }

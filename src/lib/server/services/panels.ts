@@ -3,6 +3,7 @@ import { findJudgingConflicts, type JudgingConflict } from '$lib/domain/judging'
 import { recordShowAudit, type AuditActor } from '../audit';
 import { Panel, PanelClass, PanelJudge, Show, ShowClass, User, sequelize } from '../db';
 import { Refusal } from './refusal';
+import { verdictFor } from './show-stage';
 
 /** A person as the panels page shows them to the chair. */
 export interface PanelPerson {
@@ -199,10 +200,10 @@ export async function loadPanelsPage(show: Show): Promise<PanelsPage> {
 	};
 }
 
-function requireOpen(show: Show): void {
-	if (show.resultsPublishedAt) {
-		throw new Refusal('Results are published: panels can no longer change.', 423);
-	}
+/** Refuses, with the stage's reason, a panel change once the results are out. */
+async function requireOpen(show: Show, transaction: Transaction): Promise<void> {
+	const verdict = await verdictFor(show, 'panels', { transaction });
+	if (!verdict.allowed) throw new Refusal(verdict.reason, 423);
 }
 
 async function panelOfShow(show: Show, panelId: string, transaction: Transaction): Promise<Panel> {
@@ -244,7 +245,7 @@ export async function createPanel(
 	options: { transaction: Transaction }
 ): Promise<Panel> {
 	const { transaction } = options;
-	requireOpen(show);
+	await requireOpen(show, transaction);
 	const taken = await sequelize.query(
 		'SELECT 1 FROM panels WHERE show_id = :showId AND lower(name) = lower(:name)',
 		{ replacements: { showId: show.id, name }, type: QueryTypes.SELECT, transaction }
@@ -268,7 +269,7 @@ export async function deletePanel(
 	options: { transaction: Transaction; actor: AuditActor }
 ): Promise<void> {
 	const { transaction } = options;
-	requireOpen(show);
+	await requireOpen(show, transaction);
 	const panel = await panelOfShow(show, panelId, transaction);
 	const [judges, classes] = await Promise.all([
 		PanelJudge.count({ where: { panelId: panel.id }, transaction }),
@@ -294,7 +295,7 @@ export async function addJudge(
 	options: { transaction: Transaction }
 ): Promise<void> {
 	const { transaction } = options;
-	requireOpen(show);
+	await requireOpen(show, transaction);
 	const panel = await panelOfShow(show, panelId, transaction);
 	await requirePersonWithRole(show, userId, ['judge'], 'a judge', transaction);
 	const classIds = (await PanelClass.findAll({ where: { panelId: panel.id }, transaction })).map(
@@ -312,7 +313,7 @@ export async function removeJudge(
 	options: { transaction: Transaction; actor: AuditActor }
 ): Promise<void> {
 	const { transaction } = options;
-	requireOpen(show);
+	await requireOpen(show, transaction);
 	const panel = await panelOfShow(show, panelId, transaction);
 	const removed = await PanelJudge.destroy({ where: { panelId: panel.id, userId }, transaction });
 	if (removed === 0) throw new Refusal('That judge is not on this panel.', 404, 'userId');
@@ -339,7 +340,7 @@ export async function setClerk(
 	options: { transaction: Transaction; actor: AuditActor }
 ): Promise<void> {
 	const { transaction } = options;
-	requireOpen(show);
+	await requireOpen(show, transaction);
 	const panel = await panelOfShow(show, panelId, transaction);
 	if (userId) {
 		await requirePersonWithRole(show, userId, ['clerk', 'judge'], 'a clerk or judge', transaction);
@@ -379,7 +380,7 @@ export async function assignClass(
 	options: { transaction: Transaction; actor: AuditActor }
 ): Promise<void> {
 	const { transaction } = options;
-	requireOpen(show);
+	await requireOpen(show, transaction);
 	const cls = await ShowClass.findOne({ where: { id: classId, showId: show.id }, transaction });
 	if (!cls) throw new Refusal('That class is not part of this show.', 404, 'classId');
 	const current = await PanelClass.findOne({ where: { classId }, transaction });

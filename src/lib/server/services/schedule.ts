@@ -5,6 +5,7 @@ import type { ClassDescribed } from '$lib/schedule-text';
 import type { ClassInput, DivisionInput, ShowSettingsInput } from '$lib/schemas/show';
 import { recordShowAudit, type AuditActor } from '../audit';
 import { Division, Entry, Scale, Show, ShowClass } from '../db';
+import { verdictFor } from './show-stage';
 
 /** A class of the schedule as pages and PDFs show it. */
 export interface ScheduleClass extends ClassDescribed {
@@ -146,12 +147,23 @@ export class ScheduleProblem extends Error {
 	}
 }
 
+/** Refuses, with the stage's reason, a change the show's stage does not allow. */
+async function requireStage(
+	show: Show,
+	change: 'schedule' | 'publish_schedule' | 'hide_schedule',
+	transaction: Transaction
+): Promise<void> {
+	const verdict = await verdictFor(show, change, { transaction });
+	if (!verdict.allowed) throw new ScheduleProblem(verdict.reason);
+}
+
 /** Saves a show's dates, venue and rules; the award thresholds go into its award rules. */
 export async function updateShowSettings(
 	show: Show,
 	input: ShowSettingsInput,
 	options: { transaction: Transaction }
 ): Promise<void> {
+	await requireStage(show, 'schedule', options.transaction);
 	const current = awardRulesOf(show);
 	const awardRules: AwardRules = {
 		...current,
@@ -196,6 +208,9 @@ export async function setSchedulePublished(
 ): Promise<void> {
 	const { transaction } = options;
 	const wasPublished = show.schedulePublishedAt;
+	if (published !== (wasPublished !== null)) {
+		await requireStage(show, published ? 'publish_schedule' : 'hide_schedule', transaction);
+	}
 	await show.update({ schedulePublishedAt: published ? new Date() : null }, { transaction });
 	if (!published && wasPublished) {
 		await recordShowAudit(
@@ -243,6 +258,9 @@ export async function saveDivision(
 	options: { transaction: Transaction }
 ): Promise<Division> {
 	const { transaction } = options;
+	const show = await Show.findByPk(showId, { transaction });
+	if (!show) throw new ScheduleProblem('That show does not exist.');
+	await requireStage(show, 'schedule', transaction);
 	await assertCodeFree(Division, showId, input.code, divisionId, transaction);
 	if (divisionId) {
 		const division = await Division.findOne({ where: { id: divisionId, showId }, transaction });
@@ -260,6 +278,7 @@ export async function deleteDivision(
 	options: { transaction: Transaction; actor: AuditActor }
 ): Promise<void> {
 	const { transaction } = options;
+	await requireStage(show, 'schedule', transaction);
 	const division = await Division.findOne({
 		where: { id: divisionId, showId: show.id },
 		transaction
@@ -313,6 +332,7 @@ export async function saveClass(
 	options: { transaction: Transaction }
 ): Promise<ShowClass> {
 	const { transaction } = options;
+	await requireStage(show, 'schedule', transaction);
 	const division = await Division.findOne({
 		where: { id: input.divisionId, showId: show.id },
 		transaction
@@ -348,6 +368,7 @@ export async function deleteClass(
 	options: { transaction: Transaction; actor: AuditActor }
 ): Promise<void> {
 	const { transaction } = options;
+	await requireStage(show, 'schedule', transaction);
 	const existing = await ShowClass.findOne({
 		where: { id: classId, showId: show.id },
 		transaction

@@ -107,9 +107,9 @@ export const actions: Actions = {
 		const saved = await sequelize.transaction((transaction) =>
 			dues.setShowFee(r.data, { transaction })
 		);
-		if (!saved) {
+		if (saved !== true) {
 			const errors: Record<string, string[] | undefined> = {
-				entryFeeCents: ['That show is not this society’s.']
+				entryFeeCents: [saved || 'That show is not this society’s.']
 			};
 			return fail(400, { fee: { errors, showId: r.data.showId, saved: null } });
 		}

@@ -35,7 +35,11 @@ const FIELDS = [
 
 export const load: PageServerLoad = async (event) => {
 	const { show } = await requireShowRole(event, event.params.slug, ['chair']);
-	return { show: settingsOf(show) };
+	const started = event.url.searchParams.get('started');
+	return {
+		show: settingsOf(show),
+		started: started === 'create' || started === 'copy' ? started : null
+	};
 };
 
 export const actions: Actions = {
@@ -76,9 +80,14 @@ export const actions: Actions = {
 			const unconfirmed = requireConfirmation(event, form, 'Hide the schedule from the public?');
 			if (unconfirmed) return unconfirmed;
 		}
-		await sequelize.transaction((transaction) =>
-			setSchedulePublished(show, published, { transaction, actor: user })
-		);
+		try {
+			await sequelize.transaction((transaction) =>
+				setSchedulePublished(show, published, { transaction, actor: user })
+			);
+		} catch (e) {
+			if (!(e instanceof ScheduleProblem)) throw e;
+			return fail(400, { message: e.message });
+		}
 		return {
 			saved: published
 				? 'The schedule is public now.'

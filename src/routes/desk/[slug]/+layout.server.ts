@@ -1,0 +1,9 @@
+import { requireShowRole } from '$lib/server/policies/show';
+import { loadStageView } from '$lib/server/services/show-stage';
+import type { LayoutServerLoad } from './$types';
+
+/** The show's stage, shown above every page of the show. */
+export const load: LayoutServerLoad = async (event) => {
+	const { show } = await requireShowRole(event, event.params.slug, ['clerk', 'chair']);
+	return { showStage: await loadStageView(show) };
+};
