@@ -12,6 +12,10 @@ export interface ClassDescribed {
 	collectionSize: number | null;
 	speciesOnly: boolean;
 	maxDiameterIn: number | null;
+	possessionMonths: number | null;
+	maxEntriesPerExhibitor: number | null;
+	maxEntriesPerVariety: number | null;
+	maxPotIn: number | null;
 	scaleName?: string | null;
 }
 
@@ -46,6 +50,22 @@ export function describeClass(c: ClassDescribed): string[] {
 	if (c.collectionSize !== null)
 		parts.push(`collection of ${c.collectionSize} different named varieties`);
 	if (c.maxDiameterIn !== null) parts.push(`up to ${c.maxDiameterIn} in across`);
+	if (c.maxPotIn !== null) parts.push(`largest pot ${c.maxPotIn} in`);
+	if (c.possessionMonths !== null) {
+		parts.push(
+			c.possessionMonths === 0
+				? 'no possession period'
+				: `grown by the exhibitor at least ${c.possessionMonths} month${c.possessionMonths === 1 ? '' : 's'}`
+		);
+	}
+	if (c.maxEntriesPerExhibitor !== null) {
+		parts.push(
+			`at most ${c.maxEntriesPerExhibitor} ${c.maxEntriesPerExhibitor === 1 ? 'entry' : 'entries'} per exhibitor`
+		);
+	}
+	if (c.maxEntriesPerVariety !== null) {
+		parts.push(`at most ${c.maxEntriesPerVariety} of each variety per exhibitor`);
+	}
 	if (c.scaleName) parts.push(`judged on: ${c.scaleName}`);
 	return parts.length ? parts : ['open to any plant'];
 }

@@ -90,6 +90,17 @@ const optionalCount = (label: string, max: number) =>
 			.nullable()
 	);
 
+const optionalWhole = (label: string, min: number, max: number) =>
+	z.preprocess(
+		(v) => (v === '' || v === null || v === undefined ? null : v),
+		z.coerce
+			.number({ error: `Give ${label} as a number.` })
+			.int(`Give ${label} as a whole number.`)
+			.min(min, `${label[0].toUpperCase()}${label.slice(1)} must be at least ${min}.`)
+			.max(max, `${label[0].toUpperCase()}${label.slice(1)} must be at most ${max}.`)
+			.nullable()
+	);
+
 /** Words typed as a comma-separated list: trimmed, lower case, no blanks or repeats. */
 export const wordList = z
 	.string()
@@ -132,6 +143,17 @@ export const classSchema = z
 				.max(60, 'The largest diameter must be at most 60 in.')
 				.nullable()
 		),
+		possessionMonths: optionalWhole('the class’s possession period', 0, 24),
+		maxEntriesPerExhibitor: optionalCount('the entries per exhibitor', 20),
+		maxEntriesPerVariety: optionalCount('the entries per variety', 20),
+		maxPotIn: z.preprocess(
+			(v) => (v === '' || v === null || v === undefined ? null : v),
+			z.coerce
+				.number({ error: 'Give the largest pot as a number of inches.' })
+				.positive('The largest pot must be more than 0.')
+				.max(24, 'The largest pot must be at most 24 in.')
+				.nullable()
+		),
 		scaleId: z.preprocess(
 			(v) => (v === '' ? null : v),
 			z.uuid('Choose a scale of points.').nullable()
@@ -147,3 +169,17 @@ export const classSchema = z
 		}
 	});
 export type ClassInput = z.infer<typeof classSchema>;
+
+/** Form: the schedule's own text: general rules and the show committee, printed in the PDF. */
+export const scheduleTextSchema = z.object({
+	generalRules: z.string().trim().max(8000, 'Keep the general rules under 8,000 characters.'),
+	committee: z.string().trim().max(4000, 'Keep the committee list under 4,000 characters.')
+});
+export type ScheduleTextInput = z.infer<typeof scheduleTextSchema>;
+
+/** Form: move a division or class one place up or down in the schedule. */
+export const moveSchema = z.object({
+	id: z.uuid('Say what to move.'),
+	direction: z.enum(['up', 'down'], 'Move up or down.')
+});
+export type MoveInput = z.infer<typeof moveSchema>;
