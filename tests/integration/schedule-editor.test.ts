@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { QueryTypes } from 'sequelize';
 import { defaultScales } from '../../src/lib/domain/scales';
 import { scaleSchema } from '../../src/lib/schemas/scale';
-import { classSchema, type ClassInput } from '../../src/lib/schemas/show';
+import { classSchema, scheduleTextSchema, type ClassInput } from '../../src/lib/schemas/show';
 import { Scale, Show, ShowClass, sequelize } from '../../src/lib/server/db';
 import { renderPdf } from '../../src/lib/server/pdf/render';
 import { scheduleDocument } from '../../src/lib/server/pdf/schedule';
@@ -466,15 +466,21 @@ describe('scales of points kept by the society', () => {
 
 describe('the schedule PDF', () => {
 	it('prints the general rules, the committee and the largest pot', async () => {
-		await tx((t) =>
-			saveScheduleText(
-				theShow,
-				{
-					generalRules: 'Plants must be clean and free of pests.\n\nNo supports or collars.',
-					committee: `Show chair: Hestia Varnum ${tag}`
-				},
-				{ transaction: t }
-			)
+		const texts = [
+			{
+				part: 'generalRules',
+				text: 'Plants must be clean and free of pests.\n\nNo supports or collars.'
+			},
+			{ part: 'committee', text: `Show chair: Hestia Varnum ${tag}` }
+		];
+		for (const input of texts) {
+			await tx((t) =>
+				saveScheduleText(theShow, scheduleTextSchema.parse(input), { transaction: t })
+			);
+		}
+		const refused = scheduleTextSchema.safeParse({ part: 'committee', text: 'x'.repeat(2001) });
+		expect(refused.error?.issues[0].message).toBe(
+			'Keep the committee list under 2,000 characters.'
 		);
 		await theShow.reload();
 		const pdf = await renderPdf(

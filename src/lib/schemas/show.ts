@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { isIsoDate } from '$lib/domain/dates';
+import { CONTROL_CHARS_MESSAGE, hasNoControlChars } from './text';
 
 const isoDate = (label: string) =>
 	z
@@ -170,11 +171,28 @@ export const classSchema = z
 	});
 export type ClassInput = z.infer<typeof classSchema>;
 
-/** Form: the schedule's own text: general rules and the show committee, printed in the PDF. */
-export const scheduleTextSchema = z.object({
-	generalRules: z.string().trim().max(8000, 'Keep the general rules under 8,000 characters.'),
-	committee: z.string().trim().max(4000, 'Keep the committee list under 4,000 characters.')
-});
+/** The texts of a schedule the chair writes: the general rules and the show committee. */
+export const SCHEDULE_TEXTS = {
+	generalRules: { label: 'general rules', max: 4000 },
+	committee: { label: 'committee list', max: 2000 }
+} as const;
+
+/** Form: one of the schedule's own texts, printed in the PDF; empty clears it. */
+export const scheduleTextSchema = z
+	.object({
+		part: z.enum(['generalRules', 'committee'], 'Say which text of the schedule to save.'),
+		text: z.string().trim().refine(hasNoControlChars, CONTROL_CHARS_MESSAGE)
+	})
+	.superRefine((v, ctx) => {
+		const { label, max } = SCHEDULE_TEXTS[v.part];
+		if (v.text.length > max) {
+			ctx.addIssue({
+				code: 'custom',
+				path: ['text'],
+				message: `Keep the ${label} under ${max.toLocaleString('en-US')} characters.`
+			});
+		}
+	});
 export type ScheduleTextInput = z.infer<typeof scheduleTextSchema>;
 
 /** Form: move a division or class one place up or down in the schedule. */

@@ -191,6 +191,14 @@ export const ACCESS_TABLE: AccessRow[] = [
 		route: '/admin/audit',
 		query: 'action=bogus&person=1%20OR%201%3D1&from=2026-13-45&page=-1',
 		answers: pageFor('admin', 'other')
+	},
+	// i-schedule: the society's scales of points (chair; other is chair of its own society, so it
+	// sees its own society's scales). An admin without the chair role stays outside /chair.
+	{ route: '/chair/scales', answers: pageFor('chair', 'other') },
+	{
+		route: '/chair/scales',
+		query: 'society=cedar-ridge',
+		answers: { ...pageFor('other'), chair: 403 }
 	}
 ];
 

@@ -358,5 +358,27 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 		fields: [],
 		noInput:
 			'signing out reads no input: whatever is sent, the session ends (checked in sign-in-and-roles.spec.ts)'
-	}
+	},
+	// i-schedule: schedule order and text, the society's scales of points.
+	'/chair/shows/[slug]/schedule action:moveDivision': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: ['id', 'direction']
+	},
+	'/chair/shows/[slug]/schedule action:moveClass': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: ['id', 'direction']
+	},
+	'/chair/shows/[slug]/schedule action:saveText': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: ['part', 'text']
+	},
+	'/chair/scales action:save': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: ['societyId', 'id', 'name', 'label', 'maxPoints', 'key']
+	},
+	'/chair/scales action:copy': { as: 'chair', corrupt: 'form', fields: ['societyId', 'id'] }
 };

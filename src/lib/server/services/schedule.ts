@@ -470,16 +470,13 @@ export async function deleteClass(
 	);
 }
 
-/** Saves the schedule's general rules and show committee, printed in the schedule PDF. */
+/** Saves the schedule's general rules or its show committee, printed in the schedule PDF. */
 export async function saveScheduleText(
 	show: Show,
 	input: ScheduleTextInput,
 	options: { transaction: Transaction }
 ): Promise<void> {
-	await show.update(
-		{ generalRules: input.generalRules || null, committee: input.committee || null },
-		{ transaction: options.transaction }
-	);
+	await show.update({ [input.part]: input.text || null }, { transaction: options.transaction });
 }
 
 type Ordered = typeof Division | typeof ShowClass;

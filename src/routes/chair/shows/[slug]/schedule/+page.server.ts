@@ -141,17 +141,25 @@ export const actions: Actions = {
 	saveText: async (event) => {
 		const { show } = await requireShowRole(event, event.params.slug, ['chair']);
 		const form = await event.request.formData();
-		const values = textFields(form, ['generalRules', 'committee']);
+		const values = textFields(form, ['part', 'text']);
 		const parsed = scheduleTextSchema.safeParse(values);
 		if (!parsed.success) {
+			const errors = fieldErrors(parsed.error);
 			return fail(400, {
-				message: 'Check the schedule’s text; it was not saved.',
-				errors: fieldErrors(parsed.error),
-				textValues: values
+				message: errors.part ?? 'Check the text; it was not saved.',
+				errors: { [values.part === 'committee' ? 'committee' : 'generalRules']: errors.text ?? '' },
+				textValues: { [values.part]: values.text }
 			});
 		}
 		const failed = await attempt((t) => saveScheduleText(show, parsed.data, { transaction: t }));
-		return failed ?? { saved: 'The general rules and committee are saved.' };
+		return (
+			failed ?? {
+				saved:
+					parsed.data.part === 'committee'
+						? 'The committee is saved.'
+						: 'The general rules are saved.'
+			}
+		);
 	}
 };
 
