@@ -14,6 +14,10 @@ export interface ClassDescribed {
 	collectionSize: number | null;
 	speciesOnly: boolean;
 	maxDiameterIn: number | null;
+	possessionMonths: number | null;
+	maxEntriesPerExhibitor: number | null;
+	maxEntriesPerVariety: number | null;
+	maxPotIn: number | null;
 	scaleName?: string | null;
 }
 
@@ -52,6 +56,22 @@ export function describeClass(c: ClassDescribed, unit: LengthUnit): string[] {
 		parts.push(`collection of ${c.collectionSize} different named varieties`);
 	if (c.maxDiameterIn !== null)
 		parts.push(`up to ${formatLengthBoth(c.maxDiameterIn, unit)} across`);
+	if (c.maxPotIn !== null) parts.push(`largest pot ${formatLengthBoth(c.maxPotIn, unit)}`);
+	if (c.possessionMonths !== null) {
+		parts.push(
+			c.possessionMonths === 0
+				? 'no possession period'
+				: `grown by the exhibitor at least ${c.possessionMonths} month${c.possessionMonths === 1 ? '' : 's'}`
+		);
+	}
+	if (c.maxEntriesPerExhibitor !== null) {
+		parts.push(
+			`at most ${c.maxEntriesPerExhibitor} ${c.maxEntriesPerExhibitor === 1 ? 'entry' : 'entries'} per exhibitor`
+		);
+	}
+	if (c.maxEntriesPerVariety !== null) {
+		parts.push(`at most ${c.maxEntriesPerVariety} of each variety per exhibitor`);
+	}
 	if (c.scaleName) parts.push(`judged on: ${c.scaleName}`);
 	return parts.length ? parts : ['open to any plant'];
 }

@@ -745,7 +745,11 @@ describe('properties', () => {
 		maxCrowns: fc.option(fc.integer({ min: 1, max: 6 }), { nil: null }),
 		collectionSize: fc.option(fc.integer({ min: 2, max: 5 }), { nil: null }),
 		speciesOnly: fc.boolean(),
-		maxDiameterIn: fc.option(fc.double({ min: 2, max: 20, noNaN: true }), { nil: null })
+		maxDiameterIn: fc.option(fc.double({ min: 2, max: 20, noNaN: true }), { nil: null }),
+		possessionMonths: fc.constant(null),
+		maxEntriesPerExhibitor: fc.constant(null),
+		maxEntriesPerVariety: fc.constant(null),
+		maxPotIn: fc.constant(null)
 	});
 	const plant: fc.Arbitrary<PlantFacts> = fc.record(
 		{
@@ -901,5 +905,98 @@ describe('sizeClassForDiameter and measuredSizeClass', () => {
 			measured: diameter === undefined ? undefined : { diameterIn: diameter }
 		});
 		expect(measuredSizeClass(plant)).toBe(expected);
+	});
+});
+
+describe('per-class overrides of the show rules, and the largest pot', () => {
+	// Possession period 3 months: state council show rules 2018 (DOMAIN.md). Per-class limits and
+	// pot limits are settings a show chair makes (common practice); the numbers are examples.
+	const check = (s: {
+		rules?: Partial<ClassRules>;
+		plant?: Partial<PlantFacts>;
+		exhibitor?: Partial<ExhibitorContext>;
+		phase?: CheckPhase;
+	}) =>
+		checkEligibility({
+			rules: buildRules(s.rules),
+			plant: buildPlant(s.plant),
+			show: buildShow(),
+			exhibitor: buildExhibitor(s.exhibitor),
+			phase: s.phase ?? 'entry'
+		}).failures.map((f) => f.code);
+	const cases: [string, Parameters<typeof check>[0], string[]][] = [
+		// acquired 2025-03-01, show 2025-05-17: 2 months 16 days
+		[
+			'the show asks 3 months: too short',
+			{ plant: { acquiredOn: '2025-03-01' } },
+			['possession_period_not_reached']
+		],
+		[
+			'the class asks 2 months: enough',
+			{ rules: { possessionMonths: 2 }, plant: { acquiredOn: '2025-03-01' } },
+			[]
+		],
+		['the class asks none', { rules: { possessionMonths: 0 }, plant: { acquiredOn: null } }, []],
+		[
+			'the class asks 12 months',
+			{ rules: { possessionMonths: 12 }, plant: { acquiredOn: '2024-06-01' } },
+			['possession_period_not_reached']
+		],
+		[
+			'the show allows 2 per class: third refused',
+			{ exhibitor: { entriesInClass: 2 } },
+			['class_entry_limit_reached']
+		],
+		[
+			'the class allows 3: third taken',
+			{ rules: { maxEntriesPerExhibitor: 3 }, exhibitor: { entriesInClass: 2 } },
+			[]
+		],
+		[
+			'the class allows 1: second refused',
+			{ rules: { maxEntriesPerExhibitor: 1 }, exhibitor: { entriesInClass: 1 } },
+			['class_entry_limit_reached']
+		],
+		[
+			'the show allows 1 per variety: second refused',
+			{ exhibitor: { entriesOfVariety: 1 } },
+			['variety_entry_limit_reached']
+		],
+		[
+			'the class allows 2 per variety',
+			{ rules: { maxEntriesPerVariety: 2 }, exhibitor: { entriesOfVariety: 1 } },
+			[]
+		],
+		[
+			'pot over the class limit at the desk',
+			{ rules: { maxPotIn: 4 }, plant: { measured: { potIn: 4.5 } }, phase: 'desk' },
+			['pot_over_limit']
+		],
+		[
+			'pot at the limit at the desk',
+			{ rules: { maxPotIn: 4 }, plant: { measured: { potIn: 4 } }, phase: 'desk' },
+			[]
+		],
+		[
+			'pot not checked before the desk',
+			{ rules: { maxPotIn: 4 }, plant: { measured: { potIn: 6 } } },
+			[]
+		]
+	];
+	it.each(cases)('%s', (_, setup, codes) => {
+		expect(check(setup)).toEqual(codes);
+	});
+
+	it('says it is the class that asks', () => {
+		const [failure] = checkEligibility({
+			rules: buildRules({ maxEntriesPerExhibitor: 1 }),
+			plant: buildPlant(),
+			show: buildShow(),
+			exhibitor: buildExhibitor({ entriesInClass: 1 }),
+			phase: 'entry'
+		}).failures;
+		expect(failure.message).toBe(
+			'You already have 1 entry in this class, and this class allows 1 per exhibitor.'
+		);
 	});
 });

@@ -51,6 +51,17 @@ export interface ClassRules {
 	speciesOnly: boolean;
 	/** Explicit diameter limit in inches; the plant's own size-class limit applies as well. */
 	maxDiameterIn: number | null;
+	/** This class's possession period in months; null = the show's. */
+	possessionMonths: number | null;
+	/** Entries one exhibitor may have in this class; null = the show's limit. */
+	maxEntriesPerExhibitor: number | null;
+	/** Entries one exhibitor may have of one variety, for an entry in this class; null = the show's. */
+	maxEntriesPerVariety: number | null;
+	/**
+	 * Largest pot, inches across the rim; null = none stated. Checked only at the desk, where a
+	 * pot measurement is given (`measured.potIn`).
+	 */
+	maxPotIn: number | null;
 }
 
 /** A class with no rule of its own: every plant fits it (only the plant's size limit applies). */
@@ -64,7 +75,11 @@ export const OPEN_CLASS_RULES: Readonly<ClassRules> = {
 	maxCrowns: null,
 	collectionSize: null,
 	speciesOnly: false,
-	maxDiameterIn: null
+	maxDiameterIn: null,
+	possessionMonths: null,
+	maxEntriesPerExhibitor: null,
+	maxEntriesPerVariety: null,
+	maxPotIn: null
 };
 
 /** What is known about the plant (or collection) being entered. */
@@ -83,7 +98,7 @@ export interface PlantFacts {
 	 * What the clerks measured at the desk (used in phase 'desk' only).
 	 * For a collection, give the largest diameter and crown count among its plants.
 	 */
-	measured?: { diameterIn?: number; crowns?: number };
+	measured?: { diameterIn?: number; crowns?: number; potIn?: number };
 	/** For a collection entry: the variety of every plant in it, one id per plant. */
 	collectionVarietyIds?: string[];
 }
@@ -129,6 +144,7 @@ export const FAILURE_CODES = [
 	'habit_not_allowed',
 	'size_class_not_allowed',
 	'diameter_over_limit',
+	'pot_over_limit',
 	'too_many_crowns',
 	'too_few_crowns',
 	'blossom_type_not_allowed',
@@ -382,38 +398,44 @@ function collectFailures(
 	}
 	checkCollection(rules, plant, fail);
 
-	// How long the exhibitor has grown it
-	if (show && show.possessionMonths > 0) {
-		const months = count(show.possessionMonths, 'month', 'months');
+	// How long the exhibitor has grown it (the class's own period, else the show's)
+	const possessionMonths = show ? (rules.possessionMonths ?? show.possessionMonths) : 0;
+	if (show && possessionMonths > 0) {
+		const months = count(possessionMonths, 'month', 'months');
+		const asker = rules.possessionMonths === null ? 'this show asks' : 'this class asks';
 		if (plant.acquiredOn === null) {
 			fail(
 				'acquired_date_missing',
-				`Please give the date you got ${name}, because this show asks that you have grown a plant for at least ${months}.`
+				`Please give the date you got ${name}, because ${asker} that you have grown a plant for at least ${months}.`
 			);
-		} else if (!hasPossessionPeriod(plant.acquiredOn, show.showDate, show.possessionMonths)) {
-			const reached = possessionReachedOn(plant.acquiredOn, show.possessionMonths);
+		} else if (!hasPossessionPeriod(plant.acquiredOn, show.showDate, possessionMonths)) {
+			const reached = possessionReachedOn(plant.acquiredOn, possessionMonths);
 			fail(
 				'possession_period_not_reached',
-				`This show asks that you have grown a plant for at least ${months}; you got ${name} on ${formatDateLong(plant.acquiredOn)}, so it qualifies from ${formatDateLong(reached)}, after the show on ${formatDateLong(show.showDate)}.`
+				`${asker[0].toUpperCase()}${asker.slice(1)} that you have grown a plant for at least ${months}; you got ${name} on ${formatDateLong(plant.acquiredOn)}, so it qualifies from ${formatDateLong(reached)}, after the show on ${formatDateLong(show.showDate)}.`
 			);
 		}
 	}
 
-	// The exhibitor's other entries
+	// The exhibitor's other entries (the class's own limits, else the show's)
 	if (show && exhibitor) {
-		if (show.maxEntriesPerClass !== null && exhibitor.entriesInClass >= show.maxEntriesPerClass) {
+		const perClass = rules.maxEntriesPerExhibitor ?? show.maxEntriesPerClass;
+		const perVariety = rules.maxEntriesPerVariety ?? show.maxEntriesPerVariety;
+		if (perClass !== null && exhibitor.entriesInClass >= perClass) {
+			const limit =
+				rules.maxEntriesPerExhibitor === null
+					? `the show allows ${perClass} per exhibitor in a class`
+					: `this class allows ${perClass} per exhibitor`;
 			fail(
 				'class_entry_limit_reached',
-				`You already have ${count(exhibitor.entriesInClass, 'entry', 'entries')} in this class, and the show allows ${show.maxEntriesPerClass} per exhibitor in a class.`
+				`You already have ${count(exhibitor.entriesInClass, 'entry', 'entries')} in this class, and ${limit}.`
 			);
 		}
-		if (
-			show.maxEntriesPerVariety !== null &&
-			exhibitor.entriesOfVariety >= show.maxEntriesPerVariety
-		) {
+		if (perVariety !== null && exhibitor.entriesOfVariety >= perVariety) {
+			const who = rules.maxEntriesPerVariety === null ? 'the show allows' : 'this class allows';
 			fail(
 				'variety_entry_limit_reached',
-				`You already have ${count(exhibitor.entriesOfVariety, 'entry', 'entries')} of ${name} in this show, and the show allows ${show.maxEntriesPerVariety} of each variety per exhibitor.`
+				`You already have ${count(exhibitor.entriesOfVariety, 'entry', 'entries')} of ${name} in this show, and ${who} ${perVariety} of each variety per exhibitor.`
 			);
 		}
 	}
@@ -456,6 +478,17 @@ function checkMeasurements(
 			.filter(({ limit }) => diameter > limit + LENGTH_TOLERANCE_IN)
 			.sort((a, b) => a.limit - b.limit)[0];
 		if (exceeded) fail('diameter_over_limit', exceeded.message);
+	}
+
+	const pot = plant.measured?.potIn;
+	if (pot !== undefined) {
+		assertMeasure('pot size', pot);
+		if (rules.maxPotIn !== null && pot > rules.maxPotIn + LENGTH_TOLERANCE_IN) {
+			fail(
+				'pot_over_limit',
+				`This class takes pots up to ${inches(rules.maxPotIn)} across, and this pot measures ${inches(pot)}.`
+			);
+		}
 	}
 
 	const crowns = plant.measured?.crowns;

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { isIsoDate } from '$lib/domain/dates';
+import { CONTROL_CHARS_MESSAGE, hasNoControlChars } from './text';
 
 const isoDate = (label: string) =>
 	z
@@ -90,6 +91,17 @@ const optionalCount = (label: string, max: number) =>
 			.nullable()
 	);
 
+const optionalWhole = (label: string, min: number, max: number) =>
+	z.preprocess(
+		(v) => (v === '' || v === null || v === undefined ? null : v),
+		z.coerce
+			.number({ error: `Give ${label} as a number.` })
+			.int(`Give ${label} as a whole number.`)
+			.min(min, `${label[0].toUpperCase()}${label.slice(1)} must be at least ${min}.`)
+			.max(max, `${label[0].toUpperCase()}${label.slice(1)} must be at most ${max}.`)
+			.nullable()
+	);
+
 /** Words typed as a comma-separated list: trimmed, lower case, no blanks or repeats. */
 export const wordList = z
 	.string()
@@ -132,6 +144,17 @@ export const classSchema = z
 				.max(60, 'The largest diameter must be at most 60 in.')
 				.nullable()
 		),
+		possessionMonths: optionalWhole('the class’s possession period', 0, 24),
+		maxEntriesPerExhibitor: optionalCount('the entries per exhibitor', 20),
+		maxEntriesPerVariety: optionalCount('the entries per variety', 20),
+		maxPotIn: z.preprocess(
+			(v) => (v === '' || v === null || v === undefined ? null : v),
+			z.coerce
+				.number({ error: 'Give the largest pot as a number of inches.' })
+				.positive('The largest pot must be more than 0.')
+				.max(24, 'The largest pot must be at most 24 in.')
+				.nullable()
+		),
 		scaleId: z.preprocess(
 			(v) => (v === '' ? null : v),
 			z.uuid('Choose a scale of points.').nullable()
@@ -147,3 +170,34 @@ export const classSchema = z
 		}
 	});
 export type ClassInput = z.infer<typeof classSchema>;
+
+/** The texts of a schedule the chair writes: the general rules and the show committee. */
+export const SCHEDULE_TEXTS = {
+	generalRules: { label: 'general rules', max: 4000 },
+	committee: { label: 'committee list', max: 2000 }
+} as const;
+
+/** Form: one of the schedule's own texts, printed in the PDF; empty clears it. */
+export const scheduleTextSchema = z
+	.object({
+		part: z.enum(['generalRules', 'committee'], 'Say which text of the schedule to save.'),
+		text: z.string().trim().refine(hasNoControlChars, CONTROL_CHARS_MESSAGE)
+	})
+	.superRefine((v, ctx) => {
+		const { label, max } = SCHEDULE_TEXTS[v.part];
+		if (v.text.length > max) {
+			ctx.addIssue({
+				code: 'custom',
+				path: ['text'],
+				message: `Keep the ${label} under ${max.toLocaleString('en-US')} characters.`
+			});
+		}
+	});
+export type ScheduleTextInput = z.infer<typeof scheduleTextSchema>;
+
+/** Form: move a division or class one place up or down in the schedule. */
+export const moveSchema = z.object({
+	id: z.uuid('Say what to move.'),
+	direction: z.enum(['up', 'down'], 'Move up or down.')
+});
+export type MoveInput = z.infer<typeof moveSchema>;

@@ -193,7 +193,15 @@ export const ACCESS_TABLE: AccessRow[] = [
 		answers: pageFor('admin', 'other')
 	},
 	// i-shows: starting a show, empty or as a copy (issue 13, item 3).
-	{ route: '/chair/shows/new', answers: pageFor('chair', 'other') }
+	{ route: '/chair/shows/new', answers: pageFor('chair', 'other') },
+	// i-schedule: the society's scales of points (chair; other is chair of its own society, so it
+	// sees its own society's scales). An admin without the chair role stays outside /chair.
+	{ route: '/chair/scales', answers: pageFor('chair', 'other') },
+	{
+		route: '/chair/scales',
+		query: 'society=cedar-ridge',
+		answers: { ...pageFor('other'), chair: 403 }
+	}
 ];
 
 export { all, apiFor, pageFor };

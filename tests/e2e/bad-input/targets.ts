@@ -395,5 +395,27 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 			'entryDay',
 			'judgingDay'
 		]
-	}
+	},
+	// i-schedule: schedule order and text, the society's scales of points.
+	'/chair/shows/[slug]/schedule action:moveDivision': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: ['id', 'direction']
+	},
+	'/chair/shows/[slug]/schedule action:moveClass': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: ['id', 'direction']
+	},
+	'/chair/shows/[slug]/schedule action:saveText': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: ['part', 'text']
+	},
+	'/chair/scales action:save': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: ['societyId', 'id', 'name', 'label', 'maxPoints', 'key']
+	},
+	'/chair/scales action:copy': { as: 'chair', corrupt: 'form', fields: ['societyId', 'id'] }
 };

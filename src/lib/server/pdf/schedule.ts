@@ -4,6 +4,14 @@ import { describeClass, describeShowRules } from '$lib/schedule-text';
 import type { ScheduleDivision, ShowSettings } from '../services/schedule';
 import { paperOf } from './paper';
 
+/** Text typed with blank lines between paragraphs, as PDF paragraphs (line breaks kept). */
+function paragraphs(text: string): Content[] {
+	return text
+		.trim()
+		.split(/\n\s*\n/)
+		.map((p) => ({ text: p.trim(), margin: [0, 0, 0, 4] as [number, number, number, number] }));
+}
+
 /**
  * The printable show schedule, made from the same data as the public schedule page, on the
  * society's paper and with lengths in its unit first and fees in its currency.
@@ -22,6 +30,12 @@ export function scheduleDocument(
 		{ text: 'Rules', style: 'heading' },
 		{ ul: text.rules }
 	];
+	if (show.generalRules.trim()) {
+		content.push({ text: 'General rules', style: 'heading' }, ...paragraphs(show.generalRules));
+	}
+	if (show.committee.trim()) {
+		content.push({ text: 'Show committee', style: 'heading' }, ...paragraphs(show.committee));
+	}
 	for (const division of divisions) {
 		content.push({ text: `Division ${division.code}: ${division.name}`, style: 'heading' });
 		if (!division.classes.length) content.push({ text: 'No classes yet.', style: 'small' });

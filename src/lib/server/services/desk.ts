@@ -12,7 +12,7 @@ import type { CheckInInput } from '$lib/schemas/desk';
 import { recordShowAudit, type AuditActor } from '../audit';
 import { Division, Entry, Show, ShowClass, User, Variety, sequelize } from '../db';
 import { exhibitorContextFor, plantFactsOf, showContextOf, withStandingHint } from './entries';
-import { classRulesOf } from './schedule';
+import { IN_SCHEDULE_ORDER, classRulesOf } from './schedule';
 import { loadSocietySettings } from './society-settings';
 
 /** A line of the desk's search results. */
@@ -169,7 +169,7 @@ export async function loadDeskEntry(show: Show, number: number): Promise<DeskEnt
 	const entry = await Entry.findOne({ where: { showId: show.id, number } });
 	if (!entry) return null;
 	const [classes, variety, exhibitor] = await Promise.all([
-		ShowClass.findAll({ where: { showId: show.id }, order: [['position', 'ASC']] }),
+		ShowClass.findAll({ where: { showId: show.id }, ...IN_SCHEDULE_ORDER }),
 		entry.varietyId ? Variety.findByPk(entry.varietyId) : Promise.resolve(null),
 		User.findByPk(entry.exhibitorId, { attributes: ['name', 'email'] })
 	]);
@@ -264,7 +264,7 @@ export async function moveEntry(
 	const entry = await lockEntry(show, entryId, transaction);
 	if (!entry.varietyId) throw new DeskProblem('Only plant entries can be moved here.');
 	const [classes, variety] = await Promise.all([
-		ShowClass.findAll({ where: { showId: show.id }, order: [['position', 'ASC']], transaction }),
+		ShowClass.findAll({ where: { showId: show.id }, ...IN_SCHEDULE_ORDER, transaction }),
 		Variety.findByPk(entry.varietyId, { transaction })
 	]);
 	const target = classes.find((c) => c.id === classId);

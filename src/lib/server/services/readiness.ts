@@ -1,7 +1,7 @@
 import { duesCover } from './standing';
 import { Op, QueryTypes, type Transaction } from 'sequelize';
 import type { IsoDate } from '$lib/domain/dates';
-import type { ClassRules, ExhibitorContext } from '$lib/domain/eligibility';
+import type { ExhibitorContext } from '$lib/domain/eligibility';
 import {
 	assessReadiness,
 	type LoggedEvent,
@@ -13,6 +13,7 @@ import {
 import { Division, Membership, Show, ShowClass, Society, sequelize } from '../db';
 import { plantName } from './plants';
 import type { LengthUnit } from '$lib/domain/units';
+import { classRulesOf as scheduleClassRules } from './schedule';
 
 /** A class of the schedule, as the readiness page names it. */
 export interface ClassLabel {
@@ -41,21 +42,8 @@ export interface ShowForReadiness {
 	classes: (ReadinessClass & ClassLabel)[];
 }
 
-/** The rules of a class as the eligibility module reads them. */
-export function classRulesOf(c: ShowClass): ClassRules {
-	return {
-		habit: c.habit,
-		sizeClasses: c.sizeClasses as ClassRules['sizeClasses'],
-		blossomTypes: c.blossomTypes,
-		blossomColours: c.blossomColours,
-		foliage: c.foliage,
-		minCrowns: c.minCrowns,
-		maxCrowns: c.maxCrowns,
-		collectionSize: c.collectionSize,
-		speciesOnly: c.speciesOnly,
-		maxDiameterIn: c.maxDiameterIn === null ? null : Number(c.maxDiameterIn)
-	};
-}
+/** The rules of a class as the eligibility module reads them (one reader: schedule.ts). */
+export const classRulesOf = scheduleClassRules;
 
 /** A show's dates and limits as the eligibility and readiness modules read them. */
 export function showContextOf(

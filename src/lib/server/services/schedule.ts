@@ -1,10 +1,12 @@
-import { Op, type Transaction } from 'sequelize';
+import { Op, literal, type FindOptions, type Transaction } from 'sequelize';
 import { awardRulesFrom, validateAwardRules, type AwardRules } from '$lib/domain/awards';
 import type { ClassRules, SizeClass } from '$lib/domain/eligibility';
 import type { ClassDescribed } from '$lib/schedule-text';
 import type { ClassInput, DivisionInput, ShowSettingsInput } from '$lib/schemas/show';
 import { recordShowAudit, type AuditActor } from '../audit';
-import { Division, Entry, Scale, Show, ShowClass } from '../db';
+import { refuseFrozenClassChange, type ClassProgress } from '$lib/domain/class-rules';
+import type { MoveInput, ScheduleTextInput } from '$lib/schemas/show';
+import { Division, Entry, Scale, ScoreSheet, Show, ShowClass, sequelize } from '../db';
 import { verdictFor } from './show-stage';
 
 /** A class of the schedule as pages and PDFs show it. */
@@ -45,6 +47,8 @@ export interface ShowSettings {
 	requireGoodStanding: boolean;
 	awardRules: AwardRules;
 	schedulePublished: boolean;
+	generalRules: string;
+	committee: string;
 }
 
 /** The show's award rules, filled from the defaults where a field is missing (`awardRulesFrom`). */
@@ -69,7 +73,9 @@ export function settingsOf(show: Show): ShowSettings {
 		maxEntriesPerVariety: show.maxEntriesPerVariety,
 		requireGoodStanding: show.requireGoodStanding,
 		awardRules: awardRulesOf(show),
-		schedulePublished: show.schedulePublishedAt !== null
+		schedulePublished: show.schedulePublishedAt !== null,
+		generalRules: show.generalRules ?? '',
+		committee: show.committee ?? ''
 	};
 }
 
@@ -86,7 +92,11 @@ export function classRulesOf(c: Pick<ScheduleClass, keyof ClassRules> | ShowClas
 		maxCrowns: c.maxCrowns,
 		collectionSize: c.collectionSize,
 		speciesOnly: c.speciesOnly,
-		maxDiameterIn: diameter === null || diameter === undefined ? null : Number(diameter)
+		maxDiameterIn: diameter === null || diameter === undefined ? null : Number(diameter),
+		possessionMonths: c.possessionMonths ?? null,
+		maxEntriesPerExhibitor: c.maxEntriesPerExhibitor ?? null,
+		maxEntriesPerVariety: c.maxEntriesPerVariety ?? null,
+		maxPotIn: c.maxPotIn === null || c.maxPotIn === undefined ? null : Number(c.maxPotIn)
 	};
 }
 
@@ -102,6 +112,15 @@ function toScheduleClass(c: ShowClass, scales: Map<string, string>): ScheduleCla
 		scaleName: c.scaleId ? (scales.get(c.scaleId) ?? null) : null
 	};
 }
+
+/** Query options that list a show's classes in schedule order: by division, then class. */
+export const IN_SCHEDULE_ORDER = {
+	include: [{ model: Division, as: 'division', attributes: [] }],
+	order: [
+		[{ model: Division, as: 'division' }, 'position', 'ASC'],
+		['position', 'ASC']
+	]
+} satisfies Pick<FindOptions, 'include' | 'order'>;
 
 /** The schedule of a show: its divisions and their classes in order (three queries). */
 export async function loadSchedule(
@@ -127,12 +146,24 @@ export async function loadSchedule(
 	}));
 }
 
-/** The scales of points a society may use: its own and the shared built-in ones. */
-export async function listScales(societyId: string): Promise<{ id: string; name: string }[]> {
+/**
+ * The scales of points a society may assign: its own and the shared built-in ones, each in its
+ * newest version (a version that a newer one replaces is left out).
+ */
+export async function listScales(
+	societyId: string,
+	options: { transaction?: Transaction } = {}
+): Promise<{ id: string; name: string }[]> {
 	const scales = await Scale.findAll({
-		where: { [Op.or]: [{ societyId }, { societyId: null }] },
+		where: {
+			[Op.or]: [{ societyId }, { societyId: null }],
+			id: {
+				[Op.notIn]: literal('(SELECT replaces_id FROM scales WHERE replaces_id IS NOT NULL)')
+			}
+		},
 		attributes: ['id', 'name'],
-		order: [['name', 'ASC']]
+		order: [['name', 'ASC']],
+		transaction: options.transaction
 	});
 	return scales.map((s) => ({ id: s.id, name: s.name }));
 }
@@ -320,8 +351,70 @@ function classValues(input: ClassInput) {
 		collectionSize: input.collectionSize,
 		speciesOnly: input.speciesOnly,
 		maxDiameterIn: input.maxDiameterIn === null ? null : String(input.maxDiameterIn),
+		possessionMonths: input.possessionMonths,
+		maxEntriesPerExhibitor: input.maxEntriesPerExhibitor,
+		maxEntriesPerVariety: input.maxEntriesPerVariety,
+		maxPotIn: input.maxPotIn === null ? null : String(input.maxPotIn),
 		scaleId: input.scaleId
 	};
+}
+
+/** Counts a class's entries and the scored sheets on them (for the freeze on its rules). */
+export async function classProgress(
+	classId: string,
+	options: { transaction?: Transaction } = {}
+): Promise<ClassProgress> {
+	const [entries, scoredSheets] = await Promise.all([
+		Entry.count({ where: { classId }, transaction: options.transaction }),
+		ScoreSheet.count({
+			where: {
+				entryId: {
+					[Op.in]: literal(`(SELECT id FROM entries WHERE class_id = ${sequelize.escape(classId)})`)
+				}
+			},
+			transaction: options.transaction
+		})
+	]);
+	return { entries, scoredSheets };
+}
+
+function rulesOfInput(input: ClassInput): ClassRules {
+	const { habit, blossomTypes, blossomColours, foliage, minCrowns, maxCrowns } = input;
+	return {
+		habit,
+		sizeClasses: input.sizeClasses,
+		blossomTypes,
+		blossomColours,
+		foliage,
+		minCrowns,
+		maxCrowns,
+		collectionSize: input.collectionSize,
+		speciesOnly: input.speciesOnly,
+		maxDiameterIn: input.maxDiameterIn,
+		possessionMonths: input.possessionMonths,
+		maxEntriesPerExhibitor: input.maxEntriesPerExhibitor,
+		maxEntriesPerVariety: input.maxEntriesPerVariety,
+		maxPotIn: input.maxPotIn
+	};
+}
+
+/** Refuses a change to a class whose rules are frozen (see `refuseFrozenClassChange`). */
+async function assertClassChangeAllowed(
+	existing: ShowClass,
+	input: ClassInput,
+	transaction: Transaction
+): Promise<void> {
+	const progress = await classProgress(existing.id, { transaction });
+	const refusal = refuseFrozenClassChange(
+		{ rules: classRulesOf(existing), divisionId: existing.divisionId, scaleId: existing.scaleId },
+		{
+			rules: rulesOfInput(input),
+			divisionId: input.divisionId,
+			scaleId: input.scaleId
+		},
+		progress
+	);
+	if (refusal) throw new ScheduleProblem(refusal.message, refusal.field);
 }
 
 /** Adds a class, or changes one (when `classId` is given), with its eligibility rules. */
@@ -352,6 +445,7 @@ export async function saveClass(
 			transaction
 		});
 		if (!existing) throw new ScheduleProblem('That class is not part of this show.');
+		await assertClassChangeAllowed(existing, input, transaction);
 		return existing.update({ ...classValues(input), divisionId: division.id }, { transaction });
 	}
 	const position = await nextPosition(ShowClass, show.id, transaction);
@@ -387,4 +481,108 @@ export async function deleteClass(
 		},
 		options
 	);
+}
+
+/** Saves the schedule's general rules or its show committee, printed in the schedule PDF. */
+export async function saveScheduleText(
+	show: Show,
+	input: ScheduleTextInput,
+	options: { transaction: Transaction }
+): Promise<void> {
+	await show.update({ [input.part]: input.text || null }, { transaction: options.transaction });
+}
+
+type Ordered = typeof Division | typeof ShowClass;
+
+/** Sets one row's position (and the instance's, so later steps see it). */
+async function setPosition(
+	model: Ordered,
+	row: Division | ShowClass,
+	position: number,
+	transaction: Transaction
+): Promise<void> {
+	await (model as typeof Division).update({ position }, { where: { id: row.id }, transaction });
+	row.position = position;
+}
+
+/** Swaps the positions of two rows (a division or class and its neighbour). */
+async function swapPositions(
+	model: Ordered,
+	a: Division | ShowClass,
+	b: Division | ShowClass,
+	transaction: Transaction
+): Promise<void> {
+	const [pa, pb] = [a.position, b.position];
+	await setPosition(model, a, pb, transaction);
+	await setPosition(model, b, pa, transaction);
+}
+
+/** Moves a division one place up or down in the schedule. */
+export async function moveDivision(
+	show: Show,
+	input: MoveInput,
+	options: { transaction: Transaction }
+): Promise<void> {
+	const { transaction } = options;
+	const divisions = await Division.findAll({
+		where: { showId: show.id },
+		order: [
+			['position', 'ASC'],
+			['code', 'ASC']
+		],
+		transaction,
+		lock: transaction.LOCK.UPDATE
+	});
+	const at = divisions.findIndex((d) => d.id === input.id);
+	if (at < 0) throw new ScheduleProblem('That division is not part of this show.');
+	const other = divisions[input.direction === 'up' ? at - 1 : at + 1];
+	if (!other) {
+		throw new ScheduleProblem(
+			`This division is already ${input.direction === 'up' ? 'first' : 'last'}.`
+		);
+	}
+	await renumber(Division, divisions, transaction);
+	await swapPositions(Division, divisions[at], other, transaction);
+}
+
+/** Moves a class one place up or down within its division. */
+export async function moveClass(
+	show: Show,
+	input: MoveInput,
+	options: { transaction: Transaction }
+): Promise<void> {
+	const { transaction } = options;
+	const target = await ShowClass.findOne({ where: { id: input.id, showId: show.id }, transaction });
+	if (!target) throw new ScheduleProblem('That class is not part of this show.');
+	const classes = await ShowClass.findAll({
+		where: { showId: show.id, divisionId: target.divisionId },
+		order: [
+			['position', 'ASC'],
+			['code', 'ASC']
+		],
+		transaction,
+		lock: transaction.LOCK.UPDATE
+	});
+	const at = classes.findIndex((c) => c.id === input.id);
+	const other = classes[input.direction === 'up' ? at - 1 : at + 1];
+	if (!other) {
+		throw new ScheduleProblem(
+			`This class is already ${input.direction === 'up' ? 'first' : 'last'} in its division.`
+		);
+	}
+	await renumber(ShowClass, classes, transaction);
+	await swapPositions(ShowClass, classes[at], other, transaction);
+}
+
+/** Gives rows that share a position distinct ones, keeping their order. */
+async function renumber(
+	model: Ordered,
+	rows: (Division | ShowClass)[],
+	transaction: Transaction
+): Promise<void> {
+	let last = -Infinity;
+	for (const row of rows) {
+		if (row.position <= last) await setPosition(model, row, last + 1, transaction);
+		last = row.position;
+	}
 }

@@ -21,6 +21,10 @@ export class Scale extends Model<InferAttributes<Scale>, InferCreationAttributes
 	declare societyId: ForeignKey<string> | null;
 	declare name: string;
 	declare criteria: ScaleCriterion[];
+	/** 1 for a new scale; a new version of a scale that scored sheets use gets the next number. */
+	declare version: CreationOptional<number>;
+	/** The scale this version replaces, or null. */
+	declare replacesId: CreationOptional<string | null>;
 	declare createdAt: CreationOptional<Date>;
 
 	static initModel(sequelize: Sequelize): typeof Scale {
@@ -29,6 +33,8 @@ export class Scale extends Model<InferAttributes<Scale>, InferCreationAttributes
 				id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
 				name: { type: DataTypes.STRING(120), allowNull: false },
 				criteria: { type: DataTypes.JSONB, allowNull: false },
+				version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
+				replacesId: { type: DataTypes.UUID },
 				createdAt: { type: DataTypes.DATE, defaultValue: DataTypes.NOW }
 			},
 			{ sequelize, tableName: 'scales', underscored: true, timestamps: false }

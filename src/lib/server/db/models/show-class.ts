@@ -31,6 +31,14 @@ export class ShowClass extends Model<
 	declare collectionSize: number | null;
 	declare speciesOnly: CreationOptional<boolean>;
 	declare maxDiameterIn: string | null;
+	/** Null: the show's possession period applies. */
+	declare possessionMonths: number | null;
+	/** Null: the show's limit of entries per exhibitor in a class applies. */
+	declare maxEntriesPerExhibitor: number | null;
+	/** Null: the show's limit of entries per variety applies. */
+	declare maxEntriesPerVariety: number | null;
+	/** Largest pot, inches across the rim; null = no limit stated. */
+	declare maxPotIn: string | null;
 
 	static initModel(sequelize: Sequelize): typeof ShowClass {
 		const texts = () => ({
@@ -54,7 +62,11 @@ export class ShowClass extends Model<
 				maxCrowns: { type: DataTypes.INTEGER },
 				collectionSize: { type: DataTypes.INTEGER },
 				speciesOnly: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
-				maxDiameterIn: { type: DataTypes.DECIMAL(5, 2) }
+				maxDiameterIn: { type: DataTypes.DECIMAL(5, 2) },
+				possessionMonths: { type: DataTypes.INTEGER },
+				maxEntriesPerExhibitor: { type: DataTypes.INTEGER },
+				maxEntriesPerVariety: { type: DataTypes.INTEGER },
+				maxPotIn: { type: DataTypes.DECIMAL(5, 2) }
 			},
 			{
 				sequelize,

@@ -29,6 +29,8 @@ export class Show extends Model<InferAttributes<Show>, InferCreationAttributes<S
 	declare nextEntryNumber: CreationOptional<number>;
 	declare entryFeeCents: CreationOptional<number>;
 	declare entryFeeRefund: CreationOptional<'none' | 'until_entries_close' | 'until_entry_day'>;
+	declare generalRules: CreationOptional<string | null>;
+	declare committee: CreationOptional<string | null>;
 	declare schedulePublishedAt: Date | null;
 	declare resultsPublishedAt: Date | null;
 	declare createdAt: CreationOptional<Date>;
@@ -55,6 +57,8 @@ export class Show extends Model<InferAttributes<Show>, InferCreationAttributes<S
 				nextEntryNumber: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
 				entryFeeCents: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
 				entryFeeRefund: { type: DataTypes.STRING(24), allowNull: false, defaultValue: 'none' },
+				generalRules: { type: DataTypes.TEXT },
+				committee: { type: DataTypes.TEXT },
 				schedulePublishedAt: { type: DataTypes.DATE },
 				resultsPublishedAt: { type: DataTypes.DATE },
 				createdAt: { type: DataTypes.DATE, defaultValue: DataTypes.NOW },

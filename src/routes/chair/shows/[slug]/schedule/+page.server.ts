@@ -1,6 +1,6 @@
 import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
-import { classSchema, divisionSchema } from '$lib/schemas/show';
+import { classSchema, divisionSchema, moveSchema, scheduleTextSchema } from '$lib/schemas/show';
 import { sequelize } from '$lib/server/db';
 import { requireConfirmation } from '$lib/server/confirm';
 import { fieldErrors, textFields } from '$lib/server/forms';
@@ -11,8 +11,11 @@ import {
 	deleteDivision,
 	listScales,
 	loadSchedule,
+	moveClass,
+	moveDivision,
 	saveClass,
-	saveDivision
+	saveDivision,
+	saveScheduleText
 } from '$lib/server/services/schedule';
 import { loadSocietySettings } from '$lib/server/services/society-settings';
 import type { Actions, PageServerLoad } from './$types';
@@ -30,6 +33,10 @@ const CLASS_FIELDS = [
 	'maxCrowns',
 	'collectionSize',
 	'maxDiameterIn',
+	'possessionMonths',
+	'maxEntriesPerExhibitor',
+	'maxEntriesPerVariety',
+	'maxPotIn',
 	'scaleId'
 ] as const;
 const optionalId = z.uuid().nullable().catch(null);
@@ -42,7 +49,12 @@ export const load: PageServerLoad = async (event) => {
 		loadSocietySettings(show.societyId)
 	]);
 	return {
-		show: { name: show.name, slug: show.slug },
+		show: {
+			name: show.name,
+			slug: show.slug,
+			generalRules: show.generalRules ?? '',
+			committee: show.committee ?? ''
+		},
 		divisions,
 		scales,
 		lengthUnit: settings.lengthUnit
@@ -126,5 +138,48 @@ export const actions: Actions = {
 		if (unconfirmed) return unconfirmed;
 		const failed = await attempt((t) => deleteClass(show, id, { transaction: t, actor: user }));
 		return failed ?? { saved: 'The class is removed.' };
+	},
+	moveDivision: async (event) => move(event, moveDivision),
+	moveClass: async (event) => move(event, moveClass),
+	saveText: async (event) => {
+		const { show } = await requireShowRole(event, event.params.slug, ['chair']);
+		const form = await event.request.formData();
+		const values = textFields(form, ['part', 'text']);
+		const parsed = scheduleTextSchema.safeParse(values);
+		if (!parsed.success) {
+			const errors = fieldErrors(parsed.error);
+			return fail(400, {
+				message: errors.part ?? 'Check the text; it was not saved.',
+				errors: { [values.part === 'committee' ? 'committee' : 'generalRules']: errors.text ?? '' },
+				textValues: { [values.part]: values.text }
+			});
+		}
+		const failed = await attempt((t) => saveScheduleText(show, parsed.data, { transaction: t }));
+		return (
+			failed ?? {
+				saved:
+					parsed.data.part === 'committee'
+						? 'The committee is saved.'
+						: 'The general rules are saved.'
+			}
+		);
 	}
 };
+
+/** Moves a division or class one place up or down. */
+async function move(
+	event: Parameters<Actions[string]>[0],
+	change: typeof moveDivision | typeof moveClass
+) {
+	const { show } = await requireShowRole(event, event.params.slug ?? '', ['chair']);
+	const form = await event.request.formData();
+	const parsed = moveSchema.safeParse(textFields(form, ['id', 'direction']));
+	if (!parsed.success) {
+		return fail(400, {
+			message: parsed.error.issues[0].message,
+			errors: fieldErrors(parsed.error)
+		});
+	}
+	const failed = await attempt((t) => change(show, parsed.data, { transaction: t }));
+	return failed ?? { saved: 'The schedule’s order is saved.' };
+}
