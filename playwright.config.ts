@@ -30,7 +30,7 @@ export default defineConfig({
 	projects: [
 		{
 			name: 'laptop',
-			testIgnore: /bad-input\.spec\.ts/,
+			testIgnore: [/bad-input\.spec\.ts/, /new-society\.spec\.ts/],
 			use: { ...devices['Desktop Chrome'], viewport: { width: 1280, height: 800 } }
 		},
 		{
@@ -39,6 +39,16 @@ export default defineConfig({
 			testMatch: /bad-input\.spec\.ts/,
 			dependencies: ['laptop'],
 			use: { ...devices['Desktop Chrome'], viewport: { width: 1280, height: 800 } }
+		},
+		{
+			// A second built app on a database with the migrations and no demo seed (scripts/test.sh).
+			name: 'fresh',
+			testMatch: /new-society\.spec\.ts/,
+			use: {
+				...devices['Desktop Chrome'],
+				viewport: { width: 1280, height: 800 },
+				baseURL: process.env.FRESH_BASE_URL ?? 'http://127.0.0.1:4174'
+			}
 		}
 	]
 });

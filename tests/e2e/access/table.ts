@@ -191,7 +191,17 @@ export const ACCESS_TABLE: AccessRow[] = [
 		route: '/admin/audit',
 		query: 'action=bogus&person=1%20OR%201%3D1&from=2026-13-45&page=-1',
 		answers: pageFor('admin', 'other')
-	}
+	},
+	// i-society: starting a society (open to anyone signed in when CB_SOCIETY_SIGNUP=open, as in
+	// the tests; closed, the page says so to everyone) and the admin's society settings.
+	{ route: '/societies/new', answers: { ...all(200), anon: 'signin' } },
+	{ route: '/admin/society', answers: pageFor('admin', 'other') },
+	{
+		route: '/admin/society',
+		query: 'society=cedar-ridge',
+		answers: { ...pageFor('other'), admin: 403 }
+	},
+	{ route: '/admin/society', query: 'society=no-such-society', answers: pageFor() }
 ];
 
 export { all, apiFor, pageFor };

@@ -358,5 +358,16 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 		fields: [],
 		noInput:
 			'signing out reads no input: whatever is sent, the session ends (checked in sign-in-and-roles.spec.ts)'
+	},
+	// i-society: starting a society, and the admin's society settings.
+	'/societies/new action:default': {
+		as: 'member',
+		corrupt: 'form',
+		fields: ['name', 'slug', 'country', 'unit', 'paperSize', 'timeZone', 'currency']
+	},
+	'/admin/society action:save': {
+		as: 'admin',
+		corrupt: 'form',
+		fields: ['societyId', 'name', 'slug', 'country', 'unit', 'paperSize', 'timeZone', 'currency']
 	}
 };
