@@ -12,6 +12,8 @@ import {
 	updateSocietySettings
 } from '$lib/server/services/societies';
 
+import { actions, load } from '../../src/routes/societies/new/+page.server';
+
 const run = promisify(execFile);
 const stamp = Date.now().toString(36);
 const slugs: string[] = [];
@@ -208,9 +210,38 @@ describe('starting a society through the service', () => {
 	});
 });
 
+describe('the start page on a closed host (CB_SOCIETY_SIGNUP unset)', () => {
+	it('says so, and its action answers 403 writing nothing', async () => {
+		const saved = process.env.CB_SOCIETY_SIGNUP;
+		delete process.env.CB_SOCIETY_SIGNUP;
+		try {
+			const person = await founder();
+			const user = { id: person.id, email: person.email, name: null, memberships: [] };
+			const url = new URL('http://127.0.0.1/societies/new');
+			const page = (await load({ locals: { user }, url } as never)) as { open: boolean };
+			expect(page.open).toBe(false);
+
+			const form = new FormData();
+			for (const [k, v] of Object.entries(fields())) form.set(k, v);
+			const before = await counts();
+			const request = new Request(url, { method: 'POST', body: form });
+			const answer = (await actions.default({ locals: { user }, url, request } as never)) as {
+				status: number;
+				data: { message: string };
+			};
+			expect(answer.status).toBe(403);
+			expect(answer.data.message).toBe(SIGNUP_CLOSED_MESSAGE);
+			expect(await counts()).toEqual(before);
+		} finally {
+			if (saved === undefined) delete process.env.CB_SOCIETY_SIGNUP;
+			else process.env.CB_SOCIETY_SIGNUP = saved;
+		}
+	});
+});
+
 describe('npm run society -- create (the command line)', () => {
 	const cli = (args: string[]) =>
-		run('npx', ['tsx', 'scripts/society.ts', ...args], { env: process.env }).then(
+		run('node_modules/.bin/tsx', ['scripts/society.ts', ...args], { env: process.env }).then(
 			(r) => ({ code: 0, ...r }),
 			(err: { code: number; stdout: string; stderr: string }) => err
 		);
