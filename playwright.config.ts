@@ -30,7 +30,7 @@ export default defineConfig({
 	projects: [
 		{
 			name: 'laptop',
-			testIgnore: /bad-input\.spec\.ts|society-settings\.spec\.ts/,
+			testIgnore: [/bad-input\.spec\.ts/, /new-society\.spec\.ts/, /society-settings\.spec\.ts/],
 			use: { ...devices['Desktop Chrome'], viewport: { width: 1280, height: 800 } }
 		},
 		{
@@ -46,6 +46,16 @@ export default defineConfig({
 			testMatch: /society-settings\.spec\.ts/,
 			dependencies: ['bad-input'],
 			use: { ...devices['Desktop Chrome'], viewport: { width: 1280, height: 800 } }
+		},
+		{
+			// A second built app on a database with the migrations and no demo seed (scripts/test.sh).
+			name: 'fresh',
+			testMatch: /new-society\.spec\.ts/,
+			use: {
+				...devices['Desktop Chrome'],
+				viewport: { width: 1280, height: 800 },
+				baseURL: process.env.FRESH_BASE_URL ?? 'http://127.0.0.1:4174'
+			}
 		}
 	]
 });

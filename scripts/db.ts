@@ -1,7 +1,8 @@
 /**
  * Database chores from the command line:
- *   tsx scripts/db.ts migrate | rollback | seed | reset | status
- * reset drops every table, migrates and seeds: the demo's fresh start.
+ *   tsx scripts/db.ts migrate | rollback | seed | reset | empty | status
+ * reset drops every table, migrates and seeds: the demo's fresh start. empty drops every table
+ * and migrates without the seed: a host's first start (the fresh-database browser tests).
  */
 import {
 	createSequelize,
@@ -41,6 +42,12 @@ async function main(): Promise<void> {
 			console.log(`reset: ${m.length} migration(s), ${s.length} seeder(s)`);
 			break;
 		}
+		case 'empty': {
+			await sequelize.query('DROP SCHEMA public CASCADE; CREATE SCHEMA public;');
+			const m = await migrator.up();
+			console.log(`empty: ${m.length} migration(s), no seed`);
+			break;
+		}
 		case 'status': {
 			const pending = await migrator.pending();
 			const executed = await migrator.executed();
@@ -48,7 +55,7 @@ async function main(): Promise<void> {
 			break;
 		}
 		default:
-			console.error('usage: tsx scripts/db.ts migrate | rollback | seed | reset | status');
+			console.error('usage: tsx scripts/db.ts migrate | rollback | seed | reset | empty | status');
 			process.exitCode = 2;
 	}
 }

@@ -14,6 +14,8 @@ export ORIGIN="${ORIGIN:-http://localhost:$PORT}"
 export SMTP_FAKE_PORT="${SMTP_FAKE_PORT:-2525}" SMTP_FAKE_HTTP_PORT="${SMTP_FAKE_HTTP_PORT:-2526}"
 export SMTP_URL="smtp://127.0.0.1:$SMTP_FAKE_PORT"
 export CB_DEV_MAIL_URL="http://127.0.0.1:$SMTP_FAKE_HTTP_PORT"
+# Anyone signed in may start a society in the demo (unset, only the host's operator may).
+export CB_SOCIETY_SIGNUP="${CB_SOCIETY_SIGNUP:-open}"
 export AUTH_SECRET="${AUTH_SECRET:-$(auth_secret)}"
 export PAYMENT_FAKE_PORT="${PAYMENT_FAKE_PORT:-12111}"
 export PAYMENT_FAKE_WEBHOOK_URL="http://127.0.0.1:$PORT/api/payments/webhook"

@@ -24,7 +24,9 @@ fi
 
 test_db="${CB_TEST_DB:-crownbench_test}"
 e2e_db="${CB_E2E_DB:-crownbench_e2e}"
-./docker-less-db.sh start "$test_db" "$e2e_db"
+# The fresh-database browser tests: migrations and no demo seed, as a new host starts.
+fresh_db="${CB_FRESH_DB:-crownbench_fresh}"
+./docker-less-db.sh start "$test_db" "$e2e_db" "$fresh_db"
 
 export SMTP_FAKE_PORT="${TEST_SMTP_PORT:-2535}" SMTP_FAKE_HTTP_PORT="${TEST_SMTP_HTTP_PORT:-2536}"
 export SMTP_URL="smtp://127.0.0.1:$SMTP_FAKE_PORT"
@@ -35,6 +37,8 @@ export PAYMENT_FAKE_WEBHOOK_URL="http://127.0.0.1:${TEST_APP_PORT:-4173}/api/pay
 use_payment_fake
 # Browser tests sign the same demo people in many times: a roomier limit per address, and all
 # of them come from 127.0.0.1. A test checks that the limit per address still bites.
+# Any signed-in person may start a society in the tests (the default, closed, is tested too).
+export CB_SOCIETY_SIGNUP=open
 export CB_SIGNIN_LIMIT_PER_ADDRESS="${CB_SIGNIN_LIMIT_PER_ADDRESS:-30}" CB_SIGNIN_LIMIT_PER_IP="${CB_SIGNIN_LIMIT_PER_IP:-100000}"
 start_smtp_fake
 start_payment_fake
@@ -61,19 +65,35 @@ step() {
 }
 
 e2e() {
-	local port="${TEST_APP_PORT:-4173}"
+	local port="${TEST_APP_PORT:-4173}" fresh_port="${TEST_FRESH_APP_PORT:-4174}"
+	local fresh_url
+	fresh_url="$(./docker-less-db.sh url "$fresh_db")"
 	export DATABASE_URL
 	DATABASE_URL="$(./docker-less-db.sh url "$e2e_db")"
 	npx tsx scripts/db.ts reset || return 1
+	DATABASE_URL="$fresh_url" npx tsx scripts/db.ts empty || return 1
 	PORT="$port" HOST=127.0.0.1 ORIGIN="http://127.0.0.1:$port" BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-12M}" \
 		node server.js >.data/e2e-app.log 2>&1 &
 	local app=$!
 	background_pids+=("$app")
+	# A second built app, same settings, on the database with no seed (tests/e2e/new-society.spec.ts).
+	DATABASE_URL="$fresh_url" PORT="$fresh_port" HOST=127.0.0.1 ORIGIN="http://127.0.0.1:$fresh_port" \
+		BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-12M}" node server.js >.data/e2e-fresh-app.log 2>&1 &
+	local fresh=$!
+	background_pids+=("$fresh")
 	wait_for_url "http://127.0.0.1:$port/" 30 || { cat .data/e2e-app.log; return 1; }
-	E2E_BASE_URL="http://127.0.0.1:$port" npx playwright test
+	wait_for_url "http://127.0.0.1:$fresh_port/" 30 || { cat .data/e2e-fresh-app.log; return 1; }
+	E2E_BASE_URL="http://127.0.0.1:$port" FRESH_BASE_URL="http://127.0.0.1:$fresh_port" \
+		npx playwright test
 	local rc=$?
 	stop_pid "$app"
-	[ $rc -eq 0 ] || { echo "--- app log"; tail -50 .data/e2e-app.log; }
+	stop_pid "$fresh"
+	if [ $rc -ne 0 ]; then
+		echo "--- app log"
+		tail -50 .data/e2e-app.log
+		echo "--- fresh app log"
+		tail -50 .data/e2e-fresh-app.log
+	fi
 	return $rc
 }
 

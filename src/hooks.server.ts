@@ -2,6 +2,7 @@ import { error, type Handle, type HandleServerError, type ServerInit } from '@sv
 import { sequence } from '@sveltejs/kit/hooks';
 import { authHandle, findSessionUser, SESSION_COOKIES, sessionTokenOf } from '$lib/server/auth';
 import { resultsPageCache } from '$lib/server/cache/results-page';
+import { checkHostSettings } from '$lib/server/config';
 import { sequelize } from '$lib/server/db';
 import { DATABASE_DOWN_MESSAGE, isDatabaseDown } from '$lib/server/db/connection';
 import { AREA_ROLES, areaOf, requireRole, requireUser } from '$lib/server/policies';
@@ -106,6 +107,8 @@ export const handleError: HandleServerError = ({ error: err, event, status }) =>
  * `npm run worker` as its own process). Several senders are safe: rows are claimed with SKIP LOCKED.
  */
 export const init: ServerInit = () => {
+	// A host setting with a wrong value stops the app here, with a message naming it.
+	checkHostSettings();
 	// server.js answers score sheet saves through this lane (see the module).
 	registerFastLane();
 	const off = process.env.CB_OUTBOX_WORKER === 'off';

@@ -1,5 +1,6 @@
 import { redirect } from '@sveltejs/kit';
 import { ROLE_HOMES, ROLE_LABELS, ROLES } from '$lib/roles';
+import { societySignup } from '$lib/server/config';
 import { requireUser } from '$lib/server/policies';
 import type { PageServerLoad } from './$types';
 
@@ -10,6 +11,7 @@ export const load: PageServerLoad = (event) => {
 	if (held.length === 1) redirect(303, ROLE_HOMES[held[0]]);
 	return {
 		name: user.name,
+		societySignupOpen: societySignup() === 'open',
 		areas: held.map((r) => ({ role: r, label: ROLE_LABELS[r], href: ROLE_HOMES[r] })),
 		societies: user.memberships.map((m) => ({
 			name: m.societyName,

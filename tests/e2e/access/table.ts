@@ -201,7 +201,17 @@ export const ACCESS_TABLE: AccessRow[] = [
 		route: '/chair/scales',
 		query: 'society=cedar-ridge',
 		answers: { ...pageFor('other'), chair: 403 }
-	}
+	},
+	// i-society: starting a society (open to anyone signed in when CB_SOCIETY_SIGNUP=open, as in
+	// the tests; closed, the page says so to everyone) and the admin's society settings.
+	{ route: '/societies/new', answers: { ...all(200), anon: 'signin' } },
+	{ route: '/admin/society', answers: pageFor('admin', 'other') },
+	{
+		route: '/admin/society',
+		query: 'society=cedar-ridge',
+		answers: { ...pageFor('other'), admin: 403 }
+	},
+	{ route: '/admin/society', query: 'society=no-such-society', answers: pageFor() }
 ];
 
 export { all, apiFor, pageFor };

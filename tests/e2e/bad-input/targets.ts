@@ -417,5 +417,16 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 		corrupt: 'form',
 		fields: ['societyId', 'id', 'name', 'label', 'maxPoints', 'key']
 	},
-	'/chair/scales action:copy': { as: 'chair', corrupt: 'form', fields: ['societyId', 'id'] }
+	'/chair/scales action:copy': { as: 'chair', corrupt: 'form', fields: ['societyId', 'id'] },
+	// i-society: starting a society, and the admin's society settings.
+	'/societies/new action:default': {
+		as: 'member',
+		corrupt: 'form',
+		fields: ['name', 'slug', 'country', 'unit', 'paperSize', 'timeZone', 'currency']
+	},
+	'/admin/society action:save': {
+		as: 'admin',
+		corrupt: 'form',
+		fields: ['societyId', 'name', 'slug', 'country', 'unit', 'paperSize', 'timeZone', 'currency']
+	}
 };

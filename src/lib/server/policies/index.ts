@@ -59,7 +59,8 @@ export const AREA_ROLES: Record<string, readonly Role[] | 'signed-in'> = {
 	desk: ['clerk', 'chair'],
 	judging: ['judge', 'clerk'],
 	my: ['member'],
-	home: 'signed-in'
+	home: 'signed-in',
+	societies: 'signed-in'
 };
 
 /** The area a path belongs to (its first segment, after /api/), or null for public paths. */

@@ -19,6 +19,8 @@ export class Society extends Model<InferAttributes<Society>, InferCreationAttrib
 	declare lengthUnit: CreationOptional<LengthUnit>;
 	declare paperSize: CreationOptional<PaperSize>;
 	declare timeZone: CreationOptional<string>;
+	/** The award rules new shows of the society start from (AwardRules; empty: the defaults). */
+	declare defaultAwardRules: CreationOptional<Record<string, unknown>>;
 	declare createdAt: CreationOptional<Date>;
 	declare updatedAt: CreationOptional<Date>;
 
@@ -37,6 +39,7 @@ export class Society extends Model<InferAttributes<Society>, InferCreationAttrib
 					allowNull: false,
 					defaultValue: 'America/New_York'
 				},
+				defaultAwardRules: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
 				createdAt: { type: DataTypes.DATE, defaultValue: DataTypes.NOW },
 				updatedAt: { type: DataTypes.DATE, defaultValue: DataTypes.NOW }
 			},

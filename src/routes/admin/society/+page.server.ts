@@ -1,0 +1,45 @@
+import { error, fail } from '@sveltejs/kit';
+import { z } from 'zod';
+import { editSocietySchema, societyFormOptions, societyFormValues } from '$lib/schemas/society';
+import { sequelize } from '$lib/server/db';
+import { requireRole } from '$lib/server/policies';
+import {
+	SocietyError,
+	loadSocietyFields,
+	updateSocietySettings
+} from '$lib/server/services/societies';
+import { chooseSociety } from '$lib/server/society-choice';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async (event) => {
+	const user = requireRole(event, ['admin']);
+	const society = chooseSociety(user, ['admin'], event.url.searchParams.get('society'));
+	const fields = await loadSocietyFields(society.societyId);
+	if (!fields) error(404, 'This society does not exist.');
+	return { society, fields, options: societyFormOptions() };
+};
+
+const text = (v: unknown) => (typeof v === 'string' ? v.slice(0, 200) : '');
+
+export const actions: Actions = {
+	save: async (event) => {
+		const raw = societyFormValues(await event.request.formData());
+		const values = Object.fromEntries(Object.entries(raw).map(([k, v]) => [k, text(v)]));
+		const parsed = editSocietySchema.safeParse(raw);
+		if (!parsed.success) {
+			const errors = z.flattenError(parsed.error).fieldErrors;
+			return fail(400, { message: 'Check the highlighted fields.', errors, values });
+		}
+		requireRole(event, ['admin'], parsed.data.societyId);
+		try {
+			const saved = await sequelize.transaction((transaction) =>
+				updateSocietySettings(parsed.data, { transaction })
+			);
+			return { saved: `Settings saved for ${saved.name}.`, slug: saved.slug };
+		} catch (err) {
+			if (!(err instanceof SocietyError)) throw err;
+			const errors = err.field ? { [err.field]: [err.message] } : {};
+			return fail(err.status, { message: err.message, errors, values });
+		}
+	}
+};
