@@ -486,7 +486,8 @@ describe('the schedule PDF', () => {
 		const pdf = await renderPdf(
 			scheduleDocument(
 				{ ...settingsOf(theShow), societyName: 'Fernhollow' },
-				await loadSchedule(theShow.id)
+				await loadSchedule(theShow.id),
+				{ paperSize: 'letter', lengthUnit: 'in', currency: 'USD' }
 			)
 		);
 		const parser = new PDFParse({ data: new Uint8Array(pdf) });

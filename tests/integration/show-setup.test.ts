@@ -140,6 +140,10 @@ const classInput = (divisionId: string, overrides: Partial<ClassInput>): ClassIn
 	collectionSize: null,
 	speciesOnly: false,
 	maxDiameterIn: null,
+	possessionMonths: null,
+	maxEntriesPerExhibitor: null,
+	maxEntriesPerVariety: null,
+	maxPotIn: null,
 	scaleId: null,
 	...overrides
 });

@@ -62,7 +62,7 @@ describe('results documents of a small show', () => {
 				topAwardsPerPlant: 'one' as const
 			};
 			const placed = generateShow({ entries: 30, classesPerDivision: 3, exhibitors: 6, rules });
-			const { text } = await textOf(await renderAwardSheets(placed.results));
+			const { text } = await textOf(await renderAwardSheets(placed.results, 'letter'));
 			expect(text).toContain(
 				'Settings used: Honorable mentions: up to 3 per class; Panel score: mean of the judges, half up to whole points; Top awards: one per plant, in the order listed.'
 			);

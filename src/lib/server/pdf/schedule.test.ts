@@ -21,6 +21,8 @@ const show: ShowSettings & { societyName: string; entryFeeCents: number } = {
 	requireGoodStanding: false,
 	awardRules: DEFAULT_AWARD_RULES,
 	schedulePublished: true,
+	generalRules: '',
+	committee: '',
 	societyName: 'Testwood Growers',
 	entryFeeCents: 150
 };
@@ -48,6 +50,10 @@ const divisions: ScheduleDivision[] = [
 				collectionSize: null,
 				speciesOnly: false,
 				maxDiameterIn: 6, // miniature up to 6 in (growers' references, DOMAIN.md)
+				possessionMonths: null,
+				maxEntriesPerExhibitor: null,
+				maxEntriesPerVariety: null,
+				maxPotIn: null,
 				scaleId: null,
 				scaleName: null
 			}
