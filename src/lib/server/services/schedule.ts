@@ -489,6 +489,7 @@ export async function saveScheduleText(
 	input: ScheduleTextInput,
 	options: { transaction: Transaction }
 ): Promise<void> {
+	await requireStage(show, 'schedule', options.transaction);
 	await show.update({ [input.part]: input.text || null }, { transaction: options.transaction });
 }
 
@@ -524,6 +525,7 @@ export async function moveDivision(
 	options: { transaction: Transaction }
 ): Promise<void> {
 	const { transaction } = options;
+	await requireStage(show, 'schedule', transaction);
 	const divisions = await Division.findAll({
 		where: { showId: show.id },
 		order: [
@@ -552,6 +554,7 @@ export async function moveClass(
 	options: { transaction: Transaction }
 ): Promise<void> {
 	const { transaction } = options;
+	await requireStage(show, 'schedule', transaction);
 	const target = await ShowClass.findOne({ where: { id: input.id, showId: show.id }, transaction });
 	if (!target) throw new ScheduleProblem('That class is not part of this show.');
 	const classes = await ShowClass.findAll({

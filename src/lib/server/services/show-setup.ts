@@ -1,9 +1,9 @@
 import { randomUUID } from 'node:crypto';
 import { QueryTypes, UniqueConstraintError, type Transaction } from 'sequelize';
-import { DEFAULT_AWARD_RULES } from '$lib/domain/awards';
+import { awardRulesFrom } from '$lib/domain/awards';
 import { datesForCopy, datesOutOfOrder, type ShowDates } from '$lib/domain/show-stage';
 import type { CopyShowInput, NewShowInput } from '$lib/schemas/show-setup';
-import { Show, sequelize } from '../db';
+import { Show, Society, sequelize } from '../db';
 import { hasRole } from '../policies';
 import { Refusal } from './refusal';
 
@@ -93,6 +93,12 @@ export async function createShow(
 	requireChair(actor, input.societyId);
 	requireDatesInOrder(input);
 	await requireSlugFree(input.slug, transaction);
+	// A new show starts from the society's own award rules (the defaults where it has none).
+	const society = await Society.findByPk(input.societyId, {
+		attributes: ['defaultAwardRules'],
+		transaction
+	});
+	const startingRules = awardRulesFrom(society?.defaultAwardRules ?? {});
 	return insertingShow(input.slug, () =>
 		Show.create(
 			{
@@ -106,7 +112,7 @@ export async function createShow(
 				entryDay: input.entryDay,
 				judgingDay: input.judgingDay,
 				panelScoreMethod: input.panelScoreMethod,
-				awardRules: { ...DEFAULT_AWARD_RULES, system: input.awardSystem } as unknown as Record<
+				awardRules: { ...startingRules, system: input.awardSystem } as unknown as Record<
 					string,
 					unknown
 				>,
