@@ -1,13 +1,13 @@
 import { z } from 'zod';
+import { text } from './text';
 import { isIsoDate } from '$lib/domain/dates';
 
 /** An entry the exhibitor asks for (form and API): a class, a variety and the day they got it. */
 export const entryRequestSchema = z.object({
-	showSlug: z.string().trim().min(1, 'Say which show.').max(80),
+	showSlug: text().trim().min(1, 'Say which show.').max(80),
 	classId: z.uuid('Choose a class from the schedule.'),
 	varietyId: z.uuid('Choose a variety from the registry.'),
-	acquiredOn: z
-		.string({ error: 'Give the day you got the plant.' })
+	acquiredOn: text({ error: 'Give the day you got the plant.' })
 		.trim()
 		.refine((v) => isIsoDate(v), 'Give the day you got the plant as a date (YYYY-MM-DD).')
 });
