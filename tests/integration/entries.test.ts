@@ -371,4 +371,25 @@ describe('entry photos', () => {
 		expect(photo.fileName).toMatch(/^[0-9a-f-]{36}\.png$/);
 		expect(await readdir(dir)).toEqual([photo.fileName]);
 	});
+
+	// i-sec: eight uploads at once still keep PHOTO_LIMITS.perEntry (4, common practice).
+	it('keeps the per-entry limit under parallel uploads: count and insert are locked', async () => {
+		const entry = (await Entry.findOne({
+			where: { showId: show.id, exhibitorId: userId.member }
+		}))!;
+		const before = await EntryPhoto.count({ where: { entryId: entry.id } });
+		const outcomes = await Promise.allSettled(
+			Array.from({ length: 8 }, (_, i) =>
+				sequelize.transaction((transaction) =>
+					addEntryPhoto(entry, userId.member, new File([png], `p${i}.png`), { transaction })
+				)
+			)
+		);
+		expect(await EntryPhoto.count({ where: { entryId: entry.id } })).toBe(4);
+		expect(outcomes.filter((o) => o.status === 'fulfilled')).toHaveLength(4 - before);
+		for (const o of outcomes.filter((o) => o.status === 'rejected')) {
+			expect((o as PromiseRejectedResult).reason).toBeInstanceOf(PhotoProblem);
+		}
+		expect(await readdir(dir)).toHaveLength(4);
+	});
 });
