@@ -3,6 +3,7 @@ import { sequence } from '@sveltejs/kit/hooks';
 import {
 	authHandle,
 	findSessionUser,
+	hasValidCallbackUrl,
 	isClosedAuthPath,
 	pinToPublicAddress,
 	SESSION_COOKIES,
@@ -51,6 +52,9 @@ const authAddressHandle: Handle = async ({ event, resolve }) => {
 			error(404, 'Ask for a sign-in link on the sign-in page.');
 		}
 		if (!pinToPublicAddress(event.request.headers)) error(400, 'The request names no valid host.');
+		if (!hasValidCallbackUrl(event.url, (name) => event.cookies.get(name))) {
+			error(400, 'The address to go to after signing in is not a web address.');
+		}
 	} catch (thrown) {
 		return answerThrown(event, thrown);
 	}

@@ -1,6 +1,9 @@
 import { isHttpError, isRedirect } from '@sveltejs/kit';
 import { afterAll, describe, expect, it } from 'vitest';
-import { Show } from '../../src/lib/server/db';
+import { sequelize, Show } from '../../src/lib/server/db';
+import { cachedSchedulePdf } from '../../src/lib/server/cache/schedule-pdf';
+import { loadPublicSchedule } from '../../src/lib/server/services/public-schedule';
+import { GET as schedulePdf } from '../../src/routes/shows/[slug]/schedule.pdf/+server';
 import { areaOf } from '../../src/lib/server/policies';
 import { loadSignedInUser } from '../../src/lib/server/services/people';
 import { productionSettingProblems } from '../../src/lib/server/startup-checks';
@@ -75,5 +78,43 @@ describe('security: what an outside test found (issue 19)', () => {
 		expect(productionSettingProblems({ NODE_ENV: 'production' })).toEqual([
 			expect.stringMatching(/Set ORIGIN/)
 		]);
+	});
+
+	it('keeps the public schedule PDF until the schedule or the society’s settings change', async () => {
+		const f = await buildFixture({ entryCount: 1 });
+		await sequelize.query('UPDATE shows SET schedule_published_at = now() WHERE id = :id', {
+			replacements: { id: f.showId }
+		});
+		const slug = (await Show.findByPk(f.showId))!.slug;
+		let builds = 0;
+		const pdfOf = async () => {
+			const data = await loadPublicSchedule(slug, null);
+			return cachedSchedulePdf(slug, data, async () => Buffer.from(`build ${++builds}`));
+		};
+		expect(String(await pdfOf())).toBe('build 1');
+		expect(String(await pdfOf())).toBe('build 1');
+		await sequelize.query(`UPDATE classes SET name = 'Renamed class' WHERE id = :id`, {
+			replacements: { id: f.classId }
+		});
+		expect(String(await pdfOf())).toBe('build 2');
+		expect(String(await pdfOf())).toBe('build 2');
+		await sequelize.query(`UPDATE societies SET slug = slug || '-x' WHERE id = :id`, {
+			replacements: { id: f.societyId }
+		});
+		expect(String(await pdfOf())).toBe('build 3');
+		// The route answers from the same place: the copy kept above, then (the society's settings
+		// changed again) a real PDF, the same bytes while nothing changes.
+		const event = { params: { slug }, locals: { user: null } } as unknown as Parameters<
+			typeof schedulePdf
+		>[0];
+		expect(String(Buffer.from(await (await schedulePdf(event)).arrayBuffer()))).toBe('build 3');
+		await sequelize.query(`UPDATE societies SET slug = slug || '-y' WHERE id = :id`, {
+			replacements: { id: f.societyId }
+		});
+		const first = await schedulePdf(event);
+		expect(first.headers.get('content-type')).toBe('application/pdf');
+		const bytes = Buffer.from(await first.arrayBuffer());
+		expect(bytes.subarray(0, 5).toString()).toBe('%PDF-');
+		expect(Buffer.from(await (await schedulePdf(event)).arrayBuffer()).equals(bytes)).toBe(true);
 	});
 });

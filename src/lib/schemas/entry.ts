@@ -9,6 +9,14 @@ export const entryRequestSchema = z.object({
 	varietyId: z.uuid('Choose a variety from the registry.'),
 	acquiredOn: text({ error: 'Give the day you got the plant.' })
 		.trim()
-		.refine((v) => isIsoDate(v), 'Give the day you got the plant as a date (YYYY-MM-DD).')
+		.refine((v) => isIsoDate(v), {
+			error: 'Give the day you got the plant as a date (YYYY-MM-DD).',
+			abort: true
+		})
+		// Dates far off (9999-12-31) are no one's plant; the possession period is counted from it.
+		.refine(
+			(v) => v >= '1900-01-01' && v <= '2100-12-31',
+			'Give the day you got the plant as a real date (1900 to 2100).'
+		)
 });
 export type EntryRequest = z.infer<typeof entryRequestSchema>;

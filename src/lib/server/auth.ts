@@ -71,6 +71,29 @@ export function pinToPublicAddress(headers: Headers): boolean {
 	return isPlainHost(headers.get('x-forwarded-host') ?? headers.get('host'));
 }
 
+/** The cookie Auth.js keeps the after-sign-in address in, under both its names. */
+const CALLBACK_COOKIES = ['authjs.callback-url', '__Secure-authjs.callback-url'];
+
+/**
+ * False when an Auth.js request carries an after-sign-in address (query or cookie) that is no
+ * http(s) address, like `javascript:…`: Auth.js answers those as a set-up error (500).
+ */
+export function hasValidCallbackUrl(
+	url: URL,
+	cookie: (name: string) => string | undefined
+): boolean {
+	if (!url.pathname.startsWith('/auth/')) return true;
+	const values = [url.searchParams.get('callbackUrl'), ...CALLBACK_COOKIES.map(cookie)];
+	return values.every((value) => {
+		if (!value) return true;
+		try {
+			return ['http:', 'https:'].includes(new URL(value, url.origin).protocol);
+		} catch {
+			return false;
+		}
+	});
+}
+
 /** Auth.js's own way to ask for a link, closed: every request goes through /signin's checks. */
 export function isClosedAuthPath(method: string, path: string): boolean {
 	return method === 'POST' && (path === '/auth/signin' || path.startsWith('/auth/signin/'));
