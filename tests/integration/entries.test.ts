@@ -15,6 +15,7 @@ import {
 	sequelize
 } from '../../src/lib/server/db';
 import {
+	EntryInputProblem,
 	EntryRefused,
 	createEntry,
 	enterPlant,
@@ -160,6 +161,43 @@ describe('entering a plant', () => {
 		} finally {
 			await closed!.update(saved);
 		}
+	});
+
+	// i-sec: the API takes what the form offers, no more.
+	it('refuses entries into a show whose schedule is not published, and into a design class', async () => {
+		const draft = (await Show.findByPk(show.id))!;
+		const published = draft.schedulePublishedAt;
+		await draft.update({ schedulePublishedAt: null });
+		try {
+			const before = await counts();
+			for (const attempt of [
+				() => enterPlant(show.id, userId.exhibitor6, request('15', 'Hazel Thistle')),
+				() => previewEntry(draft, userId.exhibitor6, request('15', 'Hazel Thistle'))
+			]) {
+				const err = await attempt().then(
+					() => null,
+					(e: unknown) => e
+				);
+				expect(err).toBeInstanceOf(EntryInputProblem);
+				expect((err as EntryInputProblem).field).toBe('showSlug');
+			}
+			expect(await counts()).toEqual(before);
+		} finally {
+			await draft.update({ schedulePublishedAt: published });
+		}
+		// Class 24 is in the demo show's design division.
+		const before = await counts();
+		const design = await enterPlant(
+			show.id,
+			userId.exhibitor6,
+			request('24', 'Hazel Thistle')
+		).then(
+			() => null,
+			(e: unknown) => e
+		);
+		expect(design).toBeInstanceOf(EntryInputProblem);
+		expect((design as EntryInputProblem).message).toMatch(/does not take plant entries/);
+		expect(await counts()).toEqual(before);
 	});
 
 	it('a refused entry rolls back inside a larger transaction too', async () => {
