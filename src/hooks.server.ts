@@ -1,13 +1,21 @@
 import { error, type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
-import { authHandle, findSessionUser, SESSION_COOKIES, sessionTokenOf } from '$lib/server/auth';
+import {
+	authHandle,
+	findSessionUser,
+	hasValidCallbackUrl,
+	isClosedAuthPath,
+	pinToPublicAddress,
+	SESSION_COOKIES,
+	sessionTokenOf
+} from '$lib/server/auth';
 import { resultsPageCache } from '$lib/server/cache/results-page';
 import { checkHostSettings } from '$lib/server/config';
 import { sequelize } from '$lib/server/db';
 import { DATABASE_DOWN_MESSAGE, isDatabaseDown } from '$lib/server/db/connection';
-import { AREA_ROLES, areaOf, requireRole, requireUser } from '$lib/server/policies';
+import { AREA_ROLES, areaOf, requireRole, requireUser, routedPath } from '$lib/server/policies';
 import { startOutboxWorker } from '$lib/server/mail/outbox';
-import { loadSignedInUser } from '$lib/server/services/people';
+import { devMailEnabled, productionSettingProblems } from '$lib/server/startup-checks';
 import { startRefundSender } from '$lib/server/services/refunds';
 import { startReminderSchedule } from '$lib/server/services/reminders';
 import { todayIn } from '$lib/domain/dates';
@@ -28,9 +36,28 @@ const userHandle: Handle = async ({ event, resolve }) => {
 			event.locals.user = found.user;
 			return resolve(event);
 		}
+		// Auth.js extends (or clears) the session; the person is then read again by the token.
 		const session = await event.locals.auth();
-		const id = session?.user?.id;
-		if (id) event.locals.user = await loadSignedInUser(id);
+		if (session) event.locals.user = (await findSessionUser(token))?.user ?? null;
+	}
+	return resolve(event);
+};
+
+/**
+ * Before Auth.js: the request is pinned to the public address (sign-in links cannot be pointed at
+ * another host), a malformed host answers 400, and Auth.js's own sign-in POST is closed (404).
+ */
+const authAddressHandle: Handle = async ({ event, resolve }) => {
+	try {
+		if (isClosedAuthPath(event.request.method, event.url.pathname)) {
+			error(404, 'Ask for a sign-in link on the sign-in page.');
+		}
+		if (!pinToPublicAddress(event.request.headers)) error(400, 'The request names no valid host.');
+		if (!hasValidCallbackUrl(event.url, (name) => event.cookies.get(name))) {
+			error(400, 'The address to go to after signing in is not a web address.');
+		}
+	} catch (thrown) {
+		return answerThrown(event, thrown);
 	}
 	return resolve(event);
 };
@@ -44,7 +71,7 @@ const guardHandle: Handle = async ({ event, resolve }) => {
 			if (rule === 'signed-in') requireUser(event);
 			else requireRole(event, rule);
 		}
-		if (event.url.pathname.startsWith('/dev/') && !process.env.CB_DEV_MAIL_URL) {
+		if (routedPath(event.url.pathname).startsWith('/dev/') && !devMailEnabled()) {
 			error(404, 'Not found');
 		}
 	} catch (thrown) {
@@ -86,6 +113,7 @@ export const handle = sequence(
 	headersHandle,
 	// Anonymous visitors of published results get the page's current copy (see the module).
 	resultsPageCache(SESSION_COOKIES),
+	authAddressHandle,
 	authHandle,
 	userHandle,
 	guardHandle
@@ -109,6 +137,8 @@ export const handleError: HandleServerError = ({ error: err, event, status }) =>
 export const init: ServerInit = () => {
 	// A host setting with a wrong value stops the app here, with a message naming it.
 	checkHostSettings();
+	const problems = productionSettingProblems();
+	if (problems.length > 0) throw new Error(`Crownbench will not start: ${problems.join(' ')}`);
 	// server.js answers score sheet saves through this lane (see the module).
 	registerFastLane();
 	const off = process.env.CB_OUTBOX_WORKER === 'off';

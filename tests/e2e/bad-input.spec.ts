@@ -8,6 +8,8 @@ import { listInputTargets, targetKey, type InputTarget } from './bad-input/disco
 import { badForm, badJson, badParam, badQuery, type FormSample } from './bad-input/inputs';
 import { BAD_INPUT_TARGETS, type BadInputTarget } from './bad-input/targets';
 import { sessionCookies } from './support/cookies';
+import { withDb } from './support/judging-fixture';
+import { signIn } from './support/session';
 import { diffSnapshots, snapshotDb } from './support/db-snapshot';
 
 /**
@@ -249,3 +251,57 @@ function makeRequests(
 	);
 	return [...forms, ...odd];
 }
+
+// i-sec: the 500s an outside test found, and the guard on encoded paths.
+test('odd dates, broken bodies, script callback addresses and encoded paths answer 4xx with a message', async ({
+	page,
+	request,
+	baseURL
+}) => {
+	await signIn(page, 'member@crownbench.test');
+	const params = await loadParams();
+	const varietyId = await withDb(
+		async (db) =>
+			(
+				await db.query<{ id: string }>(
+					'SELECT id FROM varieties WHERE society_id = $1 ORDER BY name LIMIT 1',
+					[params.societyId]
+				)
+			).rows[0].id
+	);
+	const farOff = await page.request.post('/api/my/entries/check', {
+		data: { showSlug: params.slug, classId: params.classId, varietyId, acquiredOn: '9999-12-31' }
+	});
+	expect(farOff.status()).toBe(400);
+	expect((await farOff.json()).errors.acquiredOn).toMatch(/real date/);
+
+	// Signed out, as a visitor asking for a link.
+	const broken = await request.post('/signin', {
+		headers: {
+			origin: baseURL ?? '',
+			'content-type': 'multipart/form-data; boundary=----cut',
+			// A browser's plain form post: the page answers with the failure's status.
+			accept: 'text/html'
+		},
+		data: '------cut\r\nContent-Disposition: form-data; name="email"\r\n\r\nhalf',
+		maxRedirects: 0
+	});
+	expect(broken.status()).toBe(400);
+	expect(await broken.text()).toMatch(/could not be read/);
+
+	for (const callbackUrl of ['javascript:alert(1)', 'data:text/html,hi']) {
+		const callback = await page.request.get(
+			`/auth/callback/nodemailer?${new URLSearchParams({ callbackUrl, token: 'x', email: 'a@b.test' })}`,
+			{ maxRedirects: 0 }
+		);
+		expect(callback.status()).toBe(400);
+		expect(await callback.text()).toMatch(/not a web address/);
+	}
+
+	// The guard reads the path as routing does: an encoded letter is no way past it.
+	const encoded = await page.request.get('/api/%6Audging/sheets');
+	expect(encoded.status()).toBe(403);
+	expect((await encoded.json()).message).toBe(
+		'Your account does not have the role this page needs.'
+	);
+});

@@ -1,6 +1,7 @@
 import { expect, test } from '@playwright/test';
 import { expectAccessible } from './support/axe';
 import { withDb } from './support/judging-fixture';
+import { firstLink, lastMailId, waitForMail } from './support/mail';
 import { requestSignInLink, signIn } from './support/session';
 
 // Each demo role signs in by e-mail link, lands on its own page, and is refused another role's page.
@@ -163,4 +164,67 @@ test('too many sign-in links for one address are refused with a clear message', 
 	await expect(
 		page.getByText(/Too many sign-in links were asked for\. Try again in \d+ minutes?\./)
 	).toBeVisible();
+});
+
+// i-sec: sign-in links name the configured address; one guarded way to ask for them.
+test('a sign-in request with a forged Host or X-Forwarded-Host mails a link to the configured address', async ({
+	request,
+	baseURL
+}) => {
+	const email = `forged-host-${Date.now()}@crownbench.test`;
+	const forged: Record<string, string>[] = [
+		{ host: 'attacker.example' },
+		{ 'x-forwarded-host': 'attacker.example', 'x-forwarded-proto': 'https' },
+		{ host: 'attacker.example:8443', 'x-forwarded-host': 'attacker.example' },
+		// Malformed: answered without a 500, and still no other host in the link.
+		{ 'x-forwarded-host': 'bad host/<x>' }
+	];
+	for (const headers of forged) {
+		const before = await lastMailId(email);
+		const response = await request.post('/signin', {
+			form: { providerId: 'nodemailer', redirectTo: '/home', email },
+			headers: { origin: baseURL ?? '', ...headers },
+			maxRedirects: 0
+		});
+		expect(response.status(), JSON.stringify(headers)).toBeLessThan(400);
+		const link = firstLink(await waitForMail(email, before));
+		expect(new URL(link).origin, JSON.stringify(headers)).toBe(new URL(baseURL ?? '').origin);
+		expect(link).not.toContain('attacker');
+		expect(decodeURIComponent(link)).not.toContain('attacker');
+	}
+});
+
+test('Auth.js’s own sign-in endpoint is closed: no mail, whatever the address', async ({
+	request,
+	baseURL
+}) => {
+	for (const email of ['a@b', `direct-${Date.now()}@crownbench.test`]) {
+		const before = await lastMailId(email);
+		const response = await request.post('/auth/signin/nodemailer', {
+			form: { email, callbackUrl: '/home' },
+			headers: { origin: baseURL ?? '' },
+			maxRedirects: 0
+		});
+		expect(response.status()).toBe(404);
+		await new Promise((r) => setTimeout(r, 500));
+		expect(await lastMailId(email)).toBe(before);
+	}
+});
+
+test('GET /auth/session gives page scripts no session token and no internal ids', async ({
+	page
+}) => {
+	await signIn(page, 'member@crownbench.test');
+	const answer = await page.request.get('/auth/session');
+	expect(answer.status()).toBe(200);
+	const text = await answer.text();
+	const token = (await page.context().cookies()).find((c) =>
+		c.name.endsWith('authjs.session-token')
+	)?.value;
+	expect(token).toBeTruthy();
+	expect(text).not.toContain(token!);
+	const body = JSON.parse(text) as Record<string, unknown>;
+	expect(Object.keys(body).sort()).toEqual(['expires', 'user']);
+	expect(Object.keys(body.user as object).sort()).toEqual(['email', 'name']);
+	expect(text).not.toMatch(/sessionToken|userId|"id"/);
 });

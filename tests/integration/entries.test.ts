@@ -15,6 +15,7 @@ import {
 	sequelize
 } from '../../src/lib/server/db';
 import {
+	EntryInputProblem,
 	EntryRefused,
 	createEntry,
 	enterPlant,
@@ -160,6 +161,43 @@ describe('entering a plant', () => {
 		} finally {
 			await closed!.update(saved);
 		}
+	});
+
+	// i-sec: the API takes what the form offers, no more.
+	it('refuses entries into a show whose schedule is not published, and into a design class', async () => {
+		const draft = (await Show.findByPk(show.id))!;
+		const published = draft.schedulePublishedAt;
+		await draft.update({ schedulePublishedAt: null });
+		try {
+			const before = await counts();
+			for (const attempt of [
+				() => enterPlant(show.id, userId.exhibitor6, request('15', 'Hazel Thistle')),
+				() => previewEntry(draft, userId.exhibitor6, request('15', 'Hazel Thistle'))
+			]) {
+				const err = await attempt().then(
+					() => null,
+					(e: unknown) => e
+				);
+				expect(err).toBeInstanceOf(EntryInputProblem);
+				expect((err as EntryInputProblem).field).toBe('showSlug');
+			}
+			expect(await counts()).toEqual(before);
+		} finally {
+			await draft.update({ schedulePublishedAt: published });
+		}
+		// Class 24 is in the demo show's design division.
+		const before = await counts();
+		const design = await enterPlant(
+			show.id,
+			userId.exhibitor6,
+			request('24', 'Hazel Thistle')
+		).then(
+			() => null,
+			(e: unknown) => e
+		);
+		expect(design).toBeInstanceOf(EntryInputProblem);
+		expect((design as EntryInputProblem).message).toMatch(/does not take plant entries/);
+		expect(await counts()).toEqual(before);
 	});
 
 	it('a refused entry rolls back inside a larger transaction too', async () => {
@@ -370,5 +408,26 @@ describe('entry photos', () => {
 		expect(photo.contentType).toBe('image/png');
 		expect(photo.fileName).toMatch(/^[0-9a-f-]{36}\.png$/);
 		expect(await readdir(dir)).toEqual([photo.fileName]);
+	});
+
+	// i-sec: eight uploads at once still keep PHOTO_LIMITS.perEntry (4, common practice).
+	it('keeps the per-entry limit under parallel uploads: count and insert are locked', async () => {
+		const entry = (await Entry.findOne({
+			where: { showId: show.id, exhibitorId: userId.member }
+		}))!;
+		const before = await EntryPhoto.count({ where: { entryId: entry.id } });
+		const outcomes = await Promise.allSettled(
+			Array.from({ length: 8 }, (_, i) =>
+				sequelize.transaction((transaction) =>
+					addEntryPhoto(entry, userId.member, new File([png], `p${i}.png`), { transaction })
+				)
+			)
+		);
+		expect(await EntryPhoto.count({ where: { entryId: entry.id } })).toBe(4);
+		expect(outcomes.filter((o) => o.status === 'fulfilled')).toHaveLength(4 - before);
+		for (const o of outcomes.filter((o) => o.status === 'rejected')) {
+			expect((o as PromiseRejectedResult).reason).toBeInstanceOf(PhotoProblem);
+		}
+		expect(await readdir(dir)).toHaveLength(4);
 	});
 });

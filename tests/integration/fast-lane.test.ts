@@ -233,4 +233,29 @@ describe('the fast lane for score sheet saves', () => {
 			vi.resetModules();
 		}
 	});
+
+	// i-sec: text no one can type is refused with 400, on the lane as on the route (sheet-save.ts).
+	it('refuses a NUL or a lone surrogate in a comment or note with 400, and keeps nothing', async () => {
+		const entryId = f.entries[2].id;
+		const before = await sheetVersion(entryId);
+		for (const bad of ['ok\u0000ok', 'half \ud83c of a flower', 'tail \udf38', '\u0000']) {
+			const withComment = { ...change(0, deductions([1, 0, 0, 0, 0]), entryId), comment: bad };
+			// JSON.stringify writes a lone surrogate as its \u escape, as a tablet's browser does.
+			const answer = await put(JSON.stringify(withComment), { cookie: cookies.judge });
+			expect([answer.status, answer.passedOn.length]).toEqual([400, 0]);
+			expect(JSON.parse(answer.text).message).toMatch(/unusual characters/);
+			const withNote = {
+				...change(0, {}, entryId),
+				notJudged: { reason: 'pests', note: bad }
+			};
+			expect((await put(JSON.stringify(withNote), { cookie: cookies.judge })).status).toBe(400);
+		}
+		expect(await sheetVersion(entryId)).toEqual(before);
+		// A whole flower (a surrogate pair) is fine.
+		const fine = {
+			...change(before.at(-1) ?? 0, deductions([1, 0, 0, 0, 0]), entryId),
+			comment: 'a \ud83c\udf38'
+		};
+		expect((await put(JSON.stringify(fine), { cookie: cookies.judge })).status).toBe(200);
+	});
 });

@@ -316,6 +316,14 @@ describe('panel scores, board, awards and publishing', () => {
 
 		const locked = await refusalOf(saveSheet(f.judges[0], sheetChange(entry, 1, { symmetry: 0 })));
 		expect(locked.status).toBe(423);
+		// i-sec: a judge outside the class is refused by the access check, and hears nothing of the lock.
+		const outsider = await refusalOf(
+			saveSheet(f.judges[2], sheetChange(entry, 1, { symmetry: 0 }))
+		);
+		expect([outsider.status, outsider.message]).toEqual([
+			403,
+			'This entry is not in your classes.'
+		]);
 		await expect(
 			sequelize.query(`UPDATE score_sheets SET comment = 'late' WHERE entry_id = :entry`, {
 				replacements: { entry }

@@ -176,6 +176,31 @@ describe('a member collection', () => {
 		).rejects.toThrow("Choose a variety from your society's registry.");
 	});
 
+	// i-sec: many uploads at once still keep PHOTO_LIMITS.perPlant (12, common practice).
+	it('keeps the per-plant limit under parallel uploads: count and insert are locked', async () => {
+		const plant = await tx((t) => createPlant(member, [societyId], input({}), { transaction: t }));
+		const png = await sharp({
+			create: { width: 40, height: 40, channels: 3, background: '#6a4a9c' }
+		})
+			.png()
+			.toBuffer();
+		const outcomes = await Promise.allSettled(
+			Array.from({ length: 16 }, (_, i) =>
+				tx((t) =>
+					addPlantPhoto(member, plant.id, new File([new Uint8Array(png)], `p${i}.png`), null, {
+						transaction: t
+					})
+				)
+			)
+		);
+		expect(outcomes.filter((o) => o.status === 'fulfilled')).toHaveLength(12);
+		const [row] = await sequelize.query<{ n: string }>(
+			'SELECT count(*) AS n FROM plant_photos WHERE plant_id = :id',
+			{ replacements: { id: plant.id }, type: QueryTypes.SELECT }
+		);
+		expect(Number(row.n)).toBe(12);
+	});
+
 	it('stores photos by their real type, and shows them only to the owner', async () => {
 		const plant = await tx((t) => createPlant(member, [societyId], input({}), { transaction: t }));
 		const png = await sharp({

@@ -7,6 +7,7 @@ import { createStore, get, update, type UseStore } from 'idb-keyval';
 import type { QueuedChange, SendOutcome, TabletSheet } from './types';
 
 const KEY = 'changes';
+const SET_ASIDE_KEY = 'set-aside';
 let store: UseStore | undefined;
 
 function db(): UseStore {
@@ -59,7 +60,27 @@ export async function drop(match: { changeId?: string; entryId?: string }): Prom
 	);
 }
 
-/** Sends one change; a network failure or a server error leaves it waiting. */
+/**
+ * Moves a change the server refused for good out of the queue into a list of its own (kept on
+ * the tablet, never sent again), so the changes after it are sent.
+ */
+export async function setAside(change: QueuedChange): Promise<void> {
+	await update<QueuedChange[]>(SET_ASIDE_KEY, (list) => [...(list ?? []), change], db());
+	await drop({ changeId: change.changeId });
+}
+
+/** Changes the server refused for good, oldest first. */
+export async function readSetAside(): Promise<QueuedChange[]> {
+	return (await get<QueuedChange[]>(SET_ASIDE_KEY, db())) ?? [];
+}
+
+/** Answers that may go away on their own: signed out, timed out, too many requests. */
+const TRY_AGAIN_LATER = new Set([401, 408, 429]);
+
+/**
+ * Sends one change; a network failure, a server error or an answer that may pass (401, 408,
+ * 429) leaves it waiting; any other refusal (4xx but a 409 conflict) is final.
+ */
 export async function send(change: QueuedChange): Promise<SendOutcome> {
 	let response: Response;
 	try {
@@ -71,7 +92,7 @@ export async function send(change: QueuedChange): Promise<SendOutcome> {
 	} catch {
 		return { kind: 'offline' };
 	}
-	if (response.status >= 500) return { kind: 'offline' };
+	if (response.status >= 500 || TRY_AGAIN_LATER.has(response.status)) return { kind: 'offline' };
 	const body = (await response.json().catch(() => ({}))) as {
 		sheet?: TabletSheet;
 		current?: TabletSheet;

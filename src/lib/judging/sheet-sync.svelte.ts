@@ -5,7 +5,7 @@
  */
 import { isSheetComplete, runningTotal } from '$lib/domain/judging';
 import type { ScaleOfPoints } from '$lib/domain/scoring';
-import { acknowledge, drop, enqueue, newChangeId, readQueue, send } from './queue';
+import { acknowledge, drop, enqueue, newChangeId, readQueue, send, setAside } from './queue';
 import type { QueuedChange, TabletSheet } from './types';
 
 export type SyncStatus = 'saved' | 'saving' | 'waiting' | 'conflict';
@@ -157,8 +157,9 @@ export class SheetSync {
 					this.known[next.entryId] = outcome.current.version;
 					this.sheets[next.entryId] = outcome.current;
 				} else {
-					await drop({ changeId: next.changeId });
-					this.refusal = outcome.message;
+					// Refused for good: set aside (kept, never resent) so later saves go on.
+					await setAside(next);
+					this.refusal = `${outcome.message} This change was set aside; the later ones are sent.`;
 				}
 			}
 		} finally {

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { text } from './text';
 import { awardRulesFrom, MAX_HONORABLE_MENTIONS, type AwardRules } from '$lib/domain/awards';
 
 const points = (what: string) =>
@@ -24,15 +25,15 @@ export const awardRulesSchema = z.object({
 	}),
 	bestInClassMin: points('Best in class minimum').nullable(),
 	tieBreak: z.object({
-		criterionKey: z.string().trim().min(1).max(60).nullable(),
+		criterionKey: text().trim().min(1).max(60).nullable(),
 		useJudgesChoice: z.boolean()
 	}),
 	sweepstakesTieBreak: z.enum(['none', 'most_red', 'highest_total'], 'Choose a tie-break.'),
 	topAwards: z
 		.array(
 			z.object({
-				id: z.string().trim().min(1).max(80),
-				name: z.string().trim().min(1, 'Name the top award.').max(160),
+				id: text().trim().min(1).max(80),
+				name: text().trim().min(1, 'Name the top award.').max(160),
 				classIds: z.array(z.uuid()).min(1, 'Choose at least one class.'),
 				minScore: points('Top award minimum')
 			})

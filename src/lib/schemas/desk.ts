@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { CONTROL_CHARS_MESSAGE, hasNoControlChars } from './text';
+import { CONTROL_CHARS_MESSAGE, hasNoControlChars, text } from './text';
 import { LENGTH_UNITS } from '$lib/domain/units';
 
 const measure = (label: string, max: number) =>
@@ -26,8 +26,7 @@ export const moveSchema = z.object({ classId: z.uuid('Choose a class.') });
 
 /** Form: scratch an entry, with a short reason for the record. */
 export const scratchSchema = z.object({
-	reason: z
-		.string()
+	reason: text()
 		.trim()
 		.min(2, 'Say briefly why.')
 		.max(240, 'Keep the reason short.')
@@ -38,7 +37,7 @@ export const scratchSchema = z.object({
 export const entriesQuerySchema = z.object({
 	sort: z.enum(['number', 'class', 'variety', 'exhibitor', 'status', 'checkedIn']).catch('number'),
 	dir: z.enum(['asc', 'desc']).catch('asc'),
-	q: z.string().trim().max(80).catch(''),
+	q: text().trim().max(80).catch(''),
 	classId: z.uuid().or(z.literal('')).catch(''),
 	status: z.enum(['', 'entered', 'checked_in', 'scratched', 'withdrawn']).catch(''),
 	page: z.coerce.number().int().min(0).max(10_000).catch(0),

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { CONTROL_CHARS_MESSAGE, hasNoControlChars } from './text';
+import { CONTROL_CHARS_MESSAGE, hasNoControlChars, text } from './text';
 import { NOT_JUDGED_REASONS } from '$lib/domain/scoring';
 
 /**
@@ -11,12 +11,12 @@ export const sheetChangeSchema = z.object({
 	changeId: z.uuid('Each change needs an id.'),
 	entryId: z.uuid('Unknown entry.'),
 	baseVersion: z.int('The sheet version must be a whole number.').min(0).max(1_000_000),
-	deductions: z.record(z.string().max(60), z.unknown(), 'Deductions must be a list of points.'),
-	comment: z.string().max(1000, 'Keep the comment under 1,000 characters.').default(''),
+	deductions: z.record(text().max(60), z.unknown(), 'Deductions must be a list of points.'),
+	comment: text().max(1000, 'Keep the comment under 1,000 characters.').default(''),
 	notJudged: z
 		.object({
 			reason: z.enum(NOT_JUDGED_REASONS, 'Choose why the entry is not judged.'),
-			note: z.string().trim().max(200, 'Keep the note under 200 characters.').default('')
+			note: text().trim().max(200, 'Keep the note under 200 characters.').default('')
 		})
 		.nullable()
 		.default(null),
@@ -32,8 +32,7 @@ export type SheetChange = z.infer<typeof sheetChangeSchema>;
 
 /** Form: a new panel. */
 export const panelNameSchema = z.object({
-	name: z
-		.string()
+	name: text()
 		.trim()
 		.min(1, 'Name the panel.')
 		.max(80, 'Keep the name under 80 characters.')

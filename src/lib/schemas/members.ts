@@ -1,15 +1,15 @@
 import { z } from 'zod';
+import { text } from './text';
 import { ROLES } from '$lib/roles';
 
-const email = z
-	.string('Enter an e-mail address.')
+const email = text('Enter an e-mail address.')
 	.trim()
 	.toLowerCase()
 	.pipe(z.email('Enter a complete e-mail address, like name@example.org.'));
 
 /** The admin's members table: search, filters, sorting and paging, as sent to the API. */
 export const memberQuerySchema = z.object({
-	q: z.string().trim().max(120, 'Keep the search under 120 characters.').optional().default(''),
+	q: text().trim().max(120, 'Keep the search under 120 characters.').optional().default(''),
 	role: z.enum(ROLES, 'Unknown role.').optional(),
 	standing: z.enum(['current', 'lapsed', 'none'], 'Unknown standing.').optional(),
 	sort: z
@@ -37,7 +37,7 @@ export function parseMemberQuery(searchParams: URLSearchParams) {
 export const inviteSchema = z.object({
 	societyId: z.uuid('Choose a society.'),
 	email,
-	name: z.string().trim().max(120, 'Keep the name under 120 characters.').optional().default(''),
+	name: text().trim().max(120, 'Keep the name under 120 characters.').optional().default(''),
 	roles: z.array(z.enum(ROLES, 'Unknown role.')).max(ROLES.length)
 });
 

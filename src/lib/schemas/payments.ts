@@ -1,18 +1,17 @@
 import { z } from 'zod';
+import { text } from './text';
 import { isIsoDate } from '$lib/domain/dates';
 import { ENTRY_FEE_REFUNDS } from '$lib/domain/dues';
 import { CURRENCIES, parseAmountToCents } from '$lib/domain/money';
 
 const isoDate = (message: string) =>
-	z
-		.string(message)
+	text(message)
 		.trim()
 		.refine((v) => isIsoDate(v), message);
 
 /** An amount typed as "25" or "25.00", read into whole cents. */
 const amount = (options: { allowZero: boolean }) =>
-	z
-		.string('Enter an amount, like 25.00.')
+	text('Enter an amount, like 25.00.')
 		.transform((v, ctx) => {
 			const cents = parseAmountToCents(v);
 			if (cents === null) {
@@ -28,8 +27,7 @@ const amount = (options: { allowZero: boolean }) =>
 export const duesPeriodSchema = z
 	.object({
 		societyId: z.uuid('Choose a society.'),
-		label: z
-			.string('Name the period, like "Membership year 2027".')
+		label: text('Name the period, like "Membership year 2027".')
 			.trim()
 			.min(2, 'Name the period, like "Membership year 2027".')
 			.max(120, 'Keep the name under 120 characters.'),

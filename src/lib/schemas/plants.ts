@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { text } from './text';
 import { addCalendarDays, compareIsoDates, isIsoDate, todayIn } from '$lib/domain/dates';
 import { OBTAINED_HOW, PLANT_EVENT_KINDS, PROPAGATED } from '$lib/domain/readiness';
 import { toInches } from '$lib/domain/units';
@@ -8,8 +9,7 @@ import { toInches } from '$lib/domain/units';
  * in any time zone (up to UTC+14) can give their own today.
  */
 const pastDate = (what: string) =>
-	z
-		.string(`Give the date ${what}.`)
+	text(`Give the date ${what}.`)
 		.trim()
 		.refine((d) => isIsoDate(d) && d >= '1900-01-01', {
 			error: `Give the date ${what} as a real date.`,
@@ -21,15 +21,13 @@ const pastDate = (what: string) =>
 		);
 
 const optionalText = (max: number, what: string) =>
-	z
-		.string()
+	text()
 		.trim()
 		.max(max, `Keep the ${what} under ${max} characters.`)
 		.optional()
 		.transform((v) => (v ? v : null));
 
-const optionalId = z
-	.string()
+const optionalId = text()
 	.trim()
 	.optional()
 	.transform((v) => (v ? v : null))
@@ -39,8 +37,7 @@ const optionalId = z
 function optionalLength(what: string, min: number, max: number) {
 	return z
 		.object({
-			value: z
-				.string()
+			value: text()
 				.trim()
 				.optional()
 				.transform((v) => (v ? v.replace(',', '.') : '')),
@@ -90,8 +87,7 @@ export const plantEventSchema = z
 		kind: z.enum(PLANT_EVENT_KINDS, 'Choose what you did.'),
 		happenedOn: pastDate('it happened'),
 		diameter: optionalLength('diameter', 0.5, 40),
-		crowns: z
-			.string()
+		crowns: text()
 			.trim()
 			.optional()
 			.transform((v) => (v ? Number(v) : null))

@@ -1,10 +1,10 @@
 import { z } from 'zod';
+import { text } from './text';
 import { isIsoDate } from '$lib/domain/dates';
 import { CONTROL_CHARS_MESSAGE, hasNoControlChars } from './text';
 
 const isoDate = (label: string) =>
-	z
-		.string({ error: `Give the ${label}.` })
+	text({ error: `Give the ${label}.` })
 		.trim()
 		.refine((v) => isIsoDate(v), `Give the ${label} as a date (YYYY-MM-DD).`);
 
@@ -20,9 +20,9 @@ const score = (label: string) => wholeNumber(label, 0, 100);
 /** Form: a show's dates, venue and rules, as the show chair sets them. */
 export const showSettingsSchema = z
 	.object({
-		name: z.string().trim().min(3, 'Give the show a name.').max(160, 'Keep the name short.'),
-		venue: z.string().trim().max(240, 'Keep the venue under 240 characters.'),
-		publicHours: z.string().trim().max(240, 'Keep the public hours under 240 characters.'),
+		name: text().trim().min(3, 'Give the show a name.').max(160, 'Keep the name short.'),
+		venue: text().trim().max(240, 'Keep the venue under 240 characters.'),
+		publicHours: text().trim().max(240, 'Keep the public hours under 240 characters.'),
 		entriesOpen: isoDate('day entries open'),
 		entriesClose: isoDate('day entries close'),
 		entryDay: isoDate('entry day'),
@@ -68,12 +68,8 @@ export type ShowSettingsInput = z.infer<typeof showSettingsSchema>;
 
 /** Form: a division of the schedule. */
 export const divisionSchema = z.object({
-	code: z
-		.string()
-		.trim()
-		.min(1, 'Give the division a code, like IV.')
-		.max(8, 'Keep the code short.'),
-	name: z.string().trim().min(2, 'Give the division a name.').max(160, 'Keep the name short.'),
+	code: text().trim().min(1, 'Give the division a code, like IV.').max(8, 'Keep the code short.'),
+	name: text().trim().min(2, 'Give the division a name.').max(160, 'Keep the name short.'),
 	kind: z.enum(['horticulture', 'design', 'other'], 'Choose horticulture, design or other.')
 });
 export type DivisionInput = z.infer<typeof divisionSchema>;
@@ -103,8 +99,7 @@ const optionalWhole = (label: string, min: number, max: number) =>
 	);
 
 /** Words typed as a comma-separated list: trimmed, lower case, no blanks or repeats. */
-export const wordList = z
-	.string()
+export const wordList = text()
 	.max(400, 'Keep the list shorter.')
 	.transform((v) => [
 		...new Set(
@@ -120,13 +115,9 @@ export const wordList = z
 export const classSchema = z
 	.object({
 		divisionId: z.uuid('Choose a division.'),
-		code: z
-			.string()
-			.trim()
-			.min(1, 'Give the class a code, like 12.')
-			.max(8, 'Keep the code short.'),
-		name: z.string().trim().min(2, 'Give the class a name.').max(160, 'Keep the name short.'),
-		description: z.string().trim().max(2000, 'Keep the description shorter.'),
+		code: text().trim().min(1, 'Give the class a code, like 12.').max(8, 'Keep the code short.'),
+		name: text().trim().min(2, 'Give the class a name.').max(160, 'Keep the name short.'),
+		description: text().trim().max(2000, 'Keep the description shorter.'),
 		habit: z.enum(['single_crown', 'trailer', 'any'], 'Choose single crown, trailer or either.'),
 		sizeClasses: z.array(z.enum(SIZE_CLASSES, 'Unknown size class.')).max(4),
 		blossomTypes: wordList,

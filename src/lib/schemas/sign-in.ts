@@ -1,16 +1,15 @@
 import { z } from 'zod';
+import { text } from './text';
 
 /** Only paths inside Crownbench may follow a sign-in (no open redirects). */
-export const safeNextPath = z
-	.string()
+export const safeNextPath = text()
 	.regex(/^\/(?![/\\])[^\s]*$/, 'Not a path inside Crownbench.')
 	.max(500)
 	.catch('/home');
 
 /** The sign-in form: an e-mail address, and where to go afterwards. */
 export const signInSchema = z.object({
-	email: z
-		.string({ error: 'Enter your e-mail address.' })
+	email: text({ error: 'Enter your e-mail address.' })
 		.trim()
 		.min(1, 'Enter your e-mail address.')
 		.max(254, 'That address is too long.')

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { text } from './text';
 import { SIZE_CLASSES, wordList } from './show';
 
 const HABIT_WORDS: Record<string, 'single_crown' | 'trailer'> = {
@@ -10,41 +11,36 @@ const HABIT_WORDS: Record<string, 'single_crown' | 'trailer'> = {
 
 /** A variety of the registry, as a form or a CSV row gives it. */
 export const varietySchema = z.object({
-	name: z
-		.string()
+	name: text()
 		.trim()
 		.min(1, 'Give the variety name.')
 		.max(120, 'Keep the name under 120 characters.'),
-	hybridizer: z.string().trim().max(120, 'Keep the hybridizer under 120 characters.'),
-	habit: z
-		.string({ error: 'Give the habit: single crown or trailer.' })
+	hybridizer: text().trim().max(120, 'Keep the hybridizer under 120 characters.'),
+	habit: text({ error: 'Give the habit: single crown or trailer.' })
 		.trim()
 		.toLowerCase()
 		.transform((v) => HABIT_WORDS[v.replace(/-/g, ' ')] ?? HABIT_WORDS[v])
 		.refine((v) => v !== undefined, 'Give the habit as single crown or trailer.')
 		.transform((v) => v as 'single_crown' | 'trailer'),
-	sizeClass: z
-		.string({ error: 'Give the size class.' })
+	sizeClass: text({ error: 'Give the size class.' })
 		.trim()
 		.toLowerCase()
 		.pipe(
 			z.enum(SIZE_CLASSES, 'Give the size class as miniature, semiminiature, standard or large.')
 		),
-	blossomType: z
-		.string({ error: 'Give the blossom type.' })
+	blossomType: text({ error: 'Give the blossom type.' })
 		.trim()
 		.toLowerCase()
 		.min(1, 'Give the blossom type, like single or double.')
 		.max(24, 'Keep the blossom type under 24 characters.'),
 	blossomColours: wordList,
-	foliage: z
-		.string()
+	foliage: text()
 		.trim()
 		.toLowerCase()
 		.transform((v) => v || 'plain')
 		.pipe(z.enum(['plain', 'variegated'], 'Give the foliage as plain or variegated.')),
 	isSpecies: z.boolean(),
-	description: z.string().trim().max(2000, 'Keep the description under 2000 characters.')
+	description: text().trim().max(2000, 'Keep the description under 2000 characters.')
 });
 export type VarietyInput = z.infer<typeof varietySchema>;
 

@@ -32,6 +32,73 @@ export function findSessionUser(token: string) {
 	});
 }
 
+/** The app's public address (`AUTH_URL`, else `ORIGIN`): every sign-in link is made from it. */
+export function publicOrigin(): string | undefined {
+	const configured = process.env.AUTH_URL || process.env.ORIGIN;
+	return configured ? new URL(configured).origin : undefined;
+}
+
+/** `AUTH_TRUST_HOST=true`: a proxy in front sets Host and X-Forwarded-Host, and Auth.js reads them. */
+function trustsProxyHost(): boolean {
+	return process.env.AUTH_TRUST_HOST === 'true';
+}
+
+/** True when a Host header value is a plain host[:port] that a URL can be made of. */
+function isPlainHost(value: string | null): boolean {
+	if (!value || !/^[a-z0-9.\-[\]:]+$/i.test(value)) return false;
+	try {
+		return new URL(`http://${value}`).host !== '';
+	} catch {
+		return false;
+	}
+}
+
+/**
+ * Makes Auth.js see the request at the public address: without a trusted proxy, Host is set to
+ * the configured address and the X-Forwarded-Host/-Proto a client sent are dropped, so no header
+ * can point a mailed link elsewhere. Returns false when the host Auth.js would read is malformed
+ * (a trusted proxy's header, or no configured address): the request is then refused with 400.
+ */
+export function pinToPublicAddress(headers: Headers): boolean {
+	const origin = publicOrigin();
+	if (origin && !trustsProxyHost()) {
+		// The Request's headers are mutable here; Auth.js reads this same object.
+		headers.set('host', new URL(origin).host);
+		headers.delete('x-forwarded-host');
+		headers.delete('x-forwarded-proto');
+		return true;
+	}
+	return isPlainHost(headers.get('x-forwarded-host') ?? headers.get('host'));
+}
+
+/** The cookie Auth.js keeps the after-sign-in address in, under both its names. */
+const CALLBACK_COOKIES = ['authjs.callback-url', '__Secure-authjs.callback-url'];
+
+/**
+ * False when an Auth.js request carries an after-sign-in address (query or cookie) that is no
+ * http(s) address, like `javascript:…`: Auth.js answers those as a set-up error (500).
+ */
+export function hasValidCallbackUrl(
+	url: URL,
+	cookie: (name: string) => string | undefined
+): boolean {
+	if (!url.pathname.startsWith('/auth/')) return true;
+	const values = [url.searchParams.get('callbackUrl'), ...CALLBACK_COOKIES.map(cookie)];
+	return values.every((value) => {
+		if (!value) return true;
+		try {
+			return ['http:', 'https:'].includes(new URL(value, url.origin).protocol);
+		} catch {
+			return false;
+		}
+	});
+}
+
+/** Auth.js's own way to ask for a link, closed: every request goes through /signin's checks. */
+export function isClosedAuthPath(method: string, path: string): boolean {
+	return method === 'POST' && (path === '/auth/signin' || path.startsWith('/auth/signin/'));
+}
+
 function authSecret(): string | undefined {
 	if (process.env.AUTH_SECRET) return process.env.AUTH_SECRET;
 	// Development only: production refuses to start without AUTH_SECRET (Auth.js checks).
@@ -71,12 +138,16 @@ export const {
 		updateAge: SESSION_UPDATE_AGE_SECONDS
 	},
 	secret: authSecret(),
+	// Auth.js refuses every request without this; pinToPublicAddress (hooks) decides which host it sees.
 	trustHost: true,
 	pages: { signIn: '/signin', verifyRequest: '/signin/check-mail', error: '/signin/problem' },
 	callbacks: {
-		session({ session, user }) {
-			session.user.id = user.id;
-			return session;
+		// What GET /auth/session tells page scripts: no session token and no internal ids.
+		session({ session }) {
+			return {
+				expires: session.expires,
+				user: { name: session.user?.name ?? null, email: session.user?.email ?? '' }
+			} as typeof session;
 		}
 	}
 });

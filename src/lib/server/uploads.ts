@@ -1,4 +1,6 @@
+import type { Transaction } from 'sequelize';
 import { PHOTO_LIMITS } from '$lib/uploads';
+import { sequelize } from './db';
 
 export { PHOTO_LIMITS };
 
@@ -44,4 +46,19 @@ export function readOnePhoto(
 		};
 	}
 	return { ok: true, file };
+}
+
+/**
+ * Holds the photo count of one entry or plant until the transaction ends (a transaction-scoped
+ * advisory lock): parallel uploads then count and insert one after another, so none passes the limit.
+ */
+export async function lockPhotosOf(
+	kind: 'entry' | 'plant',
+	id: string,
+	transaction: Transaction
+): Promise<void> {
+	await sequelize.query('SELECT pg_advisory_xact_lock(hashtext(:key))', {
+		replacements: { key: `photos:${kind}:${id}` },
+		transaction
+	});
 }

@@ -12,7 +12,13 @@ export const load: PageServerLoad = ({ locals, url }) => {
 
 export const actions: Actions = {
 	default: async (event) => {
-		const form = Object.fromEntries(await event.request.clone().formData());
+		const body = await event.request
+			.clone()
+			.formData()
+			.catch(() => null);
+		if (!body)
+			return fail(400, { email: '', message: 'Send the form as a form (it could not be read).' });
+		const form = Object.fromEntries(body);
 		const parsed = signInSchema.safeParse(form);
 		if (!parsed.success) {
 			const errors = parsed.error.flatten().fieldErrors;

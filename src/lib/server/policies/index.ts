@@ -52,6 +52,15 @@ export function requireRole(
 	return user;
 }
 
+/** A path as SvelteKit's routing reads it (decoded as its decode_pathname does: %25 and %2F kept). */
+export function routedPath(pathname: string): string {
+	try {
+		return pathname.split('%25').map(decodeURI).join('%25');
+	} catch {
+		return pathname;
+	}
+}
+
 /** Which roles each area of the app needs; the guard in hooks.server.ts applies it to pages and APIs. */
 export const AREA_ROLES: Record<string, readonly Role[] | 'signed-in'> = {
 	admin: ['admin'],
@@ -65,7 +74,8 @@ export const AREA_ROLES: Record<string, readonly Role[] | 'signed-in'> = {
 
 /** The area a path belongs to (its first segment, after /api/), or null for public paths. */
 export function areaOf(pathname: string): string | null {
-	const parts = pathname.split('/').filter(Boolean);
+	// Decided on the path as routing reads it: /api/%6Audging is /api/judging.
+	const parts = routedPath(pathname).split('/').filter(Boolean);
 	const first = parts[0] === 'api' ? parts[1] : parts[0];
 	return first && first in AREA_ROLES ? first : null;
 }

@@ -12,7 +12,7 @@ import {
 } from '$lib/domain/eligibility';
 import type { EntryRequest } from '$lib/schemas/entry';
 import { recordAudit } from '../audit';
-import { Entry, Show, ShowClass, Variety, sequelize } from '../db';
+import { Division, Entry, Show, ShowClass, Variety, sequelize } from '../db';
 import { classRulesOf } from './schedule';
 import { MEMBERSHIP_PAGE, isInGoodStanding } from './standing';
 import { initialFeeStatus } from '$lib/domain/dues';
@@ -142,8 +142,22 @@ async function resolve(
 		ShowClass.findOne({ where: { id: input.classId, showId: show.id }, transaction }),
 		Variety.findOne({ where: { id: input.varietyId, societyId: show.societyId }, transaction })
 	]);
+	if (!show.schedulePublishedAt) {
+		throw new EntryInputProblem('There is no show at this address.', 'showSlug');
+	}
 	if (!showClass)
 		throw new EntryInputProblem('That class is not in this show’s schedule.', 'classId');
+	// Members enter plants in horticulture classes only, as the entry form offers them.
+	const division = await Division.findByPk(showClass.divisionId, {
+		attributes: ['kind'],
+		transaction
+	});
+	if (division?.kind !== 'horticulture') {
+		throw new EntryInputProblem(
+			'That class does not take plant entries from members; ask the show chair.',
+			'classId'
+		);
+	}
 	if (!variety)
 		throw new EntryInputProblem('That variety is not in the society’s registry.', 'varietyId');
 	return { show, showClass, variety };

@@ -499,10 +499,11 @@ export async function saveSheet(
 			> & { show_id: string | null }
 		>(client, SAVE_LOCK, { entryId: change.entryId, userId: actor.id });
 		if (!entry) throw new Refusal('This entry is not in your classes.', 403);
+		// Who may save is checked first: a person outside the class learns nothing, not even 423.
+		const access = toAccess(entry.show_id ? (entry as AccessRow) : undefined, entry.class_id);
 		if (entry.locked) {
 			throw new Refusal('Results are published: scores are locked and cannot change.', 423);
 		}
-		const access = toAccess(entry.show_id ? (entry as AccessRow) : undefined, entry.class_id);
 		const kind = sheetKindFor(access);
 		if (!kind) {
 			throw new Refusal(

@@ -6,7 +6,7 @@ import sharp from 'sharp';
 import type { Transaction } from 'sequelize';
 import { recordAudit, type AuditActor } from '../audit';
 import { Entry, EntryPhoto, Show } from '../db';
-import { PHOTO_LIMITS } from '../uploads';
+import { lockPhotosOf, PHOTO_LIMITS } from '../uploads';
 
 /** Largest photo we accept, in bytes (PHOTO_LIMITS). */
 export const MAX_PHOTO_BYTES = PHOTO_LIMITS.maxBytes;
@@ -50,6 +50,7 @@ export async function addEntryPhoto(
 			`That file is ${(file.size / 1024 / 1024).toFixed(1)} MB; a photo may be at most ${MAX_PHOTO_BYTES / 1024 / 1024} MB.`
 		);
 	}
+	await lockPhotosOf('entry', entry.id, transaction);
 	const count = await EntryPhoto.count({ where: { entryId: entry.id }, transaction });
 	if (count >= MAX_PHOTOS_PER_ENTRY) {
 		throw new PhotoProblem(`An entry may have at most ${MAX_PHOTOS_PER_ENTRY} photos.`);

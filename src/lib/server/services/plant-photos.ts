@@ -7,7 +7,7 @@ import type { Transaction } from 'sequelize';
 import { recordAudit } from '../audit';
 import { Plant, PlantPhoto } from '../db';
 import { PlantInputError } from './plants';
-import { PHOTO_LIMITS } from '../uploads';
+import { lockPhotosOf, PHOTO_LIMITS } from '../uploads';
 
 /** Largest photo accepted, before it is scaled down (PHOTO_LIMITS). */
 export const PHOTO_MAX_BYTES = PHOTO_LIMITS.maxBytes;
@@ -59,6 +59,7 @@ export async function addPlantPhoto(
 			`This photo is ${(file.size / 1024 / 1024).toFixed(1)} MB; photos can be up to ${PHOTO_MAX_BYTES / 1024 / 1024} MB.`
 		);
 	}
+	await lockPhotosOf('plant', plantId, transaction);
 	const count = await PlantPhoto.count({ where: { plantId }, transaction });
 	if (count >= PHOTO_LIMITS.perPlant) {
 		throw new PlantInputError(

@@ -1,4 +1,5 @@
 import { error, json } from '@sveltejs/kit';
+import { text } from '$lib/schemas/text';
 import { z } from 'zod';
 import { requireUser } from '$lib/server/policies';
 import { searchVarieties } from '$lib/server/services/varieties';
@@ -6,7 +7,7 @@ import type { RequestHandler } from './$types';
 
 const query = z.object({
 	society: z.uuid('Say which society’s registry to search.'),
-	q: z.string().max(80, 'Search with fewer than 80 characters.').default('')
+	q: text().max(80, 'Search with fewer than 80 characters.').default('')
 });
 
 /** Search-as-you-type in a society's variety registry, for anyone who belongs to the society. */

@@ -2,12 +2,22 @@ import { error, redirect } from '@sveltejs/kit';
 import { Entry } from '$lib/server/db';
 import { hasRole, requireUser } from '$lib/server/policies';
 import { findShowOr404 } from '$lib/server/policies/show';
+import { classOfEntry } from '$lib/server/services/judging';
+import { isRefusal } from '$lib/server/services/refusal';
 import type { RequestHandler } from './$types';
 
 /**
  * Where an entry tag's QR code leads: a judge of the society to the judging page of the entry,
  * a clerk or chair to the entry at the desk, anyone else to sign-in or a refusal.
  */
+/** A refusal becomes the value; anything else (the database down, say) is thrown on. */
+const refusedAs =
+	<T>(value: T) =>
+	(err: unknown): T => {
+		if (isRefusal(err)) return value;
+		throw err;
+	};
+
 export const GET: RequestHandler = async (event) => {
 	const user = requireUser(event);
 	const show = await findShowOr404(event.params.slug);
@@ -18,7 +28,10 @@ export const GET: RequestHandler = async (event) => {
 	}
 	if (hasRole(user, ['judge'], show.societyId)) {
 		const entry = await Entry.findOne({ where: { showId: show.id, number }, attributes: ['id'] });
-		if (!entry) error(404, `There is no entry ${event.params.number} in this show.`);
+		// An entry outside the judge's classes answers as one that does not exist.
+		const open =
+			entry && (await classOfEntry(user.id, entry.id).then(() => true, refusedAs(false)));
+		if (!entry || !open) error(404, `There is no entry ${event.params.number} in this show.`);
 		redirect(303, `/judging/entry/${entry.id}`);
 	}
 	error(403, 'Only the show’s clerks, chair and judges can open an entry from its tag.');

@@ -1,4 +1,4 @@
-import { fail } from '@sveltejs/kit';
+import { error, fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { entryRequestSchema } from '$lib/schemas/entry';
 import { sequelize } from '$lib/server/db';
@@ -20,6 +20,8 @@ import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	const { show, user } = await requireShowRole(event, event.params.slug, ['member']);
+	// A show whose schedule is not published is not there yet, for members as for the public.
+	if (!show.schedulePublishedAt) error(404, 'There is no show at this address.');
 	const [divisions, entries, today] = await Promise.all([
 		loadSchedule(show.id),
 		listMyEntriesInShow(show.id, user.id),
