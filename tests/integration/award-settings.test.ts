@@ -108,7 +108,9 @@ describe('a show with its own award settings, published', () => {
 			'Panel score: mean of the judges, half up to whole points',
 			'Top awards: one per plant, in the order listed'
 		]);
-		const parser = new PDFParse({ data: new Uint8Array(await renderAwardSheets(results!, 'letter')) });
+		const parser = new PDFParse({
+			data: new Uint8Array(await renderAwardSheets(results!, 'letter'))
+		});
 		const text = (await parser.getText()).text.replace(/\s+/g, ' ');
 		await parser.destroy();
 		expect(text).toContain(

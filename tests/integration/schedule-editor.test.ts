@@ -148,6 +148,19 @@ const snapshot = async (table: 'classes' | 'scales', where: string, p: Record<st
 		type: QueryTypes.SELECT
 	});
 
+/**
+ * Runs entry checks on the show with its schedule public (members enter only a published
+ * schedule), then takes it back to planning, written directly so the schedule tests can go on.
+ */
+async function whilePublished<T>(run: () => Promise<T>): Promise<T> {
+	await theShow.update({ schedulePublishedAt: new Date() });
+	try {
+		return await run();
+	} finally {
+		await theShow.update({ schedulePublishedAt: null });
+	}
+}
+
 let societyA: string;
 let societyB: string;
 let exhibitor: string;
@@ -226,7 +239,7 @@ describe('the class form saves every rule, and the entry check uses them', () =>
 		judging.setUTCMonth(judging.getUTCMonth() - 4);
 		const acquiredOn = judging.toISOString().slice(0, 10);
 		const request = { showSlug: theShow.slug, classId, varietyId: plantA, acquiredOn };
-		const verdict = await previewEntry(theShow, exhibitor, request);
+		const verdict = await whilePublished(() => previewEntry(theShow, exhibitor, request));
 		expect(verdict.failures.map((f) => f.code)).toEqual(['possession_period_not_reached']);
 		expect(verdict.failures[0].message).toMatch(/this class asks/i);
 	});
@@ -248,9 +261,11 @@ describe('the class form saves every rule, and the entry check uses them', () =>
 			varietyId,
 			acquiredOn: '2020-01-01'
 		});
-		await enterPlant(theShow.id, exhibitor, at(plantA));
-		await expect(enterPlant(theShow.id, exhibitor, at(plantB))).rejects.toThrow(EntryRefused);
-		const verdict = await previewEntry(theShow, exhibitor, at(plantB));
+		const verdict = await whilePublished(async () => {
+			await enterPlant(theShow.id, exhibitor, at(plantA));
+			await expect(enterPlant(theShow.id, exhibitor, at(plantB))).rejects.toThrow(EntryRefused);
+			return previewEntry(theShow, exhibitor, at(plantB));
+		});
 		expect(verdict.failures.map((f) => f.code)).toEqual(['class_entry_limit_reached']);
 	});
 
@@ -497,6 +512,7 @@ describe('the schedule PDF', () => {
 		expect(text).toContain('No supports or collars.');
 		expect(text).toContain('Show committee');
 		expect(text).toContain(`Hestia Varnum ${tag}`);
-		expect(text).toContain('largest pot 5.5 in');
+		// Lengths print in the society's unit first, the other after (1 in = 2.54 cm, NIST SP 811).
+		expect(text.replace(/\s+/g, ' ')).toContain('largest pot 5.5 in (14 cm)');
 	});
 });

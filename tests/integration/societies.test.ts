@@ -1,3 +1,4 @@
+import { defaultScales } from '../../src/lib/domain/scales';
 import { execFile } from 'node:child_process';
 import { promisify } from 'node:util';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -88,12 +89,21 @@ describe('starting a society through the service', () => {
 		// The default scale: "A Beginner's Guide to Judging", African Violet Magazine, May/June
 		// 1993, rev. 2020 (symmetry or leaf pattern 25, condition 25, quantity of bloom 25, size and
 		// type of blossom 15, color of blossom 10).
-		const scales = await Scale.findAll({ where: { societyId: society.id } });
-		expect(scales).toHaveLength(1);
-		expect(scales[0].criteria.map((c) => c.maxPoints)).toEqual([25, 25, 25, 15, 10]);
+		// Each default scale comes as the society's own copy, the published one first.
+		const scales = await Scale.findAll({
+			where: { societyId: society.id },
+			order: [['createdAt', 'ASC']]
+		});
+		expect(scales.map((s) => s.name).sort()).toEqual(
+			defaultScales()
+				.map((d) => d.name)
+				.sort()
+		);
+		const standard = scales.find((s) => s.name === defaultScales()[0].name)!;
+		expect(standard.criteria.map((c) => c.maxPoints)).toEqual([25, 25, 25, 15, 10]);
 		// An editable copy: changing it leaves every other society's scales as they were.
 		const shared = await Scale.count({ where: { societyId: null } });
-		await scales[0].update({ name: 'Our standard scale' });
+		await standard.update({ name: 'Our standard scale' });
 		expect(await Scale.count({ where: { societyId: null } })).toBe(shared);
 
 		// Award rules: the defaults (merit ribbons blue 90, red 80, white 70, from memory of the
@@ -281,7 +291,7 @@ describe('npm run society -- create (the command line)', () => {
 			where: { societyId: society.id, userId: admin.id }
 		}))!;
 		expect([...membership.roles].sort()).toEqual(['admin', 'member']);
-		expect(await Scale.count({ where: { societyId: society.id } })).toBe(1);
+		expect(await Scale.count({ where: { societyId: society.id } })).toBe(defaultScales().length);
 	});
 
 	it.each([
