@@ -29,8 +29,8 @@ const DIVISIONS = [
 ];
 const CLASSES = [
 	{ code: '1', division: 'A', name: 'Standard, blue or purple blossoms', habit: 'single_crown' },
-	{ code: '2', division: 'A', name: 'Standard, any other colour', habit: 'single_crown' },
-	{ code: '3', division: 'A', name: 'Semiminiature, any colour', habit: 'single_crown' },
+	{ code: '2', division: 'A', name: 'Standard, any other color', habit: 'single_crown' },
+	{ code: '3', division: 'A', name: 'Semiminiature, any color', habit: 'single_crown' },
 	{ code: '4', division: 'B', name: 'Trailer, any size', habit: 'trailer' }
 ];
 
@@ -51,7 +51,7 @@ const ENTRIES = [
 	['1', 'ex2', 13, 12, 'Dusty lower leaves; bloom a little sparse.', ''],
 	['1', 'ex3', 22, 20, 'Neck showing; leaves out of line.', ''],
 	['2', 'ex1', 3, 3, 'Outstanding: full, even and clean.', 'A crown of bloom.'],
-	['2', 'member', 11, 10, 'Lovely colour; one marked leaf.', ''],
+	['2', 'member', 11, 10, 'Lovely color; one marked leaf.', ''],
 	['2', 'ex4', 18, 17, 'Bloom past its best.', ''],
 	['2', 'ex7', 26, 28, 'Sucker at the base costs symmetry.', ''],
 	['3', 'ex2', 6, 7, 'Neat and well groomed.', ''],

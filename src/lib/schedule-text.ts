@@ -43,7 +43,7 @@ export function describeClass(c: ClassDescribed, unit: LengthUnit): string[] {
 	if (c.habit !== 'any') parts.push(c.habit === 'trailer' ? 'trailers' : 'single crown');
 	if (c.sizeClasses.length) parts.push(`size: ${list(c.sizeClasses)}`);
 	if (c.blossomTypes.length) parts.push(`blossoms: ${list(c.blossomTypes)}`);
-	if (c.blossomColours.length) parts.push(`colour: ${list(c.blossomColours)}`);
+	if (c.blossomColours.length) parts.push(`color: ${list(c.blossomColours)}`);
 	if (c.foliage !== 'any') parts.push(`${c.foliage} foliage`);
 	if (c.minCrowns !== null && c.maxCrowns !== null && c.minCrowns === c.maxCrowns) {
 		parts.push(`${c.minCrowns} crown${c.minCrowns === 1 ? '' : 's'}`);
@@ -131,7 +131,7 @@ export function describeShowRules(
 	rules.push(
 		a.system === 'merit'
 			? `Merit judging: blue ribbon ${a.merit.blue} points and over, red ${a.merit.red} and over, white ${a.merit.white} and over.`
-			: `Placement judging: first place needs ${a.placement.first} points, second ${a.placement.second}, third ${a.placement.third}, honourable mention ${a.placement.honourable}.`
+			: `Placement judging: first place needs ${a.placement.first} points, second ${a.placement.second}, third ${a.placement.third}, honorable mention ${a.placement.honourable}.`
 	);
 	return { dates, rules };
 }

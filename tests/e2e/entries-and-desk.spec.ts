@@ -79,7 +79,7 @@ test('an exhibitor enters a fitting and a non-fitting plant; a clerk measures, m
 	}).toPass({ timeout: 20_000 });
 	await found.click();
 	await expect(clerk.getByRole('heading', { level: 1, name: `Entry ${number}` })).toBeVisible();
-	await clerk.getByLabel('centimetres').check();
+	await clerk.getByLabel('centimeters').check();
 	await clerk.getByLabel('Diameter (cm)').fill('17.8');
 	await clerk.getByLabel('Crowns').fill('1');
 	await clerk.getByLabel('Pot size (cm)').fill('6.4');

@@ -235,7 +235,7 @@ test.describe.serial('a new society from an empty database', () => {
 			await chair.getByLabel('Habit').selectOption({ label: v.habit });
 			await chair.getByLabel('Size class').selectOption(v.size);
 			await chair.getByLabel('Blossom type').fill('single');
-			await chair.getByLabel('Blossom colours').fill('pink');
+			await chair.getByLabel('Blossom colors').fill('pink');
 			await chair.getByRole('button', { name: 'Add to the registry' }).click();
 			await expect(chair.getByText(`“${v.name}” is saved in the registry.`)).toBeVisible();
 		}
@@ -390,7 +390,7 @@ test.describe.serial('a new society from an empty database', () => {
 			clerk.getByRole('heading', { level: 1, name: `Entry ${entryNumber}` })
 		).toBeVisible();
 		// A standard is over 8 in (20.3 cm) across (growers' references, DOMAIN.md): 30 cm fits.
-		await clerk.getByLabel('centimetres').check();
+		await clerk.getByLabel('centimeters').check();
 		await clerk.getByLabel('Diameter (cm)').fill('30');
 		await clerk.getByLabel('Crowns').fill('1');
 		await clerk.getByLabel('Pot size (cm)').fill('11');

@@ -247,7 +247,7 @@ describe('good standing', () => {
 });
 
 describe('the entry desk', () => {
-	it('measures in centimetres, finds a miniature over its limit, and moves it to a class that fits', async () => {
+	it('measures in centimeters, finds a miniature over its limit, and moves it to a class that fits', async () => {
 		const entry = await enterPlant(show.id, userId.exhibitor7, request('15', 'Thimble Harbor'));
 		// 1 in = 2.54 cm exactly, NIST SP 811: 17.78 cm is 7 in, over a miniature's 6 in (growers' references)
 		await sequelize.transaction((transaction) =>

@@ -88,7 +88,7 @@ describe('merit judging', () => {
 		expect(ribbons.map((a) => a.level ?? null)).toEqual(level ? [level] : []);
 	});
 
-	it('gives as many ribbons of each colour as deserved, and best in class to the top blue', () => {
+	it('gives as many ribbons of each color as deserved, and best in class to the top blue', () => {
 		// thresholds: national handbook, from memory (DOMAIN.md)
 		const result = computeAwards({
 			classes: [buildClass('a')],
@@ -481,7 +481,7 @@ describe('honorable mentions under placement judging', () => {
 		// q1 first; q2 and q3 (84) below second's 85, so one would be third: a tie holds open
 		// third place and one honorable mention
 		expect(entryTies(result).map((t) => t.reason)).toEqual([
-			'Entries 12 and 15 in class 7 are tied on 84, and the show sets no tie-break; third place and honourable mention are held open until the judges decide.'
+			'Entries 12 and 15 in class 7 are tied on 84, and the show sets no tie-break; third place and honorable mention are held open until the judges decide.'
 		]);
 		const four = computeAwards({
 			classes: [buildClass('a', { code: '7' })],
@@ -499,7 +499,7 @@ describe('honorable mentions under placement judging', () => {
 			})
 		});
 		expect(four.awards.find((a) => a.entryId === 'r4')?.reason).toBe(
-			'Scored 84, ranked 4th of 5 judged entries in class 7 (level with entry 15), and at or above the honourable mention minimum of 75; each of them gets one.'
+			'Scored 84, ranked 4th of 5 judged entries in class 7 (level with entry 15), and at or above the honorable mention minimum of 75; each of them gets one.'
 		);
 	});
 

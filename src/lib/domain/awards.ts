@@ -20,7 +20,7 @@
  * Rules applied:
  * - Entries that were not judged or have no score get nothing.
  * - Merit judging: every judged entry gets the highest ribbon whose mark it reaches, as many
- *   of each colour as deserved. Best in class is chosen only among blue-ribbon entries.
+ *   of each color as deserved. Best in class is chosen only among blue-ribbon entries.
  * - Placement judging: one first, second and third per class, in order of score, then honorable
  *   mentions as the show sets (`honorableMentions`: one, up to a number, or every entry reaching
  *   the minimum). An entry takes the highest open place whose minimum it reaches; a place nobody
@@ -283,7 +283,7 @@ const LEVEL_WORDS: Record<AwardLevel, string> = {
 	first: 'first place',
 	second: 'second place',
 	third: 'third place',
-	honourable: 'honourable mention'
+	honourable: 'honorable mention'
 };
 
 /**
@@ -634,7 +634,7 @@ function placeSlots(rules: AwardRules, judged: number): PlacementLevel[] {
 	];
 }
 
-/** "honourable mention", or "2 honourable mentions" when several are held open. */
+/** "honorable mention", or "2 honorable mentions" when several are held open. */
 function levelListWords(levels: PlacementLevel[]): string {
 	const words: string[] = [];
 	for (const level of [...new Set(levels)]) {

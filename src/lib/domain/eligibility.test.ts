@@ -178,13 +178,13 @@ describe('checkEligibility: the plant against the class', () => {
 			codes: ['blossom_colour_not_allowed']
 		},
 		{
-			name: 'one listed colour is enough',
+			name: 'one listed color is enough',
 			rules: { blossomColours: ['pink'] },
 			plant: { blossomColours: ['blue', 'Pink'] },
 			codes: []
 		},
 		{
-			name: 'no recorded colour in a colour class',
+			name: 'no recorded color in a color class',
 			rules: { blossomColours: ['pink'] },
 			plant: { blossomColours: [] },
 			codes: ['blossom_colour_not_allowed']
@@ -625,7 +625,7 @@ describe('checkEligibility: messages a grower understands', () => {
 			'This class is for miniature or semiminiature plants, and "Pink Lace Morning" is a standard.'
 		],
 		[
-			'names the colours',
+			'names the colors',
 			{
 				rules: { blossomColours: ['pink', 'coral', 'red'] },
 				plant: { blossomColours: ['blue', 'white'] }

@@ -39,7 +39,7 @@ export interface ClassRules {
 	sizeClasses: SizeClass[];
 	/** Empty = any, e.g. 'single', 'semidouble', 'double', 'star', 'wasp', 'bell', 'fringed'. */
 	blossomTypes: string[];
-	/** Empty = any; a variety fits when any one of its colours is listed. */
+	/** Empty = any; a variety fits when any one of its colors is listed. */
 	blossomColours: string[];
 	foliage: Foliage | 'any';
 	/** Null = no minimum, except that a trailer needs `TRAILER_MIN_CROWNS`. */
@@ -109,7 +109,7 @@ export interface ShowContext {
 	today: IsoDate;
 	/**
 	 * The unit the society reads lengths in. Inches (the default) keep the messages in inches;
-	 * centimetres put cm first with inches in brackets.
+	 * centimeters put cm first with inches in brackets.
 	 */
 	lengthUnit?: LengthUnit;
 	/** First day entries are taken (included). */
@@ -384,7 +384,7 @@ function collectFailures(
 			'blossom_colour_not_allowed',
 			plant.blossomColours.length > 0
 				? `This class is for ${listOf(rules.blossomColours, 'or')} blossoms, and ${name} has ${listOf(plant.blossomColours, 'and')} blossoms.`
-				: `This class is for ${listOf(rules.blossomColours, 'or')} blossoms, and no blossom colour is recorded for ${name}.`
+				: `This class is for ${listOf(rules.blossomColours, 'or')} blossoms, and no blossom color is recorded for ${name}.`
 		);
 	}
 	if (rules.foliage !== 'any' && rules.foliage !== plant.foliage) {

@@ -33,7 +33,7 @@ describe('toInches', () => {
 
 describe('toCentimetres', () => {
 	it.each<[number, LengthUnit, number, string]>([
-		[15, 'cm', 15, 'centimetres pass through'],
+		[15, 'cm', 15, 'centimeters pass through'],
 		[0, 'in', 0, 'zero stays zero'],
 		[1, 'in', 2.54, '1 in = 2.54 cm: NIST SP 811'],
 		[6, 'in', 15.24, '1 in = 2.54 cm: NIST SP 811'],
@@ -97,7 +97,7 @@ describe('isLengthUnit', () => {
 describe('properties', () => {
 	const length = fc.double({ min: 0, max: 1e6, noNaN: true });
 
-	it('converting to centimetres and back returns the same length', () => {
+	it('converting to centimeters and back returns the same length', () => {
 		fc.assert(
 			fc.property(length, (inches) => {
 				const back = toInches(toCentimetres(inches, 'in'), 'cm');
@@ -106,7 +106,7 @@ describe('properties', () => {
 		);
 	});
 
-	it('a length in centimetres is never smaller than the same length in inches', () => {
+	it('a length in centimeters is never smaller than the same length in inches', () => {
 		fc.assert(
 			fc.property(length, (inches) => {
 				expect(toCentimetres(inches, 'in')).toBeGreaterThanOrEqual(inches);
@@ -125,7 +125,7 @@ describe('formatLengthBoth', () => {
 		[2.25, 'in', '2.25 in (5.7 cm)', 'a 2 1/4 in pot = 5.715 cm'],
 		[2.25, 'cm', '5.7 cm (2.25 in)', 'the same pot in cm first'],
 		[5.91, 'cm', '15 cm (5.91 in)', '15 cm typed and stored as 5.91 in = 15.0114 cm'],
-		[1, 'cm', '2.5 cm (1 in)', '1 in = 2.54 cm, to the millimetre'],
+		[1, 'cm', '2.5 cm (1 in)', '1 in = 2.54 cm, to the millimeter'],
 		[0, 'in', '0 in (0 cm)', 'zero stays zero']
 	])('%s in shown with %s first is %s (%s)', (inches, unit, expected) => {
 		expect(formatLengthBoth(inches, unit)).toBe(expected);

@@ -42,7 +42,7 @@ export function toInches(value: number, unit: LengthUnit): number {
 }
 
 /**
- * Converts a length to centimetres, for growers who measure in metric.
+ * Converts a length to centimeters, for growers who measure in metric.
  * Throws a RangeError for a negative or non-finite length.
  */
 export function toCentimetres(value: number, unit: LengthUnit): number {
@@ -63,7 +63,7 @@ export function formatLength(inches: number, unit: LengthUnit, digits = 1): stri
 	return `${value.toFixed(digits)} ${unit}`;
 }
 
-/** Decimals a length is shown with: inches to the hundredth (2 1/4 in pots), cm to the millimetre. */
+/** Decimals a length is shown with: inches to the hundredth (2 1/4 in pots), cm to the millimeter. */
 const SHOWN_DECIMALS: Record<LengthUnit, number> = { in: 2, cm: 1 };
 
 function shownNumber(value: number, unit: LengthUnit): string {
@@ -76,7 +76,7 @@ function shownNumber(value: number, unit: LengthUnit): string {
 /**
  * Shows a length held in inches the way a society reads it: first in its own unit, then the
  * other in brackets, e.g. `6 in (15.2 cm)` or `15.2 cm (6 in)`. Inches keep up to two decimals
- * and centimetres one, without trailing zeros. Throws a RangeError for a negative or non-finite
+ * and centimeters one, without trailing zeros. Throws a RangeError for a negative or non-finite
  * length.
  */
 export function formatLengthBoth(inches: number, first: LengthUnit): string {
@@ -93,7 +93,7 @@ export function unitsFirst(first: LengthUnit): LengthUnit[] {
 
 /**
  * A length held in inches written as a plain number in a unit, for a form field that shows a
- * stored value (inches to the hundredth, centimetres to the millimetre), e.g. 2.25 in → "5.7".
+ * stored value (inches to the hundredth, centimeters to the millimeter), e.g. 2.25 in → "5.7".
  */
 export function lengthInUnit(inches: number, unit: LengthUnit): string {
 	assertUnit(unit);

@@ -7,8 +7,8 @@ import { awardLine } from './labels';
 /** Two classes in one division, scores chosen around the merit marks. */
 function smallShow(): ResultsSource {
 	const classes = [
-		{ id: 'c1', code: '1', name: 'Standard, any colour', divisionId: 'd1' },
-		{ id: 'c2', code: '2', name: 'Miniature, any colour', divisionId: 'd1' }
+		{ id: 'c1', code: '1', name: 'Standard, any color', divisionId: 'd1' },
+		{ id: 'c2', code: '2', name: 'Miniature, any color', divisionId: 'd1' }
 	];
 	const entries: ResultsSource['entries'] = [
 		{ n: 1, c: 'c1', x: 'ann', score: 94 },

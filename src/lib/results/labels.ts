@@ -9,7 +9,7 @@ export const LEVEL_LABELS: Record<AwardLevel, string> = {
 	first: 'First place',
 	second: 'Second place',
 	third: 'Third place',
-	honourable: 'Honourable mention'
+	honourable: 'Honorable mention'
 };
 
 /** Formats a score for people: 92.5, 93; a dash when there is none. */

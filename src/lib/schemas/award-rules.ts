@@ -21,7 +21,7 @@ export const awardRulesSchema = z.object({
 		first: points('First place'),
 		second: points('Second place'),
 		third: points('Third place'),
-		honourable: points('Honourable mention')
+		honourable: points('Honorable mention')
 	}),
 	bestInClassMin: points('Best in class minimum').nullable(),
 	tieBreak: z.object({

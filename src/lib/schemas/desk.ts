@@ -8,7 +8,7 @@ const measure = (label: string, max: number) =>
 		.positive(`The ${label} must be more than 0.`)
 		.max(max, `The ${label} must be at most ${max}.`);
 
-/** Form: what the clerk measured at check-in, in inches or centimetres. */
+/** Form: what the clerk measured at check-in, in inches or centimeters. */
 export const checkInSchema = z.object({
 	diameter: measure('diameter', 150),
 	crowns: z.coerce
@@ -17,7 +17,7 @@ export const checkInSchema = z.object({
 		.min(1, 'A plant has at least one crown.')
 		.max(50, 'Count at most 50 crowns.'),
 	potSize: measure('pot size', 60),
-	unit: z.enum(LENGTH_UNITS as ['in', 'cm'], 'Choose inches or centimetres.')
+	unit: z.enum(LENGTH_UNITS as ['in', 'cm'], 'Choose inches or centimeters.')
 });
 export type CheckInInput = z.infer<typeof checkInSchema>;
 

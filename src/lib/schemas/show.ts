@@ -38,7 +38,7 @@ export const showSettingsSchema = z
 		first: score('the first place minimum'),
 		second: score('the second place minimum'),
 		third: score('the third place minimum'),
-		honourable: score('the honourable mention minimum')
+		honourable: score('the honorable mention minimum')
 	})
 	.superRefine((v, ctx) => {
 		const order: [keyof typeof v, keyof typeof v, string][] = [

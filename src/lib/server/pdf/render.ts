@@ -37,7 +37,7 @@ function prepare(): void {
 	ready = true;
 }
 
-/** Crownbench's document defaults: shipped font, readable sizes, our colours. */
+/** Crownbench's document defaults: shipped font, readable sizes, our colors. */
 export const PDF_DEFAULTS: Pick<TDocumentDefinitions, 'defaultStyle' | 'styles'> = {
 	defaultStyle: { font: 'SourceSans3', fontSize: 10, color: '#1f2a24' },
 	styles: {

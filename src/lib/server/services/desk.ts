@@ -220,7 +220,7 @@ async function lockEntry(show: Show, entryId: string, transaction: Transaction):
 }
 
 /**
- * Checks an entry in with what the clerk measured (inches or centimetres; stored in inches),
+ * Checks an entry in with what the clerk measured (inches or centimeters; stored in inches),
  * and returns the verdict with those measurements.
  */
 export async function checkInEntry(

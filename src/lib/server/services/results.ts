@@ -271,7 +271,7 @@ const LEVEL_TITLES: Record<string, string> = {
 	first: 'First place',
 	second: 'Second place',
 	third: 'Third place',
-	honourable: 'Honourable mention'
+	honourable: 'Honorable mention'
 };
 
 /** Turns engine output into lines with class codes, entry numbers and exhibitor names. */
