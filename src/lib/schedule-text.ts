@@ -135,3 +135,12 @@ export function describeShowRules(
 	);
 	return { dates, rules };
 }
+
+/** Text typed with blank lines between paragraphs (general rules, committee), as paragraphs. */
+export function paragraphsOf(typed: string): string[] {
+	return typed
+		.trim()
+		.split(/\n\s*\n/)
+		.map((p) => p.trim())
+		.filter(Boolean);
+}

@@ -1,15 +1,15 @@
 import type { Content, TDocumentDefinitions } from 'pdfmake/interfaces';
 import type { SocietySettings } from '$lib/domain/society-settings';
-import { describeClass, describeShowRules } from '$lib/schedule-text';
+import { describeClass, describeShowRules, paragraphsOf } from '$lib/schedule-text';
 import type { ScheduleDivision, ShowSettings } from '../services/schedule';
 import { paperOf } from './paper';
 
-/** Text typed with blank lines between paragraphs, as PDF paragraphs (line breaks kept). */
+/** Typed text as PDF paragraphs (line breaks kept). */
 function paragraphs(text: string): Content[] {
-	return text
-		.trim()
-		.split(/\n\s*\n/)
-		.map((p) => ({ text: p.trim(), margin: [0, 0, 0, 4] as [number, number, number, number] }));
+	return paragraphsOf(text).map((p) => ({
+		text: p,
+		margin: [0, 0, 0, 4] as [number, number, number, number]
+	}));
 }
 
 /**
