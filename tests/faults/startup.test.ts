@@ -76,7 +76,10 @@ describe('the built app in production', () => {
 
 	it('refuses to start with CB_DEV_MAIL_URL set and CB_ALLOW_DEV_MAIL not 1, naming it', async () => {
 		for (const allow of [undefined, '0', 'true']) {
-			const env = { ...(await productionEnv()), CB_DEV_MAIL_URL: 'http://127.0.0.1:9' };
+			const env: NodeJS.ProcessEnv = {
+				...(await productionEnv()),
+				CB_DEV_MAIL_URL: 'http://127.0.0.1:9'
+			};
 			if (allow !== undefined) env.CB_ALLOW_DEV_MAIL = allow;
 			const { code, output } = await runUntilEnd(env);
 			expect(code, output).not.toBe(0);
