@@ -29,6 +29,8 @@ export class SheetSync {
 	refusal: string | null = $state(null);
 	/** The server's version of each sheet as last confirmed; changes are made on it. */
 	private known: Record<string, number> = {};
+	/** Each sheet as the server last kept it: what a sheet goes back to when a change is refused. */
+	private confirmed: Record<string, TabletSheet> = {};
 	/** Versions this tablet's own changes moved each sheet through (base → new), to send later changes on. */
 	private moved: Record<string, Record<number, number>> = {};
 	private flushing: Promise<void> | null = null;
@@ -40,6 +42,7 @@ export class SheetSync {
 		initial: Record<string, TabletSheet>
 	) {
 		this.sheets = structuredClone(initial);
+		this.confirmed = structuredClone(initial);
 		for (const [id, s] of Object.entries(initial)) this.known[id] = s.version;
 	}
 
@@ -144,6 +147,7 @@ export class SheetSync {
 					}
 					await acknowledge({ ...next, baseVersion }, outcome.sheet.version);
 					this.known[next.entryId] = outcome.sheet.version;
+					this.confirmed[next.entryId] = outcome.sheet;
 					const local = this.sheets[next.entryId];
 					if (local) local.version = outcome.sheet.version;
 				} else if (outcome.kind === 'conflict') {
@@ -155,16 +159,36 @@ export class SheetSync {
 						message: outcome.message
 					};
 					this.known[next.entryId] = outcome.current.version;
+					this.confirmed[next.entryId] = outcome.current;
 					this.sheets[next.entryId] = outcome.current;
 				} else {
 					// Refused for good: set aside (kept, never resent) so later saves go on.
 					await setAside(next);
-					this.refusal = `${outcome.message} This change was set aside; the later ones are sent.`;
+					// Each change carries the whole sheet: while the sheet on screen still held the
+					// refused text, every later change would carry it and be refused too. The sheet
+					// goes back to what the server kept, with the changes still waiting on top.
+					await this.showKept(next.entryId);
+					this.refusal = `${outcome.message} This change was set aside and the sheet shows what was saved; the later ones are sent.`;
 				}
 			}
 		} finally {
 			this.sending = false;
 			this.queued = (await readQueue()).length;
+		}
+	}
+
+	/** Shows a sheet as the server last kept it, with this tablet's waiting changes of it on top. */
+	private async showKept(entryId: string): Promise<void> {
+		const kept = this.confirmed[entryId];
+		if (!kept) return;
+		this.sheets[entryId] = {
+			...structuredClone(kept),
+			version: this.sheets[entryId]?.version ?? kept.version
+		};
+		for (const c of await readQueue()) {
+			if (c.entryId !== entryId) continue;
+			const { deductions, comment, notJudged, judgesChoiceRank } = c;
+			this.apply(entryId, { deductions, comment, notJudged, judgesChoiceRank });
 		}
 	}
 
