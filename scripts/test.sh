@@ -48,9 +48,14 @@ set +e
 passed=0
 failed=0
 failures=()
+# CB_TEST_STEPS (for example "unit e2e") runs only those steps while working on something; the
+# test command itself (and CI) runs every step. CB_E2E_ARGS goes to playwright (a spec file, --grep).
 step() {
-	local name="$1"
-	shift
+	local key="$1" name="$2"
+	shift 2
+	if [ -n "${CB_TEST_STEPS:-}" ] && [[ " ${CB_TEST_STEPS//,/ } " != *" $key "* ]]; then
+		return 0
+	fi
 	echo
 	echo "=== $name"
 	local started=$SECONDS
@@ -84,7 +89,7 @@ e2e() {
 	wait_for_url "http://127.0.0.1:$port/" 30 || { cat .data/e2e-app.log; return 1; }
 	wait_for_url "http://127.0.0.1:$fresh_port/" 30 || { cat .data/e2e-fresh-app.log; return 1; }
 	E2E_BASE_URL="http://127.0.0.1:$port" FRESH_BASE_URL="http://127.0.0.1:$fresh_port" \
-		npx playwright test
+		npx playwright test ${CB_E2E_ARGS:-}
 	local rc=$?
 	stop_pid "$app"
 	stop_pid "$fresh"
@@ -97,18 +102,18 @@ e2e() {
 	return $rc
 }
 
-step "format (prettier)" npx prettier --check .
-step "lint (eslint)" npx eslint . --max-warnings 0
-step "types (svelte-check)" npm run --silent check
-step "unit tests (vitest)" npx vitest run
-step "integration tests (vitest + PostgreSQL)" env DATABASE_URL="$(./docker-less-db.sh url "$test_db")" \
+step format "format (prettier)" npx prettier --check .
+step lint "lint (eslint)" npx eslint . --max-warnings 0
+step types "types (svelte-check)" npm run --silent check
+step unit "unit tests (vitest)" npx vitest run
+step integration "integration tests (vitest + PostgreSQL)" env DATABASE_URL="$(./docker-less-db.sh url "$test_db")" \
 	npx vitest run --config vitest.integration.config.ts
-step "build (vite)" npx vite build --logLevel warn
+step build "build (vite)" npx vite build --logLevel warn
 # Faults (tests/faults): the built app against a private PostgreSQL cluster that the tests stop and
 # restart (never the one above), with an SMTP fake of their own that they stop.
-step "fault tests (built app, database restart, SMTP down, killed publish)" \
+step faults "fault tests (built app, database restart, SMTP down, killed publish)" \
 	npx vitest run --config tests/faults/vitest.config.ts
-step "browser tests (playwright + chromium)" e2e
+step e2e "browser tests (playwright + chromium)" e2e
 
 echo
 if [ $failed -gt 0 ]; then
