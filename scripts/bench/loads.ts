@@ -5,6 +5,8 @@
  *   PUT /api/judging/sheets with their session cookie; every request is a fresh change (new change
  *   id, the sheet's current version, other deductions and comment), so every save is real.
  * - results: visitors reading the public results page of the published show.
+ * - paced saves (pacedSaves): the show's judges at a show's own pace, each saving one sheet every
+ *   few seconds, for the times a judge meets at a realistic rate rather than at saturation.
  */
 import { randomUUID } from 'node:crypto';
 import { readFileSync } from 'node:fs';
@@ -76,46 +78,69 @@ async function requestsFor(
 	counter: { saved: number }
 ): Promise<Request[]> {
 	if (kind === 'results') return [{ method: 'GET', path: `/shows/${show.slug}/results` }];
-	const versions = await sheetVersions(dbUrl);
-	const position = show.judges.map(() => 0);
+	const saves = await saveMaker(show, dbUrl, counter);
 	return [
 		{
 			method: 'PUT',
 			path: '/api/judging/sheets',
 			setupRequest: (req: Request, context: Context) => {
-				const j = n % show.judges.length;
-				const judge = show.judges[j];
-				const entryId = judge.entryIds[position[j]++ % judge.entryIds.length];
-				const key = `${judge.id}:${entryId}`;
-				context.key = key;
-				const deductions: Record<string, number> = {};
-				CRITERIA.forEach((c, i) => (deductions[c.key] = ((n + i) % 8) / 2));
-				n++;
-				return {
-					...req,
-					headers: {
-						'content-type': 'application/json',
-						cookie: `authjs.session-token=${judge.sessionToken}`
-					},
-					body: JSON.stringify({
-						changeId: randomUUID(),
-						entryId,
-						baseVersion: versions.get(key) ?? 0,
-						deductions,
-						comment: `Benchmark round ${n}`,
-						notJudged: null,
-						judgesChoiceRank: null
-					})
-				};
+				const save = saves.next(n % show.judges.length);
+				context.key = save.key;
+				return { ...req, headers: save.headers, body: save.body };
 			},
 			onResponse: (status: number, body: string, context: Context) => {
-				if (status !== 200 || !context.key) return;
-				const answer = JSON.parse(body) as { status: string; sheet: { version: number } };
-				versions.set(context.key, answer.sheet.version);
-				if (answer.status === 'saved') counter.saved++;
+				if (context.key) saves.answered(context.key, status, body);
 			}
 		}
 	];
+}
+
+/** One save as a judge's tablet sends it: the sheet's key (judge:entry), headers and body. */
+interface Save {
+	key: string;
+	headers: Record<string, string>;
+	body: string;
+}
+
+/**
+ * Makes fresh saves of the show's judges (each a new change id on the sheet's current version,
+ * other deductions and comment, so every save is real) and learns the new versions from answers.
+ */
+async function saveMaker(show: BenchShow, dbUrl: string, counter: { saved: number }) {
+	const versions = await sheetVersions(dbUrl);
+	const position = show.judges.map(() => 0);
+	return {
+		next(j: number): Save {
+			const judge = show.judges[j];
+			const entryId = judge.entryIds[position[j]++ % judge.entryIds.length];
+			const key = `${judge.id}:${entryId}`;
+			const deductions: Record<string, number> = {};
+			CRITERIA.forEach((c, i) => (deductions[c.key] = ((n + i) % 8) / 2));
+			n++;
+			return {
+				key,
+				headers: {
+					'content-type': 'application/json',
+					cookie: `authjs.session-token=${judge.sessionToken}`
+				},
+				body: JSON.stringify({
+					changeId: randomUUID(),
+					entryId,
+					baseVersion: versions.get(key) ?? 0,
+					deductions,
+					comment: `Benchmark round ${n}`,
+					notJudged: null,
+					judgesChoiceRank: null
+				})
+			};
+		},
+		answered(key: string, status: number, body: string): void {
+			if (status !== 200) return;
+			const answer = JSON.parse(body) as { status: string; sheet: { version: number } };
+			versions.set(key, answer.sheet.version);
+			if (answer.status === 'saved') counter.saved++;
+		}
+	};
 }
 
 function once(options: object): Promise<Result> {
@@ -312,5 +337,118 @@ export async function pageAssetBytes(pageUrl: string, cookie: string) {
 		cssGzipBytes,
 		htmlGzipBytes: gzipSync(page.body).length,
 		files: files.length
+	};
+}
+
+/** One save sent on a keep-alive connection: its status, body and time from send to last byte. */
+function sendSave(
+	agent: http.Agent,
+	url: string,
+	save: Save
+): Promise<{ status: number; body: string; ms: number }> {
+	return new Promise((resolve, reject) => {
+		const startedAt = performance.now();
+		const req = http.request(
+			`${url}/api/judging/sheets`,
+			{
+				method: 'PUT',
+				agent,
+				headers: { ...save.headers, 'content-length': String(Buffer.byteLength(save.body)) }
+			},
+			(res) => {
+				const chunks: Buffer[] = [];
+				res.on('data', (c: Buffer) => chunks.push(c));
+				res.on('end', () =>
+					resolve({
+						status: res.statusCode ?? 0,
+						body: Buffer.concat(chunks).toString('utf8'),
+						ms: performance.now() - startedAt
+					})
+				);
+			}
+		);
+		req.setTimeout(10_000, () => req.destroy(new Error('timeout')));
+		req.on('error', reject);
+		req.end(save.body);
+	});
+}
+
+function percentile(sorted: number[], p: number): number {
+	if (sorted.length === 0) return 0;
+	return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
+}
+
+/** What one server did under the paced load. */
+export interface PacedFigures {
+	judges: number;
+	intervalMs: number;
+	requests: number;
+	requestsPerSecond: number;
+	latencyMs: { p50: number; p95: number; p99: number; max: number };
+	non2xx: number;
+	errors: number;
+	saved: number;
+}
+
+/**
+ * Saves at a show's own pace against one server: every judge (`judges` of the show's, one
+ * keep-alive connection each) saves one of their sheets every `intervalMs` (each judge starting at
+ * a random moment of the first interval, as tablets do), for `seconds`. Each save's time runs from
+ * sending it to the answer's last byte; a judge whose save is slow simply saves later.
+ */
+export async function pacedSaves(input: {
+	url: string;
+	show: BenchShow;
+	dbUrl: string;
+	judges: number;
+	intervalMs: number;
+	seconds: number;
+}): Promise<PacedFigures> {
+	const { url, show, dbUrl, intervalMs, seconds } = input;
+	const judges = Math.min(input.judges, show.judges.length);
+	const counter = { saved: 0 };
+	const saves = await saveMaker(show, dbUrl, counter);
+	const agent = new http.Agent({ keepAlive: true, maxSockets: judges });
+	const times: number[] = [];
+	let non2xx = 0;
+	let errors = 0;
+	const startedAt = performance.now();
+	const until = startedAt + seconds * 1000;
+	const pause = (ms: number) => new Promise((r) => setTimeout(r, Math.max(0, ms)));
+	const judge = async (j: number) => {
+		let due = startedAt + Math.random() * intervalMs;
+		for (;;) {
+			await pause(due - performance.now());
+			if (performance.now() >= until) return;
+			const save = saves.next(j);
+			try {
+				const answer = await sendSave(agent, url, save);
+				times.push(answer.ms);
+				if (answer.status === 200) saves.answered(save.key, answer.status, answer.body);
+				else non2xx++;
+			} catch {
+				errors++;
+			}
+			due += intervalMs;
+		}
+	};
+	await Promise.all(Array.from({ length: judges }, (_, j) => judge(j)));
+	agent.destroy();
+	const sorted = [...times].sort((a, b) => a - b);
+	const ms = (v: number) => Math.round(v * 10) / 10;
+	return {
+		judges,
+		intervalMs,
+		requests: times.length,
+		requestsPerSecond: Math.round((times.length / seconds) * 10) / 10,
+		latencyMs: {
+			p50: ms(percentile(sorted, 50)),
+			p95: ms(percentile(sorted, 95)),
+			p99: ms(percentile(sorted, 99)),
+			max: ms(sorted.at(-1) ?? 0)
+		},
+		non2xx,
+		errors,
+		saved: counter.saved
 	};
 }
