@@ -51,4 +51,4 @@ cat <<MSG
   Press Ctrl-C to stop. The database keeps running: ./docker-less-db.sh stop ends it.
 
 MSG
-BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-12M}" node server.js
+BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-12M}" node build

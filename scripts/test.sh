@@ -78,12 +78,12 @@ e2e() {
 	npx tsx scripts/db.ts reset || return 1
 	DATABASE_URL="$fresh_url" npx tsx scripts/db.ts empty || return 1
 	PORT="$port" HOST=127.0.0.1 ORIGIN="http://127.0.0.1:$port" BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-12M}" \
-		node server.js >.data/e2e-app.log 2>&1 &
+		node build >.data/e2e-app.log 2>&1 &
 	local app=$!
 	background_pids+=("$app")
 	# A second built app, same settings, on the database with no seed (tests/e2e/new-society.spec.ts).
 	DATABASE_URL="$fresh_url" PORT="$fresh_port" HOST=127.0.0.1 ORIGIN="http://127.0.0.1:$fresh_port" \
-		BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-12M}" node server.js >.data/e2e-fresh-app.log 2>&1 &
+		BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-12M}" node build >.data/e2e-fresh-app.log 2>&1 &
 	local fresh=$!
 	background_pids+=("$fresh")
 	wait_for_url "http://127.0.0.1:$port/" 30 || { cat .data/e2e-app.log; return 1; }

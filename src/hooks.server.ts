@@ -19,8 +19,10 @@ import { devMailEnabled, productionSettingProblems } from '$lib/server/startup-c
 import { startRefundSender } from '$lib/server/services/refunds';
 import { startReminderSchedule } from '$lib/server/services/reminders';
 import { todayIn } from '$lib/domain/dates';
-import { answerThrown, withSecurityHeaders } from '$lib/server/security-headers';
-import { registerFastLane, UNEXPECTED_ERROR_MESSAGE } from '$lib/server/fast-lane';
+import { answerThrown, withSecurityHeaders } from '$lib/server/http/security-headers';
+
+/** The plain message of an unexpected error (the details go to the log). */
+const UNEXPECTED_ERROR_MESSAGE = 'Something went wrong on our side. Please try again.';
 
 /**
  * Fills locals.user from the database session; visitors without a session cookie cost nothing.
@@ -139,8 +141,6 @@ export const init: ServerInit = () => {
 	checkHostSettings();
 	const problems = productionSettingProblems();
 	if (problems.length > 0) throw new Error(`Crownbench will not start: ${problems.join(' ')}`);
-	// server.js answers score sheet saves through this lane (see the module).
-	registerFastLane();
 	const off = process.env.CB_OUTBOX_WORKER === 'off';
 	const stopWorker = off ? () => {} : startOutboxWorker();
 	const stopRefunds = off ? () => {} : startRefundSender();

@@ -202,7 +202,7 @@ async function main(): Promise<void> {
 		CB_REMINDERS: 'off',
 		AUTH_SECRET: process.env.AUTH_SECRET ?? 'benchmark-only-secret'
 	};
-	const appProcess = start('app', [...nodeArgs('CB_BENCH_APP_NODE_ARGS'), 'server.js'], {
+	const appProcess = start('app', [...nodeArgs('CB_BENCH_APP_NODE_ARGS'), 'build'], {
 		...env,
 		PORT: String(appPort),
 		ORIGIN: app

@@ -261,7 +261,7 @@ test('the session cookie is HttpOnly and SameSite=Lax; Secure with the __Secure-
 		});
 	});
 	const origin = `https://127.0.0.1:${port}`;
-	const app: ChildProcess = spawn(process.execPath, ['server.js'], {
+	const app: ChildProcess = spawn(process.execPath, ['build'], {
 		cwd: process.cwd(),
 		env: {
 			...process.env,

@@ -1,5 +1,5 @@
 /**
- * The built app (`node server.js`) refuses to start in production with settings that would hand
+ * The built app (`node build`) refuses to start in production with settings that would hand
  * sign-in links to anyone (issue 19, items 1 and 11), and says which variable to change:
  * - CB_DEV_MAIL_URL set without CB_ALLOW_DEV_MAIL=1 (`/dev/mail` shows every caught sign-in link);
  * - neither ORIGIN nor AUTH_URL set (sign-in links would be made from the request's Host header).
@@ -39,16 +39,16 @@ async function productionEnv(): Promise<NodeJS.ProcessEnv> {
 	};
 }
 
-/** Runs `node server.js` until it ends (at most 30 s): its exit code and everything it printed. */
+/** Runs `node build` until it ends (at most 30 s): its exit code and everything it printed. */
 function runUntilEnd(env: NodeJS.ProcessEnv): Promise<{ code: number | null; output: string }> {
 	return new Promise((resolve, reject) => {
-		const child = spawn(process.execPath, ['server.js'], { cwd: projectDir, env });
+		const child = spawn(process.execPath, ['build'], { cwd: projectDir, env });
 		let output = '';
 		child.stdout.on('data', (chunk: Buffer) => (output += chunk.toString()));
 		child.stderr.on('data', (chunk: Buffer) => (output += chunk.toString()));
 		const timer = setTimeout(() => {
 			child.kill('SIGKILL');
-			reject(new Error(`node server.js did not end within 30 s:\n${output}`));
+			reject(new Error(`node build did not end within 30 s:\n${output}`));
 		}, 30_000);
 		child.once('error', reject);
 		child.once('close', (code) => {
@@ -107,7 +107,7 @@ describe('the built app in production', () => {
 		delete env.ORIGIN;
 		env.AUTH_URL = `${origin}/auth`;
 		env.DATABASE_URL = cluster.databaseUrl;
-		const child = spawn(process.execPath, ['server.js'], { cwd: projectDir, env, stdio: 'ignore' });
+		const child = spawn(process.execPath, ['build'], { cwd: projectDir, env, stdio: 'ignore' });
 		const ended = new Promise((resolve) => child.once('exit', resolve));
 		try {
 			const status = await waitFor('the app started with AUTH_URL to answer', async () => {

@@ -2,7 +2,7 @@ import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
 
 /**
- * Fault tests: the built app (`node server.js`) against a private PostgreSQL cluster that the tests
+ * Fault tests: the built app (`node build`) against a private PostgreSQL cluster that the tests
  * stop and restart, and an SMTP fake of their own that they stop. One file at a time.
  * Run from the project folder: npx vitest run --config tests/faults/vitest.config.ts
  */

@@ -15,8 +15,8 @@ export interface SheetSaveAnswer {
 /**
  * The answer to one change of a score sheet (the request's JSON, not yet checked) from a person
  * holding one of SHEET_SAVERS: 200 { status, sheet }; 400 bad input with problems; 403 not your
- * entry; 409 { current } when someone else saved first; 423 after results are published. Used by
- * the API route and by the fast lane (fast-lane.ts), so both answer alike.
+ * entry; 409 { current } when someone else saved first; 423 after results are published. The
+ * answer of the API route (`PUT /api/judging/sheets`).
  */
 export async function answerSheetChange(
 	user: App.SignedInUser,

@@ -75,7 +75,7 @@ async function waitUntilAnswering(started: Started, url: string): Promise<void> 
 }
 
 /**
- * Starts the built app (`node server.js`) as the test command's browser step does,
+ * Starts the built app (`node build`) as the test command's browser step does,
  * against the given database and SMTP server, and waits until it answers.
  */
 export async function startBuiltApp(options: {
@@ -89,7 +89,7 @@ export async function startBuiltApp(options: {
 		throw new Error('build/index.js is missing: run `npx vite build` first');
 	}
 	const origin = `http://127.0.0.1:${options.port}`;
-	const app = startProcess(options.name, ['server.js'], {
+	const app = startProcess(options.name, ['build'], {
 		...process.env,
 		NODE_ENV: 'production',
 		PORT: String(options.port),

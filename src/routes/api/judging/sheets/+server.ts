@@ -5,8 +5,7 @@ import type { RequestHandler } from './$types';
 
 /**
  * Saves one change to a score sheet (the tablet sends the whole sheet, the version it edited and
- * a change id); the answers are listed at answerSheetChange. The production server (server.js)
- * answers most saves in its fast lane with the same function; this route answers the rest.
+ * a change id); the answers are listed at answerSheetChange.
  */
 export const PUT: RequestHandler = async (event) => {
 	const user = requireRole(event, SHEET_SAVERS);

@@ -1,5 +1,5 @@
 import { isHttpError, isRedirect, json, type RequestEvent } from '@sveltejs/kit';
-import errorTemplate from '../../error.html?raw';
+import errorTemplate from '../../../error.html?raw';
 
 /** The usual security headers, on every answer (pages, APIs, files, redirects, errors). */
 export const SECURITY_HEADERS: Record<string, string> = {
