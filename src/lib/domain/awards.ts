@@ -286,32 +286,65 @@ const LEVEL_WORDS: Record<AwardLevel, string> = {
 	honourable: 'honorable mention'
 };
 
+/** What a chair reads when a ladder of marks is out of order (the show page and the rules page). */
+export const MARK_ORDER_MESSAGES = {
+	merit: 'The ribbon marks must fall from blue to red to white.',
+	placement: 'The place minimums must not rise from first place down.'
+} as const;
+
 /**
- * Checks a show's award rules: finite numbers, ribbon marks and place minimums that do not rise
- * from the top level down, a known sweepstakes tie-break, and top awards with unique ids and at
- * least one class. Returns every problem found (empty when sound).
+ * The one rule for the order of a show's marks: the ribbon marks fall from blue to red to white
+ * (a mark equal to the one above could never be given), and the place minimums never rise from
+ * first place down (equal minimums are allowed). A mark that is not a number is a problem of its
+ * own; each ladder gives at most one order problem, at the first level out of order.
  */
-export function validateAwardRules(rules: AwardRules): AwardRulesProblem[] {
+export function markOrderProblems(
+	marks: Pick<AwardRules, 'merit' | 'placement'>
+): AwardRulesProblem[] {
 	const problems: AwardRulesProblem[] = [];
-	const checkLadder = (group: string, names: readonly string[], values: number[]): void => {
+	const checkLadder = (
+		group: 'merit' | 'placement',
+		names: readonly string[],
+		values: number[],
+		strict: boolean
+	): void => {
+		let ordered = true;
 		values.forEach((value, i) => {
+			const field = `${group}.${names[i]}`;
 			if (!Number.isFinite(value)) {
-				problems.push({ field: `${group}.${names[i]}`, message: 'Enter a number.' });
-			} else if (i > 0 && Number.isFinite(values[i - 1]) && value > values[i - 1]) {
-				problems.push({
-					field: `${group}.${names[i]}`,
-					message: `The ${names[i]} minimum cannot be above the ${names[i - 1]} minimum.`
-				});
+				problems.push({ field, message: 'Enter a number.' });
+				return;
+			}
+			const above = values[i - 1];
+			if (!ordered || i === 0 || !Number.isFinite(above)) return;
+			if (strict ? value >= above : value > above) {
+				ordered = false;
+				problems.push({ field, message: MARK_ORDER_MESSAGES[group] });
 			}
 		});
 	};
-	checkLadder('merit', MERIT_LEVELS, [rules.merit.blue, rules.merit.red, rules.merit.white]);
-	checkLadder('placement', PLACEMENT_LEVELS, [
-		rules.placement.first,
-		rules.placement.second,
-		rules.placement.third,
-		rules.placement.honourable
-	]);
+	checkLadder('merit', MERIT_LEVELS, [marks.merit.blue, marks.merit.red, marks.merit.white], true);
+	checkLadder(
+		'placement',
+		PLACEMENT_LEVELS,
+		[
+			marks.placement.first,
+			marks.placement.second,
+			marks.placement.third,
+			marks.placement.honourable
+		],
+		false
+	);
+	return problems;
+}
+
+/**
+ * Checks a show's award rules: the order of the marks (`markOrderProblems`), a known sweepstakes
+ * tie-break, and top awards with unique ids and at least one class. Returns every problem found
+ * (empty when sound).
+ */
+export function validateAwardRules(rules: AwardRules): AwardRulesProblem[] {
+	const problems: AwardRulesProblem[] = markOrderProblems(rules);
 	if (rules.bestInClassMin !== null && !Number.isFinite(rules.bestInClassMin)) {
 		problems.push({ field: 'bestInClassMin', message: 'Enter a number or leave it empty.' });
 	}

@@ -6,11 +6,11 @@ import {
 	datesForCopy,
 	datesOutOfOrder,
 	stageOf,
-	todayIn,
 	type ShowChange,
 	type ShowStage,
 	type StageFacts
 } from './show-stage';
+import { todayIn } from './dates';
 
 /**
  * A spring show laid out in the trade's usual sequence (common practice): entries open some

@@ -84,18 +84,6 @@ export function stageOf(facts: StageFacts, today: IsoDate): ShowStage {
 	return 'awaiting_results';
 }
 
-/** Today's calendar date in a time zone (an IANA name such as America/Chicago). */
-export function todayIn(timeZone: string, now: Date): IsoDate {
-	const parts = new Intl.DateTimeFormat('en-CA', {
-		timeZone,
-		year: 'numeric',
-		month: '2-digit',
-		day: '2-digit'
-	}).formatToParts(now);
-	const part = (type: string) => parts.find((p) => p.type === type)?.value ?? '';
-	return `${part('year')}-${part('month')}-${part('day')}`;
-}
-
 /** The kinds of change the stage decides on. */
 export type ShowChange = 'schedule' | 'panels' | 'fees' | 'publish_schedule' | 'hide_schedule';
 

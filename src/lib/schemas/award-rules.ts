@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { text } from './text';
-import { awardRulesFrom, MAX_HONORABLE_MENTIONS, type AwardRules } from '$lib/domain/awards';
+import { MAX_HONORABLE_MENTIONS } from '$lib/domain/awards';
 
 const points = (what: string) =>
 	z.coerce
@@ -56,11 +56,3 @@ export const awardRulesSchema = z.object({
 		'Choose whether a plant may take several top awards.'
 	)
 });
-
-/**
- * Reads stored award rules: the domain's reader (`awardRulesFrom`) fills what is missing from
- * the defaults, then the schema checks the values; throws on nonsense.
- */
-export function readAwardRules(stored: unknown): AwardRules {
-	return awardRulesSchema.parse(awardRulesFrom(stored));
-}

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { text } from './text';
+import { markOrderProblems } from '$lib/domain/awards';
 import { isIsoDate } from '$lib/domain/dates';
 import { CONTROL_CHARS_MESSAGE, hasNoControlChars } from './text';
 
@@ -49,19 +50,14 @@ export const showSettingsSchema = z
 		for (const [a, b, message] of order) {
 			if (String(v[a]) > String(v[b])) ctx.addIssue({ code: 'custom', path: [b], message });
 		}
-		if (!(v.blue > v.red && v.red > v.white)) {
-			ctx.addIssue({
-				code: 'custom',
-				path: ['red'],
-				message: 'The ribbon marks must fall from blue to red to white.'
-			});
-		}
-		if (!(v.first >= v.second && v.second >= v.third && v.third >= v.honourable)) {
-			ctx.addIssue({
-				code: 'custom',
-				path: ['second'],
-				message: 'The place minimums must not rise from first place down.'
-			});
+		// The order of the marks is the domain's rule (markOrderProblems); its fields are flat here.
+		const marks = {
+			merit: { blue: v.blue, red: v.red, white: v.white },
+			placement: { first: v.first, second: v.second, third: v.third, honourable: v.honourable }
+		};
+		for (const problem of markOrderProblems(marks)) {
+			const field = problem.field.split('.')[1];
+			ctx.addIssue({ code: 'custom', path: [field], message: problem.message });
 		}
 	});
 export type ShowSettingsInput = z.infer<typeof showSettingsSchema>;

@@ -4,6 +4,7 @@
  */
 import { QueryTypes, type Transaction } from 'sequelize';
 import {
+	awardRulesFrom,
 	computeAwards,
 	describeAwardSettings,
 	validateAwardRules,
@@ -20,7 +21,6 @@ import {
 	type ScaleCriterion,
 	type ScaleOfPoints
 } from '$lib/domain/scoring';
-import { readAwardRules } from '$lib/schemas/award-rules';
 import type { AwardLine, Board, BoardClass } from '$lib/judging/types';
 
 export type { AwardLine, Board, BoardClass };
@@ -155,7 +155,7 @@ export async function loadShowJudging(
 				: DEFAULT_STANDARD_SCALE
 	}));
 	const classById = new Map(classViews.map((c) => [c.id, c]));
-	const rules = readAwardRules(show.award_rules);
+	const rules = awardRulesFrom(show.award_rules);
 	const judged: JudgedEntry[] = entries.map((e) => {
 		const cls = classById.get(e.class_id);
 		const panelJudges = cls?.panelId ? (judgesOf.get(cls.panelId) ?? []) : [];
@@ -525,8 +525,9 @@ export async function loadAwardRulesPage(showId: string) {
 }
 
 /**
- * Stores a show's award rules and panel score method after checking them (validateAwardRules,
- * classes of this show only); refused once results are published.
+ * The one writer of a show's award rules (the award rules page, and the marks on the show's own
+ * page): stores them and the panel score method after checking them (validateAwardRules, classes
+ * of this show only); refused once results are published.
  */
 export async function saveAwardRules(
 	show: { id: string; resultsPublishedAt: Date | null },

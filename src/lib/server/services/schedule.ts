@@ -1,5 +1,5 @@
 import { Op, literal, type FindOptions, type Transaction } from 'sequelize';
-import { awardRulesFrom, validateAwardRules, type AwardRules } from '$lib/domain/awards';
+import { awardRulesFrom, type AwardRules } from '$lib/domain/awards';
 import type { ClassRules, SizeClass } from '$lib/domain/eligibility';
 import type { ClassDescribed } from '$lib/schedule-text';
 import type { ClassInput, DivisionInput, ShowSettingsInput } from '$lib/schemas/show';
@@ -7,6 +7,7 @@ import { recordShowAudit, type AuditActor } from '../audit';
 import { refuseFrozenClassChange, type ClassProgress } from '$lib/domain/class-rules';
 import type { MoveInput, ScheduleTextInput } from '$lib/schemas/show';
 import { Division, Entry, Scale, ScoreSheet, Show, ShowClass, sequelize } from '../db';
+import { saveAwardRules } from './results';
 import { verdictFor } from './show-stage';
 
 /** A class of the schedule as pages and PDFs show it. */
@@ -207,8 +208,6 @@ export async function updateShowSettings(
 			honourable: input.honourable
 		}
 	};
-	const problems = validateAwardRules(awardRules);
-	if (problems.length) throw new ScheduleProblem(problems[0].message, 'red');
 	await show.update(
 		{
 			name: input.name,
@@ -221,11 +220,12 @@ export async function updateShowSettings(
 			possessionMonths: input.possessionMonths,
 			maxEntriesPerClass: input.maxEntriesPerClass,
 			maxEntriesPerVariety: input.maxEntriesPerVariety,
-			requireGoodStanding: input.requireGoodStanding,
-			awardRules: awardRules as unknown as Record<string, unknown>
+			requireGoodStanding: input.requireGoodStanding
 		},
 		{ transaction: options.transaction }
 	);
+	// The award rules have one writer, which checks them (a Refusal names the field).
+	await saveAwardRules(show, awardRules, show.panelScoreMethod, options);
 }
 
 /**

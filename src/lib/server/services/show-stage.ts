@@ -3,11 +3,11 @@ import {
 	STAGE_WORDS,
 	checkChange,
 	stageOf,
-	todayIn,
 	type ShowChange,
 	type ShowStage,
 	type StageVerdict
 } from '$lib/domain/show-stage';
+import { todayIn } from '$lib/domain/dates';
 import { Entry, Show, ShowClass } from '../db';
 import { loadSocietySettings } from './society-settings';
 

@@ -1,6 +1,6 @@
 import { listAuditLog } from '$lib/server/audit';
 import { readAuditQuery } from '$lib/schemas/audit';
-import { requireShowRole } from '$lib/server/services/show-access';
+import { requireShowRole } from '$lib/server/policies/show';
 import { loadSocietySettings } from '$lib/server/services/society-settings';
 import type { PageServerLoad } from './$types';
 

@@ -9,7 +9,7 @@ import {
 	loadShowJudging
 } from '$lib/server/services/results';
 import { publishResultsAndTell } from '$lib/server/services/show-results';
-import { requireShowRole } from '$lib/server/services/show-access';
+import { requireShowRole } from '$lib/server/policies/show';
 import { loadSocietySettings } from '$lib/server/services/society-settings';
 import { formatDateTime } from '$lib/format';
 import type { Actions, PageServerLoad } from './$types';

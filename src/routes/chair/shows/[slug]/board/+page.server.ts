@@ -1,5 +1,5 @@
 import { loadBoard } from '$lib/server/services/results';
-import { requireShowRole } from '$lib/server/services/show-access';
+import { requireShowRole } from '$lib/server/policies/show';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

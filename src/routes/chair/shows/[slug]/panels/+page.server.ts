@@ -18,7 +18,7 @@ import {
 	removeJudge,
 	setClerk
 } from '$lib/server/services/panels';
-import { requireShowRole } from '$lib/server/services/show-access';
+import { requireShowRole } from '$lib/server/policies/show';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import { loadBoard } from '$lib/server/services/results';
-import { requireShowRole } from '$lib/server/services/show-access';
+import { requireShowRole } from '$lib/server/policies/show';
 import type { RequestHandler } from './$types';
 
 /** The progress board as JSON, polled by the chair's board page while judges work. */

@@ -2,7 +2,7 @@ import { fail } from '@sveltejs/kit';
 import { sequelize } from '$lib/server/db';
 import { isRefusal } from '$lib/server/services/refusal';
 import { loadAwardRulesPage, saveAwardRules } from '$lib/server/services/results';
-import { requireShowRole } from '$lib/server/services/show-access';
+import { requireShowRole } from '$lib/server/policies/show';
 import { readRulesForm } from './form';
 import type { Actions, PageServerLoad } from './$types';
 
