@@ -26,23 +26,32 @@ const UNEXPECTED_ERROR_MESSAGE = 'Something went wrong on our side. Please try a
 
 /**
  * Fills locals.user from the database session; visitors without a session cookie cost nothing.
- * A valid session that is not yet due for its rolling extension is read in one query; anything
- * else (unknown, expired, due) goes through Auth.js, which extends or clears it.
+ * A valid session that is not yet due for its rolling extension is read in one query and the
+ * request goes on without Auth.js (its handle sets up its configuration on every request, which
+ * such a request does not need). Auth.js's own paths (/auth/...) and anything else about a session
+ * (unknown, expired, due) go through Auth.js, which extends or clears it.
  */
-const userHandle: Handle = async ({ event, resolve }) => {
+const sessionHandle: Handle = async ({ event, resolve }) => {
 	event.locals.user = null;
 	const token = sessionTokenOf((name) => event.cookies.get(name));
-	if (token) {
-		const found = await findSessionUser(token);
-		if (found && !found.due) {
-			event.locals.user = found.user;
-			return resolve(event);
-		}
-		// Auth.js extends (or clears) the session; the person is then read again by the token.
-		const session = await event.locals.auth();
-		if (session) event.locals.user = (await findSessionUser(token))?.user ?? null;
+	const found = token ? await findSessionUser(token) : null;
+	if (found && !found.due && !event.url.pathname.startsWith('/auth/')) {
+		event.locals.user = found.user;
+		return resolve(event);
 	}
-	return resolve(event);
+	return authHandle({
+		event,
+		resolve: async (authed, options) => {
+			if (found && !found.due) {
+				authed.locals.user = found.user;
+			} else if (token) {
+				// Auth.js extends (or clears) the session; the person is then read again by the token.
+				const session = await authed.locals.auth();
+				if (session) authed.locals.user = (await findSessionUser(token))?.user ?? null;
+			}
+			return resolve(authed, options);
+		}
+	});
 };
 
 /**
@@ -116,8 +125,7 @@ export const handle = sequence(
 	// Anonymous visitors of published results get the page's current copy (see the module).
 	resultsPageCache(SESSION_COOKIES),
 	authAddressHandle,
-	authHandle,
-	userHandle,
+	sessionHandle,
 	guardHandle
 );
 

@@ -32,10 +32,22 @@ export function findSessionUser(token: string) {
 	});
 }
 
+/** The last configured address read, and its origin and host (read once, not per request). */
+let parsedAddress: { configured: string; origin: string; host: string } | null = null;
+
+function configuredAddress(): { origin: string; host: string } | undefined {
+	const configured = process.env.AUTH_URL || process.env.ORIGIN;
+	if (!configured) return undefined;
+	if (parsedAddress?.configured !== configured) {
+		const url = new URL(configured);
+		parsedAddress = { configured, origin: url.origin, host: url.host };
+	}
+	return parsedAddress;
+}
+
 /** The app's public address (`AUTH_URL`, else `ORIGIN`): every sign-in link is made from it. */
 export function publicOrigin(): string | undefined {
-	const configured = process.env.AUTH_URL || process.env.ORIGIN;
-	return configured ? new URL(configured).origin : undefined;
+	return configuredAddress()?.origin;
 }
 
 /** `AUTH_TRUST_HOST=true`: a proxy in front sets Host and X-Forwarded-Host, and Auth.js reads them. */
@@ -60,10 +72,10 @@ function isPlainHost(value: string | null): boolean {
  * (a trusted proxy's header, or no configured address): the request is then refused with 400.
  */
 export function pinToPublicAddress(headers: Headers): boolean {
-	const origin = publicOrigin();
-	if (origin && !trustsProxyHost()) {
+	const address = configuredAddress();
+	if (address && !trustsProxyHost()) {
 		// The Request's headers are mutable here; Auth.js reads this same object.
-		headers.set('host', new URL(origin).host);
+		headers.set('host', address.host);
 		headers.delete('x-forwarded-host');
 		headers.delete('x-forwarded-proto');
 		return true;

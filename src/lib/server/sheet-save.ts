@@ -1,7 +1,7 @@
 import type { Role } from '$lib/roles';
 import { sheetChangeSchema } from '$lib/schemas/judging';
 import { saveSheet } from '$lib/server/services/judging';
-import { isRefusal } from '$lib/server/services/refusal';
+import { refusalAnswer } from '$lib/server/http/refusals';
 
 /** Who may save score sheets: judges, and clerks writing down their panel's sheets. */
 export const SHEET_SAVERS: readonly Role[] = ['judge', 'clerk'];
@@ -35,13 +35,12 @@ export async function answerSheetChange(
 	try {
 		return { status: 200, body: await saveSheet({ id: user.id, email: user.email }, parsed.data) };
 	} catch (err) {
-		if (!isRefusal(err)) throw err;
-		const extra =
-			err.status === 409 && err.details
-				? { current: err.details }
-				: err.status === 400
-					? { problems: err.details }
-					: {};
-		return { status: err.status, body: { message: err.message, ...extra } };
+		return refusalAnswer(err, (r) =>
+			r.status === 409 && r.details
+				? { current: r.details }
+				: r.status === 400
+					? { problems: r.details }
+					: {}
+		);
 	}
 }

@@ -14,6 +14,7 @@ import { Division, Entry, Show, ShowClass, User, Variety, sequelize } from '../d
 import { exhibitorContextFor, plantFactsOf, showContextOf, withStandingHint } from './entries';
 import { IN_SCHEDULE_ORDER, classRulesOf } from './schedule';
 import { loadSocietySettings } from './society-settings';
+import { Refusal } from './refusal';
 
 /** A line of the desk's search results. */
 export interface DeskHit {
@@ -206,7 +207,7 @@ export async function loadDeskEntry(show: Show, number: number): Promise<DeskEnt
 }
 
 /** A desk action that cannot be done, in a plain sentence. */
-export class DeskProblem extends Error {}
+export class DeskProblem extends Refusal {}
 
 async function lockEntry(show: Show, entryId: string, transaction: Transaction): Promise<Entry> {
 	const entry = await Entry.findOne({

@@ -19,6 +19,7 @@ import { initialFeeStatus } from '$lib/domain/dues';
 import { settleFeeOfWithdrawnEntry } from './refunds';
 import { loadSocietySettings } from './society-settings';
 import { societyToday } from './society-today';
+import { Refusal } from './refusal';
 
 /** Statuses that no longer count towards an exhibitor's limits. */
 export const INACTIVE_STATUSES = ['withdrawn', 'scratched'] as const;
@@ -111,19 +112,17 @@ export function withStandingHint(failures: RuleFailure[]): RuleFailure[] {
 }
 
 /** An entry request that names a class or variety outside the show's society. */
-export class EntryInputProblem extends Error {
-	constructor(
-		message: string,
-		readonly field: 'classId' | 'varietyId' | 'showSlug'
-	) {
-		super(message);
+export class EntryInputProblem extends Refusal {
+	declare readonly field: 'classId' | 'varietyId' | 'showSlug';
+	constructor(message: string, field: 'classId' | 'varietyId' | 'showSlug') {
+		super(message, 400, field);
 	}
 }
 
 /** An entry the rules refuse, with every failed rule. */
-export class EntryRefused extends Error {
+export class EntryRefused extends Refusal {
 	constructor(readonly failures: RuleFailure[]) {
-		super(failures.map((f) => f.message).join(' '));
+		super(failures.map((f) => f.message).join(' '), 400, undefined, failures);
 	}
 }
 

@@ -1,6 +1,6 @@
 import { fail, type ActionFailure } from '@sveltejs/kit';
 import type { z } from 'zod';
-import { isRefusal } from './refusal';
+import { refusedForm } from '../http/refusals';
 
 /**
  * Runs a form action: parses the form with a zod schema, runs the work, and turns bad input or a
@@ -19,12 +19,6 @@ export async function runFormAction<S extends z.ZodType>(
 	try {
 		return { ok: true, message: await work(parsed.data) };
 	} catch (err) {
-		if (isRefusal(err)) {
-			return fail(err.status === 423 ? 409 : err.status, {
-				message: err.message,
-				field: err.field
-			});
-		}
-		throw err;
+		return refusedForm(err);
 	}
 }

@@ -15,7 +15,6 @@ import {
 import type { SheetChange } from '$lib/schemas/judging';
 import { ScoreSheet, sequelize } from '../db';
 import type { TabletSheet } from '$lib/judging/types';
-import { inTransaction, run, statement, type Statement } from '../db/pg';
 import { Refusal } from './refusal';
 
 /** A sheet as a tablet holds it (the tablet's own type); version 0 means nothing saved yet. */
@@ -404,28 +403,22 @@ interface SaveState {
 }
 
 /** The save's first statement: lock the entry, share the show's row, read the person's access. */
-const SAVE_LOCK = statement(
-	'judging_save_lock',
-	`SELECT e.id AS entry_id, e.show_id AS entry_show_id, e.class_id,
+const SAVE_LOCK = `SELECT e.id AS entry_id, e.show_id AS entry_show_id, e.class_id,
 	        sh.results_published_at AS locked, a.*
 	   FROM entries e
 	   JOIN shows sh ON sh.id = e.show_id
 	   LEFT JOIN LATERAL (${accessSelect('e.class_id')}) a ON true
 	  WHERE e.id = :entryId AND ${ACTIVE}
-	    FOR NO KEY UPDATE OF e FOR SHARE OF sh`
-);
+	    FOR NO KEY UPDATE OF e FOR SHARE OF sh`;
 
 /** The second: the answer stored for the change id, if any, and the sheet as it stands. */
-function saveStateStatement(kind: 'judge' | 'consensus'): Statement {
-	return statement(
-		`judging_save_state_${kind}`,
-		`SELECT ac.user_id AS "appliedUserId", ac.response AS "appliedResponse",
+function saveStateStatement(kind: 'judge' | 'consensus'): string {
+	return `SELECT ac.user_id AS "appliedUserId", ac.response AS "appliedResponse",
 		        (SELECT row_to_json(ss) FROM (SELECT ${SHEET_COLUMNS} FROM score_sheets
 		          WHERE entry_id = :entryId AND kind = '${kind}'
 		                ${kind === 'judge' ? 'AND judge_id = :judgeId' : ''}) ss) AS sheet
 		   FROM (VALUES (1)) AS one (x)
-		   LEFT JOIN applied_changes ac ON ac.change_id = :changeId`
-	);
+		   LEFT JOIN applied_changes ac ON ac.change_id = :changeId`;
 }
 const SAVE_STATE = {
 	judge: saveStateStatement('judge'),
@@ -433,7 +426,7 @@ const SAVE_STATE = {
 };
 
 /** The third, one statement for every write: the sheet, its audit row and the stored answer. */
-function saveWriteStatement(write: 'update' | 'insert' | 'unchanged'): Statement {
+function saveWriteStatement(write: 'update' | 'insert' | 'unchanged'): string {
 	const sheet = {
 		update: `UPDATE score_sheets
 		            SET deductions = CAST(:deductions AS jsonb), comment = :comment,
@@ -457,14 +450,11 @@ function saveWriteStatement(write: 'update' | 'insert' | 'unchanged'): Statement
 			            CAST(:actorEmail AS text), CAST(:changeId AS uuid), CAST(:before AS jsonb),
 			            CAST(:after AS jsonb)
 			       FROM sheet)`;
-	return statement(
-		`judging_save_write_${write}`,
-		`WITH sheet AS (${sheet})${audit}
+	return `WITH sheet AS (${sheet})${audit}
 		 INSERT INTO applied_changes (change_id, user_id, sheet_id, response)
 		 SELECT CAST(:changeId AS uuid), CAST(:actorId AS uuid), sheet.id, CAST(:response AS jsonb)
 		   FROM sheet
-		 RETURNING sheet_id`
-	);
+		 RETURNING sheet_id`;
 }
 const SAVE_WRITE = {
 	update: saveWriteStatement('update'),
@@ -474,7 +464,7 @@ const SAVE_WRITE = {
 
 /**
  * Applies one change to a sheet, in one transaction of three statements (lock and access; the
- * stored answer and the current sheet; the writes), sent through pg as named statements:
+ * stored answer and the current sheet; the writes):
  * - refuses (changing nothing) an entry outside the person's classes, a locked show, and
  *   deductions the class's scale does not allow (400 with one problem per criterion);
  * - a change id seen before is answered with the stored answer and applied no second time;
@@ -491,13 +481,15 @@ export async function saveSheet(
 	actor: { id: string; email: string },
 	change: SheetChange
 ): Promise<SaveResult> {
-	return inTransaction(async (client) => {
+	return sequelize.transaction(async (transaction) => {
+		const run = <R extends object>(sql: string, replacements: Record<string, unknown>) =>
+			sequelize.query<R>(sql, { replacements, type: QueryTypes.SELECT, transaction });
 		const [entry] = await run<
 			{ entry_id: string; entry_show_id: string; class_id: string; locked: Date | null } & Omit<
 				AccessRow,
 				'show_id'
 			> & { show_id: string | null }
-		>(client, SAVE_LOCK, { entryId: change.entryId, userId: actor.id });
+		>(SAVE_LOCK, { entryId: change.entryId, userId: actor.id });
 		if (!entry) throw new Refusal('This entry is not in your classes.', 403);
 		// Who may save is checked first: a person outside the class learns nothing, not even 423.
 		const access = toAccess(entry.show_id ? (entry as AccessRow) : undefined, entry.class_id);
@@ -513,7 +505,6 @@ export async function saveSheet(
 		}
 
 		const [state] = await run<SaveState>(
-			client,
 			SAVE_STATE[kind],
 			kind === 'judge'
 				? { changeId: change.changeId, entryId: entry.entry_id, judgeId: actor.id }
@@ -591,7 +582,6 @@ export async function saveSheet(
 			after: JSON.stringify(auditState(after))
 		};
 		const written = await run<{ sheet_id: string }>(
-			client,
 			SAVE_WRITE[write],
 			write === 'unchanged'
 				? common

@@ -9,6 +9,7 @@ import { queueMail } from '../mail/outbox';
 import { invitationMessage } from '../mail/payment-messages';
 import { societyToday } from './society-today';
 import type { PersonRow } from './people';
+import { Refusal } from './refusal';
 
 /** One row of the admin's members table: a person of the society, with standing and sign-in. */
 export interface MemberRow extends PersonRow {
@@ -118,12 +119,9 @@ export async function listMembers(
 }
 
 /** A change that needs a person's word first, or cannot be made; the message is for the admin. */
-export class MemberChangeError extends Error {
-	constructor(
-		message: string,
-		readonly field?: string
-	) {
-		super(message);
+export class MemberChangeError extends Refusal {
+	constructor(message: string, field?: string) {
+		super(message, 400, field);
 	}
 }
 

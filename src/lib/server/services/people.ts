@@ -1,7 +1,6 @@
-import type { Transaction } from 'sequelize';
+import { QueryTypes, type Transaction } from 'sequelize';
 import { isRole, type Role } from '$lib/roles';
-import { Membership, Society, User } from '../db';
-import { query, statement } from '../db/pg';
+import { Membership, Society, User, sequelize } from '../db';
 
 /** Loads the signed-in person with every society they belong to and their roles there. */
 export async function loadSignedInUser(userId: string): Promise<App.SignedInUser | null> {
@@ -28,20 +27,17 @@ export async function loadSignedInUser(userId: string): Promise<App.SignedInUser
 }
 
 /** The person of a session with each of their societies and roles (one row per society). */
-const SESSION_USER = statement(
-	'people_session_user',
-	`SELECT s.expires, u.id, u.email, u.name, m.roles,
+const SESSION_USER = `SELECT s.expires, u.id, u.email, u.name, m.roles,
 	        so.id AS society_id, so.slug AS society_slug, so.name AS society_name
 	   FROM sessions s
 	   JOIN users u ON u.id = s.user_id
 	   LEFT JOIN memberships m ON m.user_id = u.id
 	   LEFT JOIN societies so ON so.id = m.society_id
-	  WHERE s.session_token = :sessionToken AND s.expires > now()`
-);
+	  WHERE s.session_token = :sessionToken AND s.expires > now()`;
 
 /**
  * The person behind a database session token, with their societies and roles, in one query (the
- * hot path of every signed-in request, so a named statement sent through pg). Returns null for
+ * path of every signed-in request). Returns null for
  * an unknown or expired session, and `due: true` when the session has reached the age at which
  * Auth.js extends it (the caller then goes through Auth.js, which does that).
  */
@@ -49,7 +45,7 @@ export async function loadSessionUser(
 	sessionToken: string,
 	rolling: { maxAgeSeconds: number; updateAgeSeconds: number }
 ): Promise<{ user: App.SignedInUser; due: boolean } | null> {
-	const rows = await query<{
+	const rows = await sequelize.query<{
 		expires: Date;
 		id: string;
 		email: string;
@@ -58,7 +54,7 @@ export async function loadSessionUser(
 		society_id: string | null;
 		society_slug: string | null;
 		society_name: string | null;
-	}>(SESSION_USER, { sessionToken });
+	}>(SESSION_USER, { replacements: { sessionToken }, type: QueryTypes.SELECT });
 	if (rows.length === 0) return null;
 	const first = rows[0];
 	const dueAt =

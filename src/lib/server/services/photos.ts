@@ -7,6 +7,7 @@ import type { Transaction } from 'sequelize';
 import { recordAudit, type AuditActor } from '../audit';
 import { Entry, EntryPhoto, Show } from '../db';
 import { lockPhotosOf, PHOTO_LIMITS } from '../uploads';
+import { Refusal } from './refusal';
 
 /** Largest photo we accept, in bytes (PHOTO_LIMITS). */
 export const MAX_PHOTO_BYTES = PHOTO_LIMITS.maxBytes;
@@ -30,7 +31,7 @@ export function uploadDir(): string {
 }
 
 /** A photo that is refused, in a plain sentence. */
-export class PhotoProblem extends Error {}
+export class PhotoProblem extends Refusal {}
 
 /**
  * Stores a photo of an entry: checks the size and the real file type (from the bytes, not the

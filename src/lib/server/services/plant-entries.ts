@@ -2,11 +2,12 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import type { RuleFailure } from '$lib/domain/eligibility';
 import { Show, sequelize } from '../db';
 import { EntryInputProblem, EntryRefused, INACTIVE_STATUSES, createEntry } from './entries';
+import { Refusal } from './refusal';
 
 /** An entry from a plant that the rules refuse; nothing was written. */
-export class PlantEntryRefused extends Error {
+export class PlantEntryRefused extends Refusal {
 	constructor(readonly failures: RuleFailure[]) {
-		super(failures.map((f) => f.message).join(' '));
+		super(failures.map((f) => f.message).join(' '), 400, undefined, failures);
 	}
 }
 

@@ -3,14 +3,13 @@ import type { ObtainedHow, PlantEventKind } from '$lib/domain/readiness';
 import type { PlantEventInput, PlantInput, PotSuckerInput } from '$lib/schemas/plants';
 import { recordAudit } from '../audit';
 import { Plant, PlantEvent, PlantPhoto, Variety, sequelize } from '../db';
+import { Refusal } from './refusal';
 
 /** Bad input that only the database can find out (a variety or parent that is not the member's). */
-export class PlantInputError extends Error {
-	constructor(
-		readonly field: string,
-		message: string
-	) {
-		super(message);
+export class PlantInputError extends Refusal {
+	declare readonly field: string;
+	constructor(field: string, message: string) {
+		super(message, 400, field);
 	}
 }
 

@@ -7,6 +7,7 @@ import {
 	type ScaleDraft
 } from '$lib/domain/scales';
 import { Scale, ShowClass, sequelize } from '../db';
+import { Refusal } from './refusal';
 
 /** A scale of points as the society's scales page shows it. */
 export interface ScaleRow {
@@ -24,12 +25,10 @@ export interface ScaleRow {
 }
 
 /** A scale change that cannot be made, with the form field it belongs to. */
-export class ScaleProblem extends Error {
-	constructor(
-		message: string,
-		readonly field: string = 'form'
-	) {
-		super(message);
+export class ScaleProblem extends Refusal {
+	declare readonly field: string;
+	constructor(message: string, field = 'form') {
+		super(message, 400, field);
 	}
 }
 

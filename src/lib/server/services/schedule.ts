@@ -9,6 +9,7 @@ import type { MoveInput, ScheduleTextInput } from '$lib/schemas/show';
 import { Division, Entry, Scale, ScoreSheet, Show, ShowClass, sequelize } from '../db';
 import { saveAwardRules } from './results';
 import { verdictFor } from './show-stage';
+import { Refusal } from './refusal';
 
 /** A class of the schedule as pages and PDFs show it. */
 export interface ScheduleClass extends ClassDescribed {
@@ -170,12 +171,10 @@ export async function listScales(
 }
 
 /** A rule of the show that cannot be saved, with the field it belongs to. */
-export class ScheduleProblem extends Error {
-	constructor(
-		message: string,
-		readonly field: string = 'form'
-	) {
-		super(message);
+export class ScheduleProblem extends Refusal {
+	declare readonly field: string;
+	constructor(message: string, field = 'form') {
+		super(message, 400, field);
 	}
 }
 

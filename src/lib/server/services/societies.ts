@@ -4,15 +4,14 @@ import { defaultScales } from '../../domain/scales';
 import type { SocietyFields } from '../../schemas/society';
 import { societySignup, type SocietySignup } from '../config';
 import { Membership, Scale, Society, User } from '../db';
+import { Refusal } from './refusal';
 
 /** Why a society could not be started or changed; the message is for the person, 403 or 400. */
-export class SocietyError extends Error {
-	constructor(
-		message: string,
-		readonly field?: keyof SocietyFields,
-		readonly status: 400 | 403 = 400
-	) {
-		super(message);
+export class SocietyError extends Refusal {
+	declare readonly field?: keyof SocietyFields;
+	declare readonly status: 400 | 403;
+	constructor(message: string, field?: keyof SocietyFields, status: 400 | 403 = 400) {
+		super(message, status, field);
 	}
 }
 

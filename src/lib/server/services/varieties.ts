@@ -11,6 +11,7 @@ import {
 import { VARIETY_CSV_COLUMNS, varietySchema, type VarietyInput } from '$lib/schemas/variety';
 import type { VarietyRow } from '$lib/types';
 import { Variety, sequelize } from '../db';
+import { Refusal } from './refusal';
 
 export type { VarietyRow };
 
@@ -70,12 +71,10 @@ export async function findVariety(societyId: string, id: string): Promise<Variet
 }
 
 /** A variety that cannot be saved, with the field at fault. */
-export class VarietyProblem extends Error {
-	constructor(
-		message: string,
-		readonly field: string = 'name'
-	) {
-		super(message);
+export class VarietyProblem extends Refusal {
+	declare readonly field: string;
+	constructor(message: string, field = 'name') {
+		super(message, 400, field);
 	}
 }
 

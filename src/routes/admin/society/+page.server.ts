@@ -3,13 +3,10 @@ import { z } from 'zod';
 import { editSocietySchema, societyFormOptions, societyFormValues } from '$lib/schemas/society';
 import { sequelize } from '$lib/server/db';
 import { requireRole } from '$lib/server/policies';
-import {
-	SocietyError,
-	loadSocietyFields,
-	updateSocietySettings
-} from '$lib/server/services/societies';
+import { loadSocietyFields, updateSocietySettings } from '$lib/server/services/societies';
 import { chooseSociety } from '$lib/server/society-choice';
 import type { Actions, PageServerLoad } from './$types';
+import { refusedForm } from '$lib/server/http/refusals';
 
 export const load: PageServerLoad = async (event) => {
 	const user = requireRole(event, ['admin']);
@@ -37,9 +34,10 @@ export const actions: Actions = {
 			);
 			return { saved: `Settings saved for ${saved.name}.`, slug: saved.slug };
 		} catch (err) {
-			if (!(err instanceof SocietyError)) throw err;
-			const errors = err.field ? { [err.field]: [err.message] } : {};
-			return fail(err.status, { message: err.message, errors, values });
+			return refusedForm(err, (r) => ({
+				errors: r.field ? { [r.field]: [r.message] } : {},
+				values
+			}));
 		}
 	}
 };

@@ -6,13 +6,13 @@ import { fieldErrors } from '$lib/server/forms';
 import { requireRole } from '$lib/server/policies';
 import { chooseSociety } from '$lib/server/society-choice';
 import {
-	ScaleProblem,
 	copyScale,
 	createScale,
 	listSocietyScales,
 	updateScale
 } from '$lib/server/services/scales';
 import type { Actions, PageServerLoad } from './$types';
+import { refusedForm } from '$lib/server/http/refusals';
 
 /** The society's chair or admin keeps its scales of points. */
 const ROLES = ['chair', 'admin'] as const;
@@ -56,8 +56,7 @@ export const actions: Actions = {
 			});
 			return { saved };
 		} catch (e) {
-			if (!(e instanceof ScaleProblem)) throw e;
-			return fail(400, { message: e.message, errors: { [e.field]: e.message }, values });
+			return refusedForm(e, (r) => ({ errors: { [r.field ?? 'form']: r.message }, values }));
 		}
 	},
 	copy: async (event) => {
@@ -73,8 +72,7 @@ export const actions: Actions = {
 			);
 			return { saved: `The copy “${copy.name}” is made; edit it below.`, copiedId: copy.id };
 		} catch (e) {
-			if (!(e instanceof ScaleProblem)) throw e;
-			return fail(400, { message: e.message });
+			return refusedForm(e);
 		}
 	}
 };

@@ -5,8 +5,9 @@ import { societyFormOptions, societyFormValues, startSocietySchema } from '$lib/
 import { societySignup } from '$lib/server/config';
 import { sequelize } from '$lib/server/db';
 import { requireUser } from '$lib/server/policies';
-import { SIGNUP_CLOSED_MESSAGE, SocietyError, startSociety } from '$lib/server/services/societies';
+import { SIGNUP_CLOSED_MESSAGE, startSociety } from '$lib/server/services/societies';
 import type { Actions, PageServerLoad } from './$types';
+import { refusedForm } from '$lib/server/http/refusals';
 
 export const load: PageServerLoad = (event) => {
 	requireUser(event);
@@ -46,9 +47,10 @@ export const actions: Actions = {
 			);
 			redirect(303, `/admin/members?society=${started.society.slug}`);
 		} catch (err) {
-			if (!(err instanceof SocietyError)) throw err;
-			const errors = err.field ? { [err.field]: [err.message] } : {};
-			return fail(err.status, { message: err.message, errors, values });
+			return refusedForm(err, (r) => ({
+				errors: r.field ? { [r.field]: [r.message] } : {},
+				values
+			}));
 		}
 	}
 };

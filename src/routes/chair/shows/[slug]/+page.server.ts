@@ -5,12 +5,13 @@ import { requireConfirmation } from '$lib/server/confirm';
 import { fieldErrors, textFields } from '$lib/server/forms';
 import { requireShowRole } from '$lib/server/policies/show';
 import {
-	ScheduleProblem,
 	setSchedulePublished,
 	settingsOf,
 	updateShowSettings
 } from '$lib/server/services/schedule';
 import type { Actions, PageServerLoad } from './$types';
+import { refusedForm } from '$lib/server/http/refusals';
+import type { Refusal } from '$lib/server/services/refusal';
 
 const FIELDS = [
 	'name',
@@ -63,8 +64,9 @@ export const actions: Actions = {
 				updateShowSettings(show, parsed.data, { transaction })
 			);
 		} catch (e) {
-			if (!(e instanceof ScheduleProblem)) throw e;
-			return fail(400, { message: e.message, errors: { [e.field]: e.message }, values });
+			// The award rules' fields are nested (merit.red); this form's are flat (red).
+			const field = (r: Refusal) => (r.field ?? 'form').split('.').pop() ?? 'form';
+			return refusedForm(e, (r) => ({ errors: { [field(r)]: r.message }, values }));
 		}
 		return { saved: 'The show’s dates and rules are saved.' };
 	},
@@ -85,8 +87,7 @@ export const actions: Actions = {
 				setSchedulePublished(show, published, { transaction, actor: user })
 			);
 		} catch (e) {
-			if (!(e instanceof ScheduleProblem)) throw e;
-			return fail(400, { message: e.message });
+			return refusedForm(e);
 		}
 		return {
 			saved: published

@@ -4,7 +4,6 @@ import { copyShowSchema, newShowSchema } from '$lib/schemas/show-setup';
 import { sequelize } from '$lib/server/db';
 import { textFields } from '$lib/server/forms';
 import { requireRole } from '$lib/server/policies';
-import { isRefusal } from '$lib/server/services/refusal';
 import {
 	chairSocieties,
 	copyShow,
@@ -13,6 +12,7 @@ import {
 	type SetupActor
 } from '$lib/server/services/show-setup';
 import type { Actions, PageServerLoad } from './$types';
+import { refusedForm } from '$lib/server/http/refusals';
 
 const NEW_FIELDS = [
 	'societyId',
@@ -55,9 +55,7 @@ async function setUp<S extends z.ZodType>(
 	try {
 		slug = (await sequelize.transaction((t) => work(parsed.data, t))).slug;
 	} catch (err) {
-		if (!isRefusal(err)) throw err;
-		const status = err.status === 423 ? 409 : err.status;
-		return fail(status, { kind, message: err.message, field: err.field ?? 'form', values });
+		return refusedForm(err, (r) => ({ kind, field: r.field ?? 'form', values }));
 	}
 	redirect(303, `/chair/shows/${slug}?started=${kind}`);
 }

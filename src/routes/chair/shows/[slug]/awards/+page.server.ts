@@ -1,7 +1,5 @@
-import { fail } from '@sveltejs/kit';
 import { requireConfirmation } from '$lib/server/confirm';
 import { sequelize } from '$lib/server/db';
-import { isRefusal } from '$lib/server/services/refusal';
 import {
 	awardsOf,
 	describeAwards,
@@ -13,6 +11,7 @@ import { requireShowRole } from '$lib/server/policies/show';
 import { loadSocietySettings } from '$lib/server/services/society-settings';
 import { formatDateTime } from '$lib/format';
 import type { Actions, PageServerLoad } from './$types';
+import { refusedForm } from '$lib/server/http/refusals';
 
 export const load: PageServerLoad = async (event) => {
 	const { show } = await requireShowRole(event, event.params.slug, ['chair']);
@@ -64,8 +63,7 @@ export const actions: Actions = {
 				message: `Results published: ${outcome.awards} awards stored${outcome.ties ? `, ${outcome.ties} ties left for the judges` : ''}. Scores are locked. ${outcome.queued} placements ${outcome.queued === 1 ? 'e-mail is' : 'e-mails are'} on their way.`
 			};
 		} catch (err) {
-			if (isRefusal(err)) return fail(409, { message: err.message });
-			throw err;
+			return refusedForm(err);
 		}
 	}
 };

@@ -6,7 +6,6 @@ import { requireConfirmation } from '$lib/server/confirm';
 import { fieldErrors, textFields } from '$lib/server/forms';
 import { requireShowRole } from '$lib/server/policies/show';
 import {
-	ScheduleProblem,
 	deleteClass,
 	deleteDivision,
 	listScales,
@@ -19,6 +18,7 @@ import {
 } from '$lib/server/services/schedule';
 import { loadSocietySettings } from '$lib/server/services/society-settings';
 import type { Actions, PageServerLoad } from './$types';
+import { refusedForm } from '$lib/server/http/refusals';
 
 const CLASS_FIELDS = [
 	'divisionId',
@@ -61,7 +61,7 @@ export const load: PageServerLoad = async (event) => {
 	};
 };
 
-/** Runs a schedule change in one transaction; a ScheduleProblem becomes a 400 with its field. */
+/** Runs a schedule change in one transaction; a refusal becomes a 400 with its field. */
 async function attempt(
 	change: (transaction: import('sequelize').Transaction) => Promise<unknown>,
 	extra: Record<string, unknown> = {}
@@ -70,8 +70,7 @@ async function attempt(
 		await sequelize.transaction(change);
 		return null;
 	} catch (e) {
-		if (!(e instanceof ScheduleProblem)) throw e;
-		return fail(400, { message: e.message, errors: { [e.field]: e.message }, ...extra });
+		return refusedForm(e, (r) => ({ errors: { [r.field ?? 'form']: r.message }, ...extra }));
 	}
 }
 

@@ -1,10 +1,10 @@
 import { fail } from '@sveltejs/kit';
 import { sequelize } from '$lib/server/db';
-import { isRefusal } from '$lib/server/services/refusal';
 import { loadAwardRulesPage, saveAwardRules } from '$lib/server/services/results';
 import { requireShowRole } from '$lib/server/policies/show';
 import { readRulesForm } from './form';
 import type { Actions, PageServerLoad } from './$types';
+import { refusedForm } from '$lib/server/http/refusals';
 
 export const load: PageServerLoad = async (event) => {
 	const { show } = await requireShowRole(event, event.params.slug, ['chair']);
@@ -21,8 +21,7 @@ export const actions: Actions = {
 				saveAwardRules(show, read.rules, read.method, { transaction })
 			);
 		} catch (err) {
-			if (isRefusal(err)) return fail(400, { message: err.message, field: err.field });
-			throw err;
+			return refusedForm(err);
 		}
 		return { ok: true, message: 'Award rules saved.' };
 	}
