@@ -9,7 +9,7 @@ import {
 	SESSION_COOKIES,
 	sessionTokenOf
 } from '$lib/server/auth';
-import { resultsPageCache } from '$lib/server/cache/results-page';
+import { resultsPageCache } from '$lib/server/cache/results';
 import { checkHostSettings } from '$lib/server/config';
 import { sequelize } from '$lib/server/db';
 import { DATABASE_DOWN_MESSAGE, isDatabaseDown } from '$lib/server/db/connection';

@@ -1,7 +1,7 @@
 /**
  * Published results: one loader (`loadShowResults`) turns a show's stored awards and scores into
  * `ShowResults`, which every document, the CSV, the e-mails, the charts and the pages use. Also:
- * the public page's cached read, the placements e-mails written to the outbox in the publishing
+ * the public page's read (kept in cache/results.ts), the placements e-mails written to the outbox in the publishing
  * transaction, and the chair's view of their delivery.
  */
 import { QueryTypes, type Transaction } from 'sequelize';
@@ -9,6 +9,7 @@ import { describeAwardSettings, type Award } from '$lib/domain/awards';
 import { assembleResults, publicResults, type ResultsSource } from '$lib/results/assemble';
 import type { ShowResults } from '$lib/results/types';
 import type { AuditActor } from '../audit';
+import { cachedResults, resultsKey } from '../cache/results';
 import { sequelize } from '../db';
 import { mailProgress, queueMail, resendMail, type MailProgress } from '../mail/outbox';
 import { buildResultsMessage } from '../mail/results-message';
@@ -40,6 +41,7 @@ interface ShowRow {
 	judging_day: string;
 	schedule_published_at: Date | null;
 	results_published_at: Date | null;
+	updated_at: Date;
 }
 
 function toResultsShow(r: ShowRow): ResultsShow {
@@ -56,14 +58,13 @@ function toResultsShow(r: ShowRow): ResultsShow {
 	};
 }
 
-/** Finds a show by its address (one query), or null. */
-export async function findResultsShow(
+async function readResultsShow(
 	where: { slug: string } | { id: string },
 	transaction?: Transaction
-): Promise<ResultsShow | null> {
+): Promise<ShowRow | null> {
 	const [row] = await sequelize.query<ShowRow>(
 		`SELECT s.id, s.society_id, s.slug, s.name, so.name AS society_name, s.venue, s.judging_day,
-		        s.schedule_published_at, s.results_published_at
+		        s.schedule_published_at, s.results_published_at, s.updated_at
 		   FROM shows s JOIN societies so ON so.id = s.society_id
 		  WHERE ${'slug' in where ? 's.slug = :key' : 's.id = :key'}`,
 		{
@@ -72,6 +73,15 @@ export async function findResultsShow(
 			transaction
 		}
 	);
+	return row ?? null;
+}
+
+/** Finds a show by its address (one query), or null. */
+export async function findResultsShow(
+	where: { slug: string } | { id: string },
+	transaction?: Transaction
+): Promise<ResultsShow | null> {
+	const row = await readResultsShow(where, transaction);
 	return row ? toResultsShow(row) : null;
 }
 
@@ -197,32 +207,28 @@ async function inTurnOrTogether<T extends readonly (() => Promise<unknown>)[]>(
 	return out as { -readonly [K in keyof T]: Awaited<ReturnType<T[K]>> };
 }
 
-/** Results rendered for the public page, kept per show in this process. */
-const publicCache = new Map<string, { publishedAt: string; results: ShowResults }>();
-const PUBLIC_CACHE_SIZE = 16;
-
 /**
  * The public results of a show by its address: null results while unpublished (nothing about
- * scores is read). Cached per show and keyed by the publishing time, which is read fresh on every
- * request (one query), so a publish seen by any instance shows at once everywhere.
+ * scores is read). Kept in the one results cache (cache/results.ts) under the show's publishing
+ * time and last change, which are read fresh on every request (one query), so a publish seen by
+ * any instance shows at once everywhere.
  */
 export async function loadPublicResults(
 	slug: string
 ): Promise<{ show: ResultsShow; results: ShowResults | null } | null> {
-	const show = await findResultsShow({ slug });
-	if (!show) return null;
-	if (!show.publishedAt) return { show, results: null };
-	const cached = publicCache.get(show.id);
-	if (cached && cached.publishedAt === show.publishedAt) return { show, results: cached.results };
-	const loaded = await loadShowResults(show.id);
-	if (!loaded) return null;
-	const results = publicResults(loaded);
-	publicCache.delete(show.id);
-	publicCache.set(show.id, { publishedAt: show.publishedAt, results });
-	while (publicCache.size > PUBLIC_CACHE_SIZE) {
-		publicCache.delete(publicCache.keys().next().value as string);
-	}
-	return { show, results };
+	const row = await readResultsShow({ slug });
+	if (!row) return null;
+	const show = toResultsShow(row);
+	if (!row.results_published_at) return { show, results: null };
+	const results = await cachedResults(
+		row.slug,
+		resultsKey(row.results_published_at, row.updated_at),
+		async () => {
+			const loaded = await loadShowResults(show.id);
+			return loaded ? publicResults(loaded) : null;
+		}
+	);
+	return results ? { show, results } : null;
 }
 
 /** Where the links in placements e-mails lead. */
