@@ -1,32 +1,13 @@
+import type { AwardRules } from './domain/awards';
+import type { ClassRules } from './domain/eligibility';
 import { formatMoney } from './domain/money';
 import { formatLengthBoth, type LengthUnit } from './domain/units';
 import { formatDate } from './format';
 
-/** The class fields that the schedule describes in words. */
-export interface ClassDescribed {
-	habit: 'single_crown' | 'trailer' | 'any';
-	sizeClasses: string[];
-	blossomTypes: string[];
-	blossomColours: string[];
-	foliage: 'plain' | 'variegated' | 'any';
-	minCrowns: number | null;
-	maxCrowns: number | null;
-	collectionSize: number | null;
-	speciesOnly: boolean;
-	maxDiameterIn: number | null;
-	possessionMonths: number | null;
-	maxEntriesPerExhibitor: number | null;
-	maxEntriesPerVariety: number | null;
-	maxPotIn: number | null;
+/** The class fields that the schedule describes in words: the class's rules and its scale. */
+export interface ClassDescribed extends ClassRules {
 	scaleName?: string | null;
 }
-
-/** Plain names of a habit, for labels. */
-export const HABIT_LABELS: Record<string, string> = {
-	single_crown: 'single crown',
-	trailer: 'trailer',
-	any: 'single crown or trailer'
-};
 
 function list(items: string[], joiner = 'or'): string {
 	if (items.length <= 1) return items.join('');
@@ -88,11 +69,7 @@ export interface ShowDescribed {
 	maxEntriesPerClass: number;
 	maxEntriesPerVariety: number;
 	requireGoodStanding: boolean;
-	awardRules: {
-		system: 'merit' | 'placement';
-		merit: { blue: number; red: number; white: number };
-		placement: { first: number; second: number; third: number; honourable: number };
-	};
+	awardRules: Pick<AwardRules, 'system' | 'merit' | 'placement'>;
 	/** The fee for each entry in cents, when the schedule states it. */
 	entryFeeCents?: number;
 }

@@ -5,6 +5,7 @@ import {
 	computeAwards,
 	DEFAULT_AWARD_RULES,
 	describeAwardSettings,
+	markOrderProblems,
 	validateAwardRules,
 	type Award,
 	type AwardClass,
@@ -951,6 +952,41 @@ describe('input', () => {
 			'bestInClassMin',
 			'topAwards.0.classIds',
 			'topAwards.1.id'
+		]);
+	});
+});
+
+describe('the order of the marks', () => {
+	// Merit ribbons 90 / 80 / 70 and place minimums: national handbook, from memory (DOMAIN.md).
+	const marks = (merit: number[], placement: number[]) => ({
+		merit: { blue: merit[0], red: merit[1], white: merit[2] },
+		placement: {
+			first: placement[0],
+			second: placement[1],
+			third: placement[2],
+			honourable: placement[3]
+		}
+	});
+	it.each([
+		['the usual marks', [90, 80, 70], [90, 85, 80, 75], []],
+		['equal place minimums', [90, 80, 70], [80, 80, 80, 80], []],
+		['a red mark above blue', [90, 95, 70], [90, 85, 80, 75], ['merit.red']],
+		[
+			'a red mark equal to blue (red could never be given)',
+			[90, 90, 70],
+			[90, 85, 80, 75],
+			['merit.red']
+		],
+		['a white mark above red', [90, 80, 85], [90, 85, 80, 75], ['merit.white']],
+		['a third place minimum above second', [90, 80, 70], [90, 80, 85, 75], ['placement.third']],
+		['a mark that is no number', [90, Number.NaN, 70], [90, 85, 80, 75], ['merit.red']]
+	])('%s', (_name, merit, placement, fields) => {
+		expect(markOrderProblems(marks(merit, placement)).map((p) => p.field)).toEqual(fields);
+	});
+	it('says the same words on every page', () => {
+		expect(markOrderProblems(marks([90, 95, 70], [90, 95, 80, 75])).map((p) => p.message)).toEqual([
+			'The ribbon marks must fall from blue to red to white.',
+			'The place minimums must not rise from first place down.'
 		]);
 	});
 });

@@ -42,7 +42,6 @@ export const scaleSchema = z
 		}
 		return draft;
 	});
-export type ScaleInput = z.output<typeof scaleSchema>;
 
 /** The criteria rows of a scale form, read from repeated fields `label`, `maxPoints`, `key`. */
 export function scaleFormValues(form: FormData): z.input<typeof scaleSchema> {

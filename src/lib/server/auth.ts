@@ -32,7 +32,10 @@ export function findSessionUser(token: string) {
 	});
 }
 
-/** The last configured address read, and its origin and host (read once, not per request). */
+/**
+ * The app's public address (`AUTH_URL`, else `ORIGIN`), every sign-in link is made from it: the
+ * last one read, with its origin and host (parsed once, not per request).
+ */
 let parsedAddress: { configured: string; origin: string; host: string } | null = null;
 
 function configuredAddress(): { origin: string; host: string } | undefined {
@@ -43,11 +46,6 @@ function configuredAddress(): { origin: string; host: string } | undefined {
 		parsedAddress = { configured, origin: url.origin, host: url.host };
 	}
 	return parsedAddress;
-}
-
-/** The app's public address (`AUTH_URL`, else `ORIGIN`): every sign-in link is made from it. */
-export function publicOrigin(): string | undefined {
-	return configuredAddress()?.origin;
 }
 
 /** `AUTH_TRUST_HOST=true`: a proxy in front sets Host and X-Forwarded-Host, and Auth.js reads them. */

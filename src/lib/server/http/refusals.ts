@@ -3,7 +3,7 @@
  * action's failure and an API's JSON answer. Anything that is not a Refusal is thrown on, so an
  * unexpected error still reaches handleError.
  */
-import { fail, json, type ActionFailure } from '@sveltejs/kit';
+import { fail, type ActionFailure } from '@sveltejs/kit';
 import { isRefusal, type Refusal } from '../services/refusal';
 
 /** What a form page reads from a refusal: the message and the field it concerns. */
@@ -33,10 +33,4 @@ export function refusalAnswer(
 ): { status: number; body: { message: string } } {
 	if (!isRefusal(err)) throw err;
 	return { status: err.status, body: { message: err.message, ...extra?.(err) } };
-}
-
-/** The same as a Response, for `+server.ts` routes. */
-export function refusedJson(err: unknown, extra?: (refusal: Refusal) => object): Response {
-	const answer = refusalAnswer(err, extra);
-	return json(answer.body, { status: answer.status });
 }

@@ -6,11 +6,6 @@ const DEV_WEBHOOK_SECRET = 'whsec_crownbench_development_only';
 
 let client: Stripe | null = null;
 
-/** True when no real payment service is configured, so the local fake is used. */
-export function usesLocalFake(): boolean {
-	return !process.env.STRIPE_SECRET_KEY || Boolean(process.env.STRIPE_API_HOST);
-}
-
 /**
  * The payment service client. STRIPE_SECRET_KEY selects the account; STRIPE_API_HOST, _PORT and
  * _PROTOCOL point the SDK elsewhere (the local fake). Without a key, outside production, it talks

@@ -1,7 +1,7 @@
 import { error, type RequestEvent } from '@sveltejs/kit';
 import type { Role } from '$lib/roles';
 import { Show } from '../db';
-import { hasRole, requireRole } from './index';
+import { requireRole } from './index';
 
 /** The show with this slug, or a 404 page or answer. */
 export async function findShowOr404(slug: string): Promise<Show> {
@@ -22,9 +22,4 @@ export async function requireShowRole(
 	const show = await findShowOr404(slug);
 	const user = requireRole(event, roles, show.societyId);
 	return { show, user };
-}
-
-/** True when the person may work the entry desk of the show (clerk or chair of its society). */
-export function canWorkDesk(user: App.SignedInUser | null, societyId: string): boolean {
-	return hasRole(user, ['clerk', 'chair'], societyId);
 }

@@ -1,4 +1,4 @@
-import { QueryTypes, type Transaction } from 'sequelize';
+import { QueryTypes } from 'sequelize';
 import { isRole, type Role } from '$lib/roles';
 import { Membership, Society, User, sequelize } from '../db';
 
@@ -86,70 +86,4 @@ export interface PersonRow {
 	roles: Role[];
 	household: string | null;
 	duesPaidThrough: string | null;
-}
-
-/** Lists the people of a society with their roles, by name. */
-export async function listSocietyPeople(societyId: string): Promise<PersonRow[]> {
-	const rows = await Membership.findAll({
-		where: { societyId },
-		include: [{ model: User, as: 'user', attributes: ['id', 'name', 'email'] }]
-	});
-	return rows
-		.map((m) => {
-			const u = m.get('user') as User;
-			return {
-				userId: u.id,
-				name: u.name,
-				email: u.email,
-				roles: m.roles.filter(isRole),
-				household: m.household,
-				duesPaidThrough: m.duesPaidThrough
-			};
-		})
-		.sort((a, b) => (a.name ?? a.email).localeCompare(b.name ?? b.email));
-}
-
-/**
- * Gives a person (found or created by e-mail) exactly these roles in a society.
- * An empty role list keeps them in the society with no roles.
- */
-export async function setSocietyRoles(
-	input: { societyId: string; email: string; name?: string | null; roles: Role[] },
-	options: { transaction: Transaction }
-): Promise<PersonRow> {
-	const { transaction } = options;
-	const email = input.email.trim().toLowerCase();
-	const [user] = await User.findOrCreate({
-		where: { email },
-		defaults: { email, name: input.name ?? null, emailVerified: null, image: null },
-		transaction
-	});
-	if (input.name && !user.name) {
-		user.name = input.name;
-		await user.save({ transaction });
-	}
-	const roles = [...new Set(input.roles)].sort();
-	const [membership, created] = await Membership.findOrCreate({
-		where: { societyId: input.societyId, userId: user.id },
-		defaults: {
-			societyId: input.societyId,
-			userId: user.id,
-			roles,
-			household: null,
-			duesPaidThrough: null
-		},
-		transaction
-	});
-	if (!created) {
-		membership.roles = roles;
-		await membership.save({ transaction });
-	}
-	return {
-		userId: user.id,
-		name: user.name,
-		email: user.email,
-		roles,
-		household: membership.household,
-		duesPaidThrough: membership.duesPaidThrough
-	};
 }

@@ -1,7 +1,7 @@
 import { Op, literal, type FindOptions, type Transaction } from 'sequelize';
 import { awardRulesFrom, type AwardRules } from '$lib/domain/awards';
 import type { ClassRules, SizeClass } from '$lib/domain/eligibility';
-import type { ClassDescribed } from '$lib/schedule-text';
+import type { ClassDescribed, ShowDescribed } from '$lib/schedule-text';
 import type { ClassInput, DivisionInput, ShowSettingsInput } from '$lib/schemas/show';
 import { recordShowAudit, type AuditActor } from '../audit';
 import { refuseFrozenClassChange, type ClassProgress } from '$lib/domain/class-rules';
@@ -18,7 +18,6 @@ export interface ScheduleClass extends ClassDescribed {
 	code: string;
 	name: string;
 	description: string | null;
-	sizeClasses: SizeClass[];
 	scaleId: string | null;
 	scaleName: string | null;
 }
@@ -33,20 +32,10 @@ export interface ScheduleDivision {
 }
 
 /** A show's settings as the chair's form shows them. */
-export interface ShowSettings {
+export interface ShowSettings extends ShowDescribed {
 	id: string;
 	slug: string;
 	name: string;
-	venue: string;
-	publicHours: string;
-	entriesOpen: string;
-	entriesClose: string;
-	entryDay: string;
-	judgingDay: string;
-	possessionMonths: number;
-	maxEntriesPerClass: number;
-	maxEntriesPerVariety: number;
-	requireGoodStanding: boolean;
 	awardRules: AwardRules;
 	schedulePublished: boolean;
 	generalRules: string;

@@ -1,6 +1,6 @@
 import type { Transaction } from 'sequelize';
 import { settingsFrom, type SocietySettings } from '$lib/domain/society-settings';
-import { Show, Society } from '../db';
+import { Society } from '../db';
 
 /** The settings a society's pages and documents follow (defaults for a value not set). */
 export async function loadSocietySettings(
@@ -12,16 +12,4 @@ export async function loadSocietySettings(
 		transaction: options.transaction
 	});
 	return settingsFrom(society ? society.get({ plain: true }) : {});
-}
-
-/** The settings of the society that holds a show. */
-export async function loadShowSocietySettings(
-	showId: string,
-	options: { transaction?: Transaction } = {}
-): Promise<SocietySettings> {
-	const show = await Show.findByPk(showId, {
-		attributes: ['societyId'],
-		transaction: options.transaction
-	});
-	return show ? loadSocietySettings(show.societyId, options) : settingsFrom({});
 }
