@@ -123,7 +123,7 @@ const SHEET_COLUMNS = `id, entry_id AS "entryId", kind, deductions, comment,
 
 /**
  * The app's save transaction, statement for statement (lock and access; answer and sheet; writes),
- * sent as named statements under the app's names, as the app sends them.
+ * sent as named statements (the bare limit: the app sends the same texts through Sequelize).
  */
 async function saveSheet(/** @type {{id: string, email: string}} */ actor, /** @type {any} */ c) {
 	const db = await pool.connect();
