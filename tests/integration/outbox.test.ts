@@ -266,10 +266,14 @@ describe('mail outbox', () => {
 		);
 		await makeJobsDue('mail-send');
 		await workDueJobs('mail-send');
-		const [bad] = await sequelize.query<{ state: string; retry_count: number; output: { message: string } }>(
-			'SELECT state, retry_count, output FROM pgboss.job WHERE id = $1',
-			{ bind: [id], type: QueryTypes.SELECT }
-		);
+		const [bad] = await sequelize.query<{
+			state: string;
+			retry_count: number;
+			output: { message: string };
+		}>('SELECT state, retry_count, output FROM pgboss.job WHERE id = $1', {
+			bind: [id],
+			type: QueryTypes.SELECT
+		});
 		expect(bad.state).toBe('failed');
 		expect(bad.retry_count).toBe(0);
 		expect(bad.output.message).toMatch(/messageId expects an id/);

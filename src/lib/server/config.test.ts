@@ -84,8 +84,11 @@ describe('readConfig', () => {
 			/CB_DEV_MAIL_URL is set/
 		);
 		expect(
-			readConfig({ ...PRODUCTION, CB_DEV_MAIL_URL: 'http://127.0.0.1:2536', CB_ALLOW_DEV_MAIL: '1' })
-				.allowDevMail
+			readConfig({
+				...PRODUCTION,
+				CB_DEV_MAIL_URL: 'http://127.0.0.1:2536',
+				CB_ALLOW_DEV_MAIL: '1'
+			}).allowDevMail
 		).toBe(true);
 		expect(() => readConfig({ ...PRODUCTION, STRIPE_API_HOST: '127.0.0.1' })).toThrow(
 			/STRIPE_API_HOST is set/
@@ -95,6 +98,8 @@ describe('readConfig', () => {
 		).toBe(true);
 		expect(() => readConfig({ ...PRODUCTION, AUTH_SECRET: '' })).toThrow(/Set AUTH_SECRET/);
 		// Development: the demo's own mail page and fakes are the point.
-		expect(readConfig({ CB_DEV_MAIL_URL: 'http://127.0.0.1:2536', STRIPE_API_HOST: 'x' })).toBeTruthy();
+		expect(
+			readConfig({ CB_DEV_MAIL_URL: 'http://127.0.0.1:2536', STRIPE_API_HOST: 'x' })
+		).toBeTruthy();
 	});
 });

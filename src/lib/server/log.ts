@@ -21,7 +21,8 @@ export function logger(): Logger {
 
 /** The parts of an error worth a log line: its kind, message and stack (never its data). */
 export function errorFields(error: unknown): { name?: string; message: string; stack?: string } {
-	if (error instanceof Error) return { name: error.name, message: error.message, stack: error.stack };
+	if (error instanceof Error)
+		return { name: error.name, message: error.message, stack: error.stack };
 	return { message: String(error) };
 }
 

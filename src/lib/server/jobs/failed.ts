@@ -42,7 +42,9 @@ function errorOf(output: FailedRow['output']): string {
 function aboutOf(row: FailedRow): string {
 	if (row.name === 'mail-send') return row.subject ?? 'An e-mail no longer in the outbox';
 	if (row.name === 'refund-send') {
-		return row.refund_cents === null ? 'A refund no longer on record' : `A refund of ${(row.refund_cents / 100).toFixed(2)}`;
+		return row.refund_cents === null
+			? 'A refund no longer on record'
+			: `A refund of ${(row.refund_cents / 100).toFixed(2)}`;
 	}
 	if (row.name === 'show-pdf') return row.document ?? 'A document no longer kept';
 	return JOB_LABELS[row.name];

@@ -30,7 +30,8 @@ export function isShowDocument(value: string): value is ShowDocument {
 /** One document of a publication, as the chair's page shows it. */
 export interface ShowPdfState {
 	document: ShowDocument;
-	status: 'waiting' | 'building' | 'ready' | 'failed';
+	/** missing: never asked for (published before documents were kept, or the paper changed). */
+	status: 'missing' | 'waiting' | 'building' | 'ready' | 'failed';
 	bytes: number | null;
 	lastError: string | null;
 	builtAt: string | null;
@@ -111,7 +112,7 @@ export async function showPdfStates(showId: string): Promise<ShowPdfState[]> {
 	if (!publication) return [];
 	const rows = await sequelize.query<{
 		document: ShowDocument;
-		status: ShowPdfState['status'];
+		status: Exclude<ShowPdfState['status'], 'missing'>;
 		bytes: number | null;
 		last_error: string | null;
 		built_at: Date | null;
@@ -127,7 +128,7 @@ export async function showPdfStates(showId: string): Promise<ShowPdfState[]> {
 		const row = rows.find((r) => r.document === document);
 		return {
 			document,
-			status: row?.status ?? 'waiting',
+			status: row?.status ?? 'missing',
 			bytes: row?.bytes ?? null,
 			lastError: row?.last_error ?? null,
 			builtAt: row?.built_at ? row.built_at.toISOString() : null
@@ -189,10 +190,9 @@ export async function buildShowPdfJob(
 		return `built ${pdf.length} bytes`;
 	} catch (error) {
 		const message = error instanceof Error ? error.message : String(error);
-		await sequelize.query(
-			`UPDATE show_pdfs SET status = $3, last_error = $2 WHERE id = $1`,
-			{ bind: [pdfId, message.slice(0, 1000), options.lastAttempt ? 'failed' : 'waiting'] }
-		);
+		await sequelize.query(`UPDATE show_pdfs SET status = $3, last_error = $2 WHERE id = $1`, {
+			bind: [pdfId, message.slice(0, 1000), options.lastAttempt ? 'failed' : 'waiting']
+		});
 		throw error;
 	}
 }

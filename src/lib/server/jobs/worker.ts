@@ -73,7 +73,13 @@ export async function runJobs(boss: PgBoss, name: JobName, jobs: Job[]): Promise
 		const started = performance.now();
 		try {
 			const outcome = await EFFECTS[name](job, lastAttempt);
-			logger().info({ msg: 'job', queue: name, jobId: job.id, outcome, ms: performance.now() - started });
+			logger().info({
+				msg: 'job',
+				queue: name,
+				jobId: job.id,
+				outcome,
+				ms: performance.now() - started
+			});
 		} catch (error) {
 			const failure = error instanceof Error ? error : new Error(String(error));
 			if (failure instanceof BadJobPayload) await failForGood(name, job.id, failure);
