@@ -3,18 +3,18 @@
  * refunds, entry reminders on their schedule, whole-show PDFs); run any number of them beside
  * app instances started with CB_WORKER=off. Settings are checked at start like the app's.
  */
-import { readConfig, useConfig } from '../src/lib/server/config';
+import { useConfig } from '../src/lib/server/config';
 import { sequelize } from '../src/lib/server/db';
 import { startJobWorker } from '../src/lib/server/jobs/worker';
 import { errorFields, logger } from '../src/lib/server/log';
 
 try {
-	readConfig(process.env);
+	// This process is a worker whatever CB_WORKER says (that switch is for app processes).
+	useConfig({ ...process.env, CB_WORKER: 'on', CB_OUTBOX_WORKER: 'on' });
 } catch (error) {
 	console.error(error instanceof Error ? error.message : error);
 	process.exit(1);
 }
-useConfig({ ...process.env, CB_WORKER: 'on', CB_OUTBOX_WORKER: 'on' });
 
 let stop: (() => Promise<void>) | null = null;
 let stopping = false;

@@ -174,8 +174,12 @@ export function productionProblems(c: Parsed): string[] {
 	return problems;
 }
 
-/** Checks the environment and returns the settings; throws ConfigError naming what is wrong. */
-export function readConfig(env: Env): Config {
+/**
+ * Checks the environment and returns the settings; throws ConfigError naming what is wrong. The
+ * production refusals apply unless `production: false` (modules read at import, even by the
+ * build's analysis, which runs as production: the app's start checks them again).
+ */
+export function readConfig(env: Env, checks: { production?: boolean } = {}): Config {
 	const problems: string[] = [];
 	for (const [name, why] of Object.entries(RETIRED)) {
 		if (env[name]) problems.push(`${name} is no longer used (${why}); remove it.`);
@@ -189,7 +193,7 @@ export function readConfig(env: Env): Config {
 		throw new ConfigError(problems);
 	}
 	const c = parsed.data;
-	problems.push(...productionProblems(c));
+	if (checks.production !== false) problems.push(...productionProblems(c));
 	if (problems.length > 0) throw new ConfigError(problems);
 	return {
 		production: c.NODE_ENV === 'production',
@@ -226,9 +230,13 @@ export function useConfig(env: Env): Config {
 	return current;
 }
 
-/** The settings read at start; scripts and tests that never called useConfig read process.env. */
+/**
+ * The settings read at start; code that runs before (modules at import) or without the app's
+ * start (scripts, tests) reads process.env, its values checked, its production refusals left to
+ * the start (useConfig, the worker script).
+ */
 export function config(): Config {
-	current ??= readConfig(process.env);
+	current ??= readConfig(process.env, { production: false });
 	return current;
 }
 
