@@ -73,8 +73,9 @@ export const configSchema = z.object({
 	SMTP_URL: address(['smtp:', 'smtps:'], 'an smtp:// or smtps:// address'),
 	MAIL_FROM: text,
 	CB_DEV_MAIL_URL: address(['http:', 'https:'], 'the http:// address of the SMTP fake'),
-	CB_ALLOW_DEV_MAIL: oneOf(['0', '1'], '0'),
-	CB_ALLOW_FAKES: oneOf(['0', '1'], '0'),
+	/** Only "1" opts in (anything else, as before, does not). */
+	CB_ALLOW_DEV_MAIL: text,
+	CB_ALLOW_FAKES: text,
 	CB_SOCIETY_SIGNUP: oneOf(['open', 'closed'], 'closed'),
 	CB_SIGNIN_LIMIT_PER_ADDRESS: wholeNumber(1, 100_000, 5),
 	CB_SIGNIN_LIMIT_PER_IP: wholeNumber(1, 10_000_000, 50),
