@@ -8,6 +8,7 @@
  * - both instances answer the chair's board alike, and both are ready (/readyz).
  */
 import { randomBytes } from 'node:crypto';
+import { readFileSync } from 'node:fs';
 import pg from 'pg';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { freePort } from '../faults/support/ports';
@@ -293,5 +294,27 @@ describe('two app instances and two workers on one database', () => {
 		});
 		expect(first).toEqual(second);
 		expect(JSON.stringify(boards[0]).length).toBeGreaterThan(100);
+	});
+
+	it('each instance logs one JSON line per request, with its id, and nothing personal', async () => {
+		const id = `proxy-${Date.now()}-check`;
+		const answer = await fetch(`${b.url}/healthz`, { headers: { 'x-request-id': id } });
+		expect(answer.headers.get('x-request-id')).toBe(id);
+		await waitFor('the request line', async () => readFileSync(b.logFile, 'utf8').includes(id));
+		for (const app of [a, b]) {
+			const lines = readFileSync(app.logFile, 'utf8')
+				.split('\n')
+				.filter((line) => line.startsWith('{'))
+				.map((line) => JSON.parse(line) as Record<string, unknown>);
+			const requests = lines.filter((l) => l.msg === 'request');
+			expect(requests.length).toBeGreaterThan(3);
+			for (const line of requests) {
+				expect(line).toMatchObject({ requestId: expect.any(String), route: expect.any(String) });
+			}
+			expect(requests.some((l) => l.route === '/signin' && l.method === 'POST')).toBe(true);
+			// Addresses were posted and mailed; none is in the log, nor a session token.
+			const text = readFileSync(app.logFile, 'utf8');
+			expect(text).not.toMatch(/@crownbench\.test|authjs\.session-token|limit-\d+@/);
+		}
 	});
 });
