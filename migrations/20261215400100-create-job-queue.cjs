@@ -4,7 +4,8 @@
  * The job queue (pg-boss 10) in its own schema, made by pg-boss's own construction plan, and its
  * queues, so that a change can queue its job in its own transaction before any worker started.
  * Each queue's retry and back-off defaults are set here; a job may carry its own (the mail
- * outbox's attempts are a host setting). worker_heartbeats: the workers alive (for /readyz).
+ * outbox's attempts are a host setting). Mail and refunds written before get their jobs.
+ * worker_heartbeats: the workers alive (for /readyz).
  */
 const PgBoss = require('pg-boss');
 
@@ -30,6 +31,15 @@ module.exports = {
 				replacements: { name, options: JSON.stringify({ policy: 'standard', ...options }) }
 			});
 		}
+		// Work written before the queue existed gets its job: mail still to send, refunds to send.
+		await sequelize.query(`
+			INSERT INTO ${SCHEMA}.job (name, data, retry_limit, retry_delay, retry_backoff)
+			SELECT 'mail-send', json_build_object('messageId', id, 'societyId', society_id), 7, 5, true
+			  FROM outbox_messages WHERE status IN ('waiting', 'sending')`);
+		await sequelize.query(`
+			INSERT INTO ${SCHEMA}.job (name, data, retry_limit, retry_delay, retry_backoff)
+			SELECT 'refund-send', json_build_object('refundId', r.id, 'societyId', p.society_id), 8, 30, true
+			  FROM refunds r JOIN payments p ON p.id = r.payment_id WHERE r.status = 'requested'`);
 		await sequelize.query(`
 			CREATE TABLE worker_heartbeats (
 				id text PRIMARY KEY,
