@@ -12,6 +12,10 @@ import {
 } from '../src/lib/server/db/connection';
 import { createMigrator, createSeeder } from '../src/lib/server/db/migrator';
 
+/** Every table, and the job queue's own schema (made again by its migration). */
+const DROP_EVERYTHING =
+	'DROP SCHEMA IF EXISTS pgboss CASCADE; DROP SCHEMA public CASCADE; CREATE SCHEMA public;';
+
 const command = process.argv[2] ?? 'status';
 const sequelize = createSequelize();
 const migrator = createMigrator(sequelize);
@@ -36,14 +40,14 @@ async function main(): Promise<void> {
 			break;
 		}
 		case 'reset': {
-			await sequelize.query('DROP SCHEMA public CASCADE; CREATE SCHEMA public;');
+			await sequelize.query(DROP_EVERYTHING);
 			const m = await migrator.up();
 			const s = await seeder.up();
 			console.log(`reset: ${m.length} migration(s), ${s.length} seeder(s)`);
 			break;
 		}
 		case 'empty': {
-			await sequelize.query('DROP SCHEMA public CASCADE; CREATE SCHEMA public;');
+			await sequelize.query(DROP_EVERYTHING);
 			const m = await migrator.up();
 			console.log(`empty: ${m.length} migration(s), no seed`);
 			break;

@@ -46,6 +46,8 @@ start_payment_fake() {
 
 # Points the app's payment SDK at the local fake (exports the STRIPE_* settings).
 use_payment_fake() {
+	# The fake is a development setting: a production build run by the tests opts in to it.
+	export CB_ALLOW_FAKES=1
 	export STRIPE_SECRET_KEY="sk_test_crownbench_local_fake"
 	export STRIPE_WEBHOOK_SECRET="whsec_crownbench_local_fake_$RANDOM$RANDOM"
 	export STRIPE_API_HOST=127.0.0.1 STRIPE_API_PORT="$PAYMENT_FAKE_PORT" STRIPE_API_PROTOCOL=http

@@ -113,6 +113,10 @@ step build "build (vite)" npx vite build --logLevel warn
 # restart (never the one above), with an SMTP fake of their own that they stop.
 step faults "fault tests (built app, database restart, SMTP down, killed publish)" \
 	npx vitest run --config tests/faults/vitest.config.ts
+# Two instances (tests/instances): two built apps and two job workers on one PostgreSQL cluster of
+# their own (sessions, sign-in limits, placements e-mails once, the board alike).
+step instances "two instances (two apps, two workers, one database)" \
+	npx vitest run --config tests/instances/vitest.config.ts
 step e2e "browser tests (playwright + chromium)" e2e
 
 echo

@@ -12,6 +12,8 @@ declare global {
 		interface Locals {
 			/** The signed-in person, or null; filled by hooks.server.ts. */
 			user: SignedInUser | null;
+			/** This request's id in the logs and the X-Request-Id header; set by hooks.server.ts. */
+			requestId?: string;
 		}
 		interface SignedInUser {
 			id: string;

@@ -1,5 +1,6 @@
 import { error, type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
+import { env } from '$env/dynamic/private';
 import {
 	authHandle,
 	findSessionUser,
@@ -10,15 +11,13 @@ import {
 	sessionTokenOf
 } from '$lib/server/auth';
 import { resultsPageCache } from '$lib/server/cache/results';
-import { checkHostSettings } from '$lib/server/config';
+import { useConfig } from '$lib/server/config';
 import { sequelize } from '$lib/server/db';
 import { DATABASE_DOWN_MESSAGE, isDatabaseDown } from '$lib/server/db/connection';
 import { AREA_ROLES, areaOf, requireRole, requireUser, routedPath } from '$lib/server/policies';
-import { startOutboxWorker } from '$lib/server/mail/outbox';
-import { devMailEnabled, productionSettingProblems } from '$lib/server/startup-checks';
-import { startRefundSender } from '$lib/server/services/refunds';
-import { startReminderSchedule } from '$lib/server/services/reminders';
-import { todayIn } from '$lib/domain/dates';
+import { startJobWorker } from '$lib/server/jobs/worker';
+import { errorFields, logger, requestIdOf, requestLine } from '$lib/server/log';
+import { devMailEnabled } from '$lib/server/startup-checks';
 import { answerThrown, withSecurityHeaders } from '$lib/server/http/security-headers';
 
 /** The plain message of an unexpected error (the details go to the log). */
@@ -119,7 +118,40 @@ const databaseDownHandle: Handle = async ({ event, resolve }) => {
 	return new Response(response.body, { status: 503, statusText: 'Service Unavailable', headers });
 };
 
+/**
+ * One JSON log line per request (route, status, time, request id; nothing personal) and the
+ * request id on the answer (X-Request-Id), taken from the proxy when it sent one.
+ */
+const logHandle: Handle = async ({ event, resolve }) => {
+	const requestId = requestIdOf(event.request.headers.get('x-request-id'));
+	event.locals.requestId = requestId;
+	const started = performance.now();
+	let status = 500;
+	try {
+		const response = await resolve(event);
+		status = response.status;
+		try {
+			response.headers.set('X-Request-Id', requestId);
+		} catch {
+			// An answer with immutable headers (a fetched one passed on) keeps them.
+		}
+		return response;
+	} finally {
+		logger().info(
+			requestLine({
+				requestId,
+				method: event.request.method,
+				routeId: event.route.id,
+				status,
+				ms: performance.now() - started,
+				signedIn: !!event.locals.user
+			})
+		);
+	}
+};
+
 export const handle = sequence(
+	logHandle,
 	databaseDownHandle,
 	headersHandle,
 	// Anonymous visitors of published results get the page's current copy (see the module).
@@ -136,30 +168,40 @@ export const handleError: HandleServerError = ({ error: err, event, status }) =>
 		return { message: DATABASE_DOWN_MESSAGE };
 	}
 	if (status === 404) return { message: 'This page does not exist.' };
-	console.error(err);
+	logger().error({
+		msg: 'unexpected error',
+		requestId: event.locals.requestId,
+		route: event.route.id,
+		...errorFields(err)
+	});
 	return { message: UNEXPECTED_ERROR_MESSAGE };
 };
 
 /**
- * Each app process also sends the outbox unless CB_OUTBOX_WORKER=off (then run
- * `npm run worker` as its own process). Several senders are safe: rows are claimed with SKIP LOCKED.
+ * Settings are read once from `$env/dynamic/private` and checked (a wrong one stops the app with
+ * a message naming it). Each app process also works the job queues unless CB_WORKER=off (then
+ * run `npm run worker` as its own process); several workers on one database are safe.
  */
-export const init: ServerInit = () => {
-	// A host setting with a wrong value stops the app here, with a message naming it.
-	checkHostSettings();
-	const problems = productionSettingProblems();
-	if (problems.length > 0) throw new Error(`Crownbench will not start: ${problems.join(' ')}`);
-	const off = process.env.CB_OUTBOX_WORKER === 'off';
-	const stopWorker = off ? () => {} : startOutboxWorker();
-	const stopRefunds = off ? () => {} : startRefundSender();
-	// Entry reminders: an hourly check queues them once per show and member (CB_REMINDERS=off stops it).
-	const stopReminders =
-		process.env.CB_REMINDERS !== 'off' ? startReminderSchedule((zone) => todayIn(zone)) : () => {};
+export const init: ServerInit = async () => {
+	const config = useConfig(env);
+	let stopWorker = async () => {};
+	let retry: NodeJS.Timeout | undefined;
+	// The app answers while the database is out of reach (503s); the worker starts once it is back.
+	const start = async () => {
+		try {
+			stopWorker = await startJobWorker();
+		} catch (err) {
+			logger().warn({ msg: 'job worker not started; trying again in 5 s', ...errorFields(err) });
+			retry = setTimeout(() => void start(), 5000);
+			retry.unref();
+		}
+	};
+	if (config.worker) void start();
 	// adapter-node emits this after it stops taking requests (SIGTERM, SIGINT): let the process end.
 	process.once('sveltekit:shutdown', () => {
-		stopWorker();
-		stopRefunds();
-		stopReminders();
-		void sequelize.close();
+		clearTimeout(retry);
+		void stopWorker()
+			.catch((err: unknown) => logger().error({ msg: 'worker stop', ...errorFields(err) }))
+			.finally(() => void sequelize.close());
 	});
 };

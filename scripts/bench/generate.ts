@@ -96,7 +96,9 @@ export async function generateShow(url: string): Promise<BenchShow> {
 	}
 	const sequelize = createSequelize(url);
 	try {
-		await sequelize.query('DROP SCHEMA public CASCADE; CREATE SCHEMA public;');
+		await sequelize.query(
+			'DROP SCHEMA IF EXISTS pgboss CASCADE; DROP SCHEMA public CASCADE; CREATE SCHEMA public;'
+		);
 		await createMigrator(sequelize).up();
 	} finally {
 		await sequelize.close();

@@ -198,7 +198,7 @@ async function main(): Promise<void> {
 		DATABASE_URL: dbUrl,
 		NODE_ENV: 'production',
 		HOST: '127.0.0.1',
-		CB_OUTBOX_WORKER: 'off',
+		CB_WORKER: 'off',
 		CB_REMINDERS: 'off',
 		AUTH_SECRET: process.env.AUTH_SECRET ?? 'benchmark-only-secret'
 	};

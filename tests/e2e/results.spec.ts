@@ -58,6 +58,10 @@ test('the chair publishes results: public page, PDF download and placements e-ma
 	await expect(page.getByRole('img', { name: /Scores in division A/ })).toBeVisible();
 	await expectAccessible(page);
 
+	// The worker builds the documents off the request path; the page shows each once it is ready.
+	await expect(page.getByRole('link', { name: 'Award sheets (PDF)' })).toBeVisible({
+		timeout: 30_000
+	});
 	const pdf = await page.request.get(`/chair/shows/${slug}/results/award-sheets.pdf`);
 	expect(pdf.status()).toBe(200);
 	expect(pdf.headers()['content-type']).toBe('application/pdf');

@@ -39,7 +39,7 @@ const apps: Started[] = [];
 
 /** The outbox settings of the app under test: a quick worker, and retries far apart so that the
  * test, not the clock, decides when a waiting message is tried again. */
-const OUTBOX_ENV = { CB_OUTBOX_INTERVAL_MS: '100', CB_OUTBOX_BASE_DELAY_SECONDS: '3600' };
+const OUTBOX_ENV = { CB_JOBS_POLL_SECONDS: '1', CB_OUTBOX_BASE_DELAY_SECONDS: '3600' };
 
 async function one<T extends pg.QueryResultRow>(sql: string, params: unknown[] = []): Promise<T> {
 	return (await db.query<T>(sql, params)).rows[0];
@@ -230,11 +230,12 @@ describe('faults while publishing results', () => {
 		});
 		expect(tried.every((r) => /ECONNREFUSED/.test(r.last_error))).toBe(true);
 
-		// The mail server is back; the waiting messages are made due now instead of in an hour.
+		// The mail server is back; the waiting jobs are made due now instead of in an hour.
 		smtp = await startSmtpFake(smtpPorts);
 		await db.query(
-			`UPDATE outbox_messages SET next_attempt_at = now()
-			  WHERE show_id = $1 AND kind = 'results' AND status = 'waiting'`,
+			`UPDATE pgboss.job SET start_after = now()
+			  WHERE name = 'mail-send' AND state = 'retry'
+			    AND (data->>'messageId')::uuid IN (SELECT id FROM outbox_messages WHERE show_id = $1)`,
 			[show.id]
 		);
 		await waitFor('every placements e-mail to be sent', async () => {

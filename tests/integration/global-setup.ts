@@ -8,7 +8,9 @@ export default async function setup(): Promise<void> {
 	}
 	const sequelize = createSequelize();
 	try {
-		await sequelize.query('DROP SCHEMA public CASCADE; CREATE SCHEMA public;');
+		await sequelize.query(
+			'DROP SCHEMA IF EXISTS pgboss CASCADE; DROP SCHEMA public CASCADE; CREATE SCHEMA public;'
+		);
 		await createMigrator(sequelize).up();
 		await createSeeder(sequelize).up();
 	} finally {

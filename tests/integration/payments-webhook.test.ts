@@ -17,7 +17,9 @@ import { stripe, webhookSecret } from '$lib/server/payments/stripe';
 import { startDuesCheckout, startEntryFeeCheckout } from '$lib/server/services/payments';
 import { withdrawEntry } from '$lib/server/services/entries';
 import { feeStatusForNewEntry } from '$lib/server/services/entry-fees';
-import { sendRequestedRefunds, settleFeeOfWithdrawnEntry } from '$lib/server/services/refunds';
+import { sendRefund, settleFeeOfWithdrawnEntry } from '$lib/server/services/refunds';
+import { workDueJobs } from '$lib/server/jobs/worker';
+import { jobsFor } from './jobs';
 import { POST } from '../../src/routes/api/payments/webhook/+server';
 
 // The payment fake started by scripts/test.sh (STRIPE_API_PORT); it signs with STRIPE_WEBHOOK_SECRET.
@@ -408,12 +410,18 @@ describe('entry fees and refunds for withdrawn entries', () => {
 		);
 		expect(late).toBe('kept');
 
-		const sent = await sendRequestedRefunds();
-		expect(sent.sent).toBeGreaterThanOrEqual(1);
+		// The withdrawal queued the refund's job in its own transaction; a worker sends it.
 		const refund = (await Refund.findOne({ where: { entryId: entries[0].id } }))!;
-		expect(refund.status).toBe('sent');
+		expect((await jobsFor('refund-send', 'refundId', refund.id)).map((j) => j.state)).toEqual([
+			'created'
+		]);
+		expect(await workDueJobs('refund-send')).toBeGreaterThanOrEqual(1);
+		expect((await refund.reload()).status).toBe('sent');
+		expect((await jobsFor('refund-send', 'refundId', refund.id)).map((j) => j.state)).toEqual([
+			'completed'
+		]);
 		// Sending again does not refund twice (the row is no longer 'requested').
-		await sendRequestedRefunds();
+		expect(await sendRefund(refund.id)).toBe('not-due');
 
 		const payment = (await Payment.findByPk(paymentId))!;
 		const [refunded] = await refundEventsFor(payment.paymentIntentId!);

@@ -60,7 +60,11 @@ describe('security: what an outside test found (issue 19)', () => {
 	});
 
 	it('refuses to start in production with /dev/mail on, unless a test or demo run opts in', () => {
-		const base = { NODE_ENV: 'production', ORIGIN: 'https://shows.example.org' };
+		const base = {
+			NODE_ENV: 'production',
+			ORIGIN: 'https://shows.example.org',
+			AUTH_SECRET: 'a-secret-of-sixteen-or-more'
+		};
 		expect(productionSettingProblems(base)).toEqual([]);
 		expect(
 			productionSettingProblems({ ...base, CB_DEV_MAIL_URL: 'http://127.0.0.1:2536' })
@@ -75,8 +79,10 @@ describe('security: what an outside test found (issue 19)', () => {
 		// Development: the demo's own mail page is the point.
 		expect(productionSettingProblems({ CB_DEV_MAIL_URL: 'http://127.0.0.1:2536' })).toEqual([]);
 		// Without a public address, sign-in links would be made from the request's Host.
+		// Without a secret, sessions could not be signed.
 		expect(productionSettingProblems({ NODE_ENV: 'production' })).toEqual([
-			expect.stringMatching(/Set ORIGIN/)
+			expect.stringMatching(/Set ORIGIN/),
+			expect.stringMatching(/Set AUTH_SECRET/)
 		]);
 	});
 

@@ -2,7 +2,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { QueryTypes } from 'sequelize';
 import { PDFParse } from 'pdf-parse';
 import { sequelize } from '$lib/server/db';
-import { deliverDueMail } from '$lib/server/mail/outbox';
+import { workDueJobs } from '$lib/server/jobs/worker';
+import { makeJobsDue } from './jobs';
 import { renderAwardSheets } from '$lib/server/pdf/award-sheets';
 import { eachEntry } from '$lib/results/assemble';
 import { awardLine } from '$lib/results/labels';
@@ -169,7 +170,7 @@ describe('publishing results with placements e-mails', () => {
 
 	it('every placements e-mail arrives once, although the mail server refused for a while', async () => {
 		await refuse(9); // every message refused once, three of them twice
-		await deliverDueMail({ limit: 50 });
+		await workDueJobs('mail-send');
 		expect((await loadResultsMail(showId)).progress).toEqual({
 			waiting: 6,
 			sending: 0,
@@ -177,11 +178,8 @@ describe('publishing results with placements e-mails', () => {
 			failed: 0
 		});
 		for (let round = 0; round < 10; round++) {
-			await sequelize.query(
-				"UPDATE outbox_messages SET next_attempt_at = now() WHERE show_id = $1 AND status = 'waiting'",
-				{ bind: [showId] }
-			);
-			await deliverDueMail({ limit: 50 });
+			await makeJobsDue('mail-send');
+			await workDueJobs('mail-send');
 			if ((await loadResultsMail(showId)).progress.sent === 6) break;
 		}
 		expect((await loadResultsMail(showId)).progress).toEqual({
@@ -226,7 +224,7 @@ describe('publishing results with placements e-mails', () => {
 				resendResultsMail(showId, member.id, { transaction })
 			)
 		).toBe(true);
-		await deliverDueMail({ limit: 50 });
+		await workDueJobs('mail-send');
 		expect(await resultsMailFor('member@crownbench.test')).toHaveLength(2);
 	});
 });

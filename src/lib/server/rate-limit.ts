@@ -1,4 +1,5 @@
 import { RateLimiterPostgres, RateLimiterRes } from 'rate-limiter-flexible';
+import { config } from './config';
 import { sequelize } from './db';
 
 const WINDOW_SECONDS = 15 * 60;
@@ -16,9 +17,12 @@ function limiter(prefix: string, points: number): RateLimiterPostgres {
 	});
 }
 
-/** Sign-in links per e-mail address and per client address, per 15 minutes; kept in PostgreSQL. */
-const perAddress = limiter('signin-address', Number(process.env.CB_SIGNIN_LIMIT_PER_ADDRESS ?? 5));
-const perClient = limiter('signin-client', Number(process.env.CB_SIGNIN_LIMIT_PER_IP ?? 50));
+/**
+ * Sign-in links per e-mail address and per client address, per 15 minutes; kept in PostgreSQL,
+ * so every app instance on the database counts against the same limits.
+ */
+const perAddress = limiter('signin-address', config().signInLimitPerAddress);
+const perClient = limiter('signin-client', config().signInLimitPerClient);
 
 /**
  * Counts one sign-in request for the address and the client; returns null when allowed, or the

@@ -194,6 +194,15 @@ export const ACCESS_TABLE: AccessRow[] = [
 	},
 	// i-shows: starting a show, empty or as a copy (issue 13, item 3).
 	{ route: '/chair/shows/new', answers: pageFor('chair', 'other') },
+	// Operations (issue 18): health for a load balancer, open to all; failed jobs per society.
+	{ route: '/healthz', answers: all(200) },
+	{ route: '/readyz', answers: all(200) },
+	{ route: '/admin/jobs', answers: pageFor('admin', 'other') },
+	{
+		route: '/admin/jobs',
+		query: 'society=cedar-ridge',
+		answers: { ...pageFor('other'), admin: 403 }
+	},
 	// i-schedule: the society's scales of points (chair; other is chair of its own society, so it
 	// sees its own society's scales). An admin without the chair role stays outside /chair.
 	{ route: '/chair/scales', answers: pageFor('chair', 'other') },

@@ -99,6 +99,12 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 	// Results (issue 5).
 	'/api/chair/shows/[slug]/results-mail api:GET': { as: 'chair', corrupt: 'path', fields: [] },
 	'/chair/shows/[slug]/results action:resend': { as: 'chair', corrupt: 'form', fields: ['id'] },
+	// Whole-show PDFs built by the worker (issue 18): which document to build.
+	'/chair/shows/[slug]/results action:build': {
+		as: 'chair',
+		corrupt: 'form',
+		fields: ['document']
+	},
 	'/chair/shows/[slug]/results/[document] api:GET': {
 		as: 'chair',
 		corrupt: 'path',
@@ -428,5 +434,19 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 		as: 'admin',
 		corrupt: 'form',
 		fields: ['societyId', 'name', 'slug', 'country', 'unit', 'paperSize', 'timeZone', 'currency']
-	}
+	},
+	// Operations (issue 18): health for a load balancer, and the society's failed jobs.
+	'/healthz api:GET': {
+		as: 'anon',
+		corrupt: 'path',
+		fields: [],
+		noInput: 'the liveness answer reads nothing from the request'
+	},
+	'/readyz api:GET': {
+		as: 'anon',
+		corrupt: 'path',
+		fields: [],
+		noInput: 'the readiness answer reads nothing from the request'
+	},
+	'/admin/jobs action:retry': { as: 'admin', corrupt: 'form', fields: ['societyId', 'jobId'] }
 };

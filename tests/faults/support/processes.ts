@@ -15,9 +15,15 @@ export interface Started {
 	running(): boolean;
 }
 
-function startProcess(name: string, args: string[], env: NodeJS.ProcessEnv): Started {
-	mkdirSync(faultsDir, { recursive: true });
-	const logFile = path.join(faultsDir, `${name}.log`);
+/** Starts `node <args>` in the project folder, its output in `<logDir>/<name>.log`. */
+export function startProcess(
+	name: string,
+	args: string[],
+	env: NodeJS.ProcessEnv,
+	logDir = faultsDir
+): Started {
+	mkdirSync(logDir, { recursive: true });
+	const logFile = path.join(logDir, `${name}.log`);
 	const log = openSync(logFile, 'a');
 	const child = spawn(process.execPath, args, {
 		cwd: projectDir,
@@ -62,7 +68,7 @@ async function answers(url: string): Promise<boolean> {
 }
 
 /** Waits until a started process answers at a URL; stops it when it never does. */
-async function waitUntilAnswering(started: Started, url: string): Promise<void> {
+export async function waitUntilAnswering(started: Started, url: string): Promise<void> {
 	try {
 		await waitFor(`${started.name} to answer at ${url}`, async () => {
 			if (!started.running()) throw new GiveUp(`${started.name} ended:\n${logTail(started)}`);

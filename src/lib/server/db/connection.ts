@@ -1,12 +1,13 @@
 import pg from 'pg';
 import { Sequelize } from 'sequelize';
+import { config } from '../config';
 
 /** The default local database, as started by ./docker-less-db.sh. */
 export const DEFAULT_DATABASE_URL = 'postgres://postgres@127.0.0.1:54329/crownbench';
 
 /** The database URL the process uses: DATABASE_URL, or the local database of docker-less-db.sh. */
 export function databaseUrl(): string {
-	return process.env.DATABASE_URL || DEFAULT_DATABASE_URL;
+	return config().databaseUrl || DEFAULT_DATABASE_URL;
 }
 
 /** Creates a Sequelize instance for PostgreSQL; the pg driver is passed so bundles find it. */
@@ -15,7 +16,7 @@ export function createSequelize(url: string = databaseUrl()): Sequelize {
 		dialect: 'postgres',
 		dialectModule: pg,
 		logging: false,
-		pool: { max: Number(process.env.DB_POOL_MAX ?? 10), min: 0, idle: 10_000, acquire: 20_000 },
+		pool: { max: config().dbPoolMax, min: 0, idle: 10_000, acquire: 20_000 },
 		define: { underscored: true, timestamps: false }
 	});
 }

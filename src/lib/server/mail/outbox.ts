@@ -1,6 +1,7 @@
 import { QueryTypes, type Transaction } from 'sequelize';
-import { retryDelaySeconds } from '../../domain/backoff';
+import { config } from '../config';
 import { sequelize } from '../db';
+import { enqueue, enqueueMany } from '../jobs/enqueue';
 import { sendMail, type OutgoingMail } from './transport';
 
 /** A message to put in the outbox. */
@@ -25,17 +26,10 @@ export interface MailProgress {
 	failed: number;
 }
 
-/** How often a message is tried before it is marked failed. */
-export const MAX_ATTEMPTS = Number(process.env.CB_OUTBOX_MAX_ATTEMPTS ?? 8);
-
-function baseDelaySeconds(): number {
-	return Number(process.env.CB_OUTBOX_BASE_DELAY_SECONDS ?? 5);
-}
-
 /**
- * Writes messages to the outbox inside the caller's transaction, so they exist exactly when the
- * change that caused them is committed. Returns how many were new (dedupe keys already present
- * are skipped).
+ * Writes messages to the outbox inside the caller's transaction, with one `mail-send` job each,
+ * so they exist exactly when the change that caused them is committed. Returns how many were new
+ * (dedupe keys already present are skipped, and get no job).
  */
 export async function queueMail(
 	messages: QueuedMail[],
@@ -67,12 +61,30 @@ export async function queueMail(
 			   (kind, society_id, show_id, recipient_id, to_address, subject, text_body, html_body, dedupe_key)
 			 VALUES ${values.join(', ')}
 			 ON CONFLICT (dedupe_key) DO NOTHING
-			 RETURNING id`,
+			 RETURNING id, society_id`,
 			{ bind, type: QueryTypes.SELECT, transaction: options.transaction }
+		);
+		await enqueueMany(
+			'mail-send',
+			(rows as { id: string; society_id: string | null }[]).map((r) => ({
+				messageId: r.id,
+				societyId: r.society_id
+			})),
+			mailRetries(options.transaction)
 		);
 		inserted += rows.length;
 	}
 	return inserted;
+}
+
+/** The mail job's retries: CB_OUTBOX_MAX_ATTEMPTS tries in all, the first after `base` s. */
+function mailRetries(transaction: Transaction) {
+	const c = config();
+	return {
+		transaction,
+		retryLimit: c.outboxMaxAttempts - 1,
+		retryDelay: c.outboxBaseDelaySeconds
+	};
 }
 
 interface ClaimedRow {
@@ -81,74 +93,57 @@ interface ClaimedRow {
 	subject: string;
 	text_body: string;
 	html_body: string | null;
-	attempts: number;
 }
 
+/** What became of one message when its job ran. */
+export type DeliveryOutcome = 'sent' | 'not-due' | 'retry' | 'failed';
+
 /**
- * Sends the messages that are due, at most `limit`, and records each outcome. Rows are claimed
- * with FOR UPDATE SKIP LOCKED and a lease, so several workers (or app instances) never take the
- * same message; a failed send waits with exponential back-off and is marked failed after
- * MAX_ATTEMPTS tries.
+ * Sends one outbox message: the `mail-send` job's effect. The row is claimed first (waiting, or
+ * sending with its lease run out), so a message already sent, or being sent by another worker,
+ * is not sent again; the Message-ID is the row's, so a receiver can tell a repeat after a lost
+ * answer. A failed send is recorded on the row and thrown, for the queue to try again with
+ * back-off; on the `lastAttempt` the row is marked failed.
  */
-export async function deliverDueMail(
+export async function deliverMessage(
+	messageId: string,
 	options: {
-		limit?: number;
+		lastAttempt: boolean;
 		send?: (mail: OutgoingMail & { messageId: string }) => Promise<unknown>;
-	} = {}
-): Promise<{ sent: number; retried: number; failed: number }> {
-	const limit = options.limit ?? 20;
+	}
+): Promise<DeliveryOutcome> {
 	const send = options.send ?? ((mail: OutgoingMail & { messageId: string }) => sendMail(mail));
-	const claimed = await sequelize.query<ClaimedRow>(
+	const [row] = await sequelize.query<ClaimedRow>(
 		`UPDATE outbox_messages
 		    SET status = 'sending', attempts = attempts + 1, locked_until = now() + interval '2 minutes'
-		  WHERE id IN (
-		        SELECT id FROM outbox_messages
-		         WHERE (status = 'waiting' AND next_attempt_at <= now())
-		            OR (status = 'sending' AND locked_until < now())
-		         ORDER BY next_attempt_at, created_at
-		         LIMIT $1
-		           FOR UPDATE SKIP LOCKED)
-		RETURNING id, to_address, subject, text_body, html_body, attempts`,
-		{ bind: [limit], type: QueryTypes.SELECT }
+		  WHERE id = $1
+		    AND (status = 'waiting' OR (status = 'sending' AND locked_until < now()))
+		RETURNING id, to_address, subject, text_body, html_body`,
+		{ bind: [messageId], type: QueryTypes.SELECT }
 	);
-	const result = { sent: 0, retried: 0, failed: 0 };
-	for (const row of claimed) {
-		try {
-			await send({
-				to: row.to_address,
-				subject: row.subject,
-				text: row.text_body,
-				html: row.html_body ?? undefined,
-				messageId: `<${row.id}@crownbench.outbox>`
-			});
-			await sequelize.query(
-				`UPDATE outbox_messages SET status = 'sent', sent_at = now(), locked_until = NULL, last_error = NULL
-				  WHERE id = $1`,
-				{ bind: [row.id] }
-			);
-			result.sent++;
-		} catch (error) {
-			const message = error instanceof Error ? error.message : String(error);
-			const giveUp = row.attempts >= MAX_ATTEMPTS;
-			await sequelize.query(
-				`UPDATE outbox_messages
-				    SET status = $2, last_error = $3, locked_until = NULL,
-				        next_attempt_at = now() + make_interval(secs => $4)
-				  WHERE id = $1`,
-				{
-					bind: [
-						row.id,
-						giveUp ? 'failed' : 'waiting',
-						message.slice(0, 1000),
-						retryDelaySeconds(row.attempts, baseDelaySeconds())
-					]
-				}
-			);
-			if (giveUp) result.failed++;
-			else result.retried++;
-		}
+	if (!row) return 'not-due';
+	try {
+		await send({
+			to: row.to_address,
+			subject: row.subject,
+			text: row.text_body,
+			html: row.html_body ?? undefined,
+			messageId: `<${row.id}@crownbench.outbox>`
+		});
+	} catch (error) {
+		const message = error instanceof Error ? error.message : String(error);
+		await sequelize.query(
+			`UPDATE outbox_messages SET status = $2, last_error = $3, locked_until = NULL WHERE id = $1`,
+			{ bind: [row.id, options.lastAttempt ? 'failed' : 'waiting', message.slice(0, 1000)] }
+		);
+		throw error;
 	}
-	return result;
+	await sequelize.query(
+		`UPDATE outbox_messages SET status = 'sent', sent_at = now(), locked_until = NULL, last_error = NULL
+		  WHERE id = $1`,
+		{ bind: [row.id] }
+	);
+	return 'sent';
 }
 
 /** Delivery counts of a show's messages (optionally of one kind), for the chair's progress bar. */
@@ -164,44 +159,26 @@ export async function mailProgress(showId: string, kind?: string): Promise<MailP
 	return progress;
 }
 
-/** Puts one message back in line to be sent again now (the chair's "send again"). */
+/**
+ * Puts one message back in line to be sent again now, with a new job in the same transaction (the
+ * chair's "send again", the admin's "try again" of a failed e-mail).
+ */
 export async function resendMail(
 	id: string,
 	options: { transaction: Transaction }
 ): Promise<boolean> {
-	const rows = await sequelize.query(
+	const rows = await sequelize.query<{ id: string; society_id: string | null }>(
 		`UPDATE outbox_messages
 		    SET status = 'waiting', attempts = 0, next_attempt_at = now(), last_error = NULL, locked_until = NULL
 		  WHERE id = $1 AND status <> 'sending'
-		RETURNING id`,
+		RETURNING id, society_id`,
 		{ bind: [id], type: QueryTypes.SELECT, transaction: options.transaction }
 	);
-	return rows.length > 0;
-}
-
-/**
- * Runs deliverDueMail every `intervalMs` until stopped; rounds never overlap. Errors (a database
- * restart, say) are logged and the loop goes on.
- */
-export function startOutboxWorker(
-	intervalMs = Number(process.env.CB_OUTBOX_INTERVAL_MS ?? 2000)
-): () => void {
-	let stopped = false;
-	let timer: NodeJS.Timeout | undefined;
-	const round = async (): Promise<void> => {
-		try {
-			let batch;
-			do {
-				batch = await deliverDueMail();
-			} while (!stopped && batch.sent + batch.retried + batch.failed > 0 && batch.sent > 0);
-		} catch (error) {
-			console.error('outbox worker:', error instanceof Error ? error.message : error);
-		}
-		if (!stopped) timer = setTimeout(() => void round(), intervalMs);
-	};
-	timer = setTimeout(() => void round(), 0);
-	return () => {
-		stopped = true;
-		if (timer) clearTimeout(timer);
-	};
+	if (rows.length === 0) return false;
+	await enqueue(
+		'mail-send',
+		{ messageId: rows[0].id, societyId: rows[0].society_id },
+		mailRetries(options.transaction)
+	);
+	return true;
 }

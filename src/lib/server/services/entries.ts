@@ -324,7 +324,7 @@ export async function withdrawEntry(
 	const feeBefore = entry.feeStatus;
 	await entry.update({ status: 'withdrawn' }, { transaction });
 	// A fee not yet paid is no longer owed; a paid one is refunded where the show allows it
-	// (sent after the commit by sendRequestedRefunds).
+	// (its job, queued in this transaction, sends it after the commit).
 	const fee = await settleFeeOfWithdrawnEntry(entry.id, { transaction });
 	await recordAudit(
 		{

@@ -3,13 +3,13 @@ import { initialFeeStatus } from '../../domain/dues';
 import { Show } from '../db';
 import type { EntryFeeStatus } from '../db/models/entry';
 
-export { sendRequestedRefunds, settleFeeOfWithdrawnEntry } from './refunds';
+export { settleFeeOfWithdrawnEntry } from './refunds';
 
 /**
  * The fee status a new entry of this show starts with: 'due' where the show charges an entry
  * fee, else 'not_required'. Call it in the transaction that creates the entry and store the
  * result in entries.fee_status. On withdrawal, call settleFeeOfWithdrawnEntry in the withdrawing
- * transaction and sendRequestedRefunds after it commits.
+ * transaction (it queues the refund's job there).
  */
 export async function feeStatusForNewEntry(
 	showId: string,

@@ -6,7 +6,7 @@ import { DuesPeriod, Membership, Payment, Refund, Society, User, sequelize } fro
 import { queueMail, type QueuedMail } from '../mail/outbox';
 import { paymentReceiptMessage, refundMessage } from '../mail/payment-messages';
 import { verifyWebhook, webhookSecret } from '../payments/stripe';
-import { sendRequestedRefunds } from './refunds';
+import { requestRefund } from './refunds';
 
 /** The answer the webhook route gives. */
 export interface WebhookAnswer {
@@ -19,7 +19,6 @@ class NotReadyYet extends Error {}
 
 interface Handled {
 	outcome: string;
-	refundsRequested?: boolean;
 }
 
 /**
@@ -54,11 +53,6 @@ export async function receiveWebhook(
 			return { status: 409, body: { received: false, outcome: error.message } };
 		}
 		throw error;
-	}
-	if (handled.refundsRequested) {
-		await sendRequestedRefunds().catch((error: unknown) =>
-			console.error('refunds:', error instanceof Error ? error.message : error)
-		);
 	}
 	return { status: 200, body: { received: true, outcome: handled.outcome } };
 }
@@ -156,7 +150,7 @@ async function recordPaidSession(
 			? await applyDues(payment, transaction)
 			: await applyEntryFees(payment, transaction);
 	await queueReceipt(payment, paidAt, result.note, transaction);
-	return { outcome: `recorded ${payment.purpose} payment`, refundsRequested: result.refund };
+	return { outcome: `recorded ${payment.purpose} payment` };
 }
 
 /** Moves the member's dues forward to the end of the period paid (never backwards). */
@@ -174,9 +168,9 @@ async function applyDues(
 	]);
 	// The whole payment goes back, with the reason in the receipt.
 	const refundWhole = async (note: string) => {
-		await Refund.create(
+		await requestRefund(
 			{ paymentId: payment.id, entryId: null, amountCents: payment.amountCents },
-			{ transaction }
+			{ transaction, societyId: payment.societyId }
 		);
 		return { note, refund: true };
 	};
@@ -209,9 +203,9 @@ async function applyEntryFees(
 	const movedIds = new Set(moved.map((r) => r.id));
 	const notOwing = payment.entryIds.filter((id) => !movedIds.has(id));
 	for (const entryId of notOwing) {
-		await Refund.create(
+		await requestRefund(
 			{ paymentId: payment.id, entryId, amountCents: payment.unitAmountCents },
-			{ transaction }
+			{ transaction, societyId: payment.societyId }
 		);
 	}
 	if (notOwing.length === 0) return { refund: false };

@@ -7,6 +7,7 @@ import {
 	isOnOrBetween,
 	type IsoDate
 } from '$lib/domain/dates';
+import { config } from '../config';
 import { sequelize } from '../db';
 import { escapeHtml } from '../mail/escape';
 import { queueMail, type QueuedMail } from '../mail/outbox';
@@ -24,7 +25,7 @@ export const REMINDER_KIND = 'entry-reminder';
 export const REMINDER_DAYS_BEFORE_CLOSE = 7;
 
 function appOrigin(): string {
-	return (process.env.ORIGIN ?? 'http://localhost:3000').replace(/\/$/, '');
+	return (config().origin ?? 'http://localhost:3000').replace(/\/$/, '');
 }
 
 /** The plants worth a reminder: those that can still be entered, not yet entered. */
@@ -139,7 +140,7 @@ export async function queueEntryReminders(
 }
 
 /**
- * The daily check: queues reminders for every published show whose entries are open and close
+ * The hourly check (the `reminders-check` job on its schedule): queues reminders for every published show whose entries are open and close
  * within REMINDER_DAYS_BEFORE_CLOSE days, "today" being read in each society's time zone by
  * `todayOf` (e.g. `(zone) => todayIn(zone)`). Safe to run often (dedupe keys).
  */
@@ -167,27 +168,4 @@ export async function queueDueReminders(todayOf: (timeZone: string) => IsoDate):
 		);
 	}
 	return queued;
-}
-
-/**
- * Runs queueDueReminders now and then every `intervalMs` (an hour by default) in the app
- * process; CB_REMINDERS=off turns it off. Returns a function that stops it.
- */
-export function startReminderSchedule(
-	todayOf: (timeZone: string) => IsoDate,
-	intervalMs = Number(process.env.CB_REMINDER_INTERVAL_MS ?? 60 * 60 * 1000)
-): () => void {
-	const run = async () => {
-		try {
-			await queueDueReminders(todayOf);
-		} catch (error) {
-			console.error('entry reminders:', error instanceof Error ? error.message : error);
-		}
-	};
-	const first = setTimeout(() => void run(), 10_000);
-	const timer = setInterval(() => void run(), intervalMs);
-	return () => {
-		clearTimeout(first);
-		clearInterval(timer);
-	};
 }

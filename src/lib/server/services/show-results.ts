@@ -14,6 +14,7 @@ import { sequelize } from '../db';
 import { mailProgress, queueMail, resendMail, type MailProgress } from '../mail/outbox';
 import { buildResultsMessage } from '../mail/results-message';
 import { loadShowJudging, publishResults, type PublishOutcome } from './results';
+import { requestShowPdfs } from '../jobs/show-pdf';
 
 /** The outbox kind of placements e-mails. */
 export const RESULTS_MAIL_KIND = 'results';
@@ -294,6 +295,8 @@ export async function publishResultsAndTell(
 ): Promise<PublishOutcome & { queued: number }> {
 	const outcome = await publishResults(actor, showId, options);
 	const queued = await queueResultsMail(showId, options);
+	// The whole-show PDFs are built off the request path and kept for this publication.
+	await requestShowPdfs(showId, { transaction: options.transaction });
 	return { ...outcome, queued };
 }
 

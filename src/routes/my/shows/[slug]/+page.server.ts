@@ -13,7 +13,6 @@ import {
 	listMyEntriesInShow,
 	withdrawEntry
 } from '$lib/server/services/entries';
-import { sendRequestedRefunds } from '$lib/server/services/refunds';
 import { loadSchedule } from '$lib/server/services/schedule';
 import { societyToday } from '$lib/server/services/society-today';
 import type { Actions, PageServerLoad } from './$types';
@@ -89,8 +88,6 @@ export const actions: Actions = {
 			withdrawEntry(user.id, id.data, { transaction })
 		);
 		if (problem) return fail(400, { message: problem });
-		// A refund the withdrawal asked for goes to the payment service now (retried later if need be).
-		await sendRequestedRefunds().catch(() => undefined);
 		return { withdrawn: 'The entry is withdrawn.' };
 	}
 };
