@@ -11,8 +11,9 @@ import { toInches } from '$lib/domain/units';
 import type { CheckInInput } from '$lib/schemas/desk';
 import { recordShowAudit, type AuditActor } from '../audit';
 import { Division, Entry, Show, ShowClass, User, Variety, sequelize } from '../db';
-import { exhibitorContextFor, plantFactsOf, showContextOf, withStandingHint } from './entries';
-import { IN_SCHEDULE_ORDER, classRulesOf } from './schedule';
+import { classRulesOf, measuredOf, plantFactsOf, showContextOf } from './eligibility-input';
+import { exhibitorContextFor, withStandingHint } from './entries';
+import { IN_SCHEDULE_ORDER } from './schedule';
 import { loadSocietySettings } from './society-settings';
 
 /** A line of the desk's search results. */
@@ -99,12 +100,9 @@ export interface DeskEntry {
 }
 
 function measuredFacts(entry: Entry, variety: Variety): PlantFacts {
-	const measured: PlantFacts['measured'] = {};
-	if (entry.measuredDiameterIn !== null) measured.diameterIn = Number(entry.measuredDiameterIn);
-	if (entry.measuredCrowns !== null) measured.crowns = entry.measuredCrowns;
 	return plantFactsOf(variety, entry.acquiredOn, {
 		sizeClass: entry.shownSizeClass ?? variety.sizeClass,
-		measured
+		measured: measuredOf(entry)
 	});
 }
 
