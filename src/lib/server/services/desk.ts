@@ -3,12 +3,19 @@ import {
 	checkEligibility,
 	classesThatFit,
 	measuredSizeClass,
-	type EligibilityResult,
+	withDeskAdvice,
+	type DeskVerdict,
 	type PlantFacts
 } from '$lib/domain/eligibility';
 import { todayIn } from '$lib/domain/dates';
 import { toInches } from '$lib/domain/units';
 import type { CheckInInput } from '$lib/schemas/desk';
+import { DeskProblem } from './desk-problem';
+import { fixEntryNumbers, numberForNewEntry } from './entry-numbers';
+import { stageOfShow } from './show-stage';
+
+/** Stages in which the first check-in fixes the entry numbers: entries made online have closed. */
+const FIXED_AT_CHECK_IN = new Set(['entries_closed', 'show_days']);
 import { recordShowAudit, type AuditActor } from '../audit';
 import { Division, Entry, Show, ShowClass, User, Variety, sequelize } from '../db';
 import { classRulesOf, measuredOf, plantFactsOf, showContextOf } from './eligibility-input';
@@ -95,7 +102,7 @@ export interface DeskEntry {
 	potSizeIn: number | null;
 	checkedInAt: string | null;
 	deskNote: string | null;
-	verdict: EligibilityResult | null;
+	verdict: DeskVerdict | null;
 	proposals: ClassChoice[];
 }
 
@@ -107,7 +114,7 @@ function measuredFacts(entry: Entry, variety: Variety): PlantFacts {
 }
 
 interface Judged {
-	verdict: EligibilityResult;
+	verdict: DeskVerdict;
 	fitting: ShowClass[];
 	plant: PlantFacts;
 }
@@ -154,7 +161,7 @@ async function judgeAtDesk(
 		{ phase: 'desk', show: context, exhibitorIn }
 	);
 	return {
-		verdict: { fits: result.fits, failures: withStandingHint(result.failures) },
+		verdict: withDeskAdvice({ fits: result.fits, failures: withStandingHint(result.failures) }),
 		fitting: classes.filter((c) => ids.includes(c.id) && c.id !== entry.classId),
 		plant: asMeasured
 	};
@@ -203,8 +210,7 @@ export async function loadDeskEntry(show: Show, number: number): Promise<DeskEnt
 	};
 }
 
-/** A desk action that cannot be done, in a plain sentence. */
-export class DeskProblem extends Error {}
+export { DeskProblem };
 
 async function lockEntry(show: Show, entryId: string, transaction: Transaction): Promise<Entry> {
 	const entry = await Entry.findOne({
@@ -218,8 +224,9 @@ async function lockEntry(show: Show, entryId: string, transaction: Transaction):
 }
 
 /**
- * Checks an entry in with what the clerk measured (inches or centimeters; stored in inches),
- * and returns the verdict with those measurements.
+ * Checks an entry in with what the clerk measured (inches or centimeters; stored in inches).
+ * The first check-in after entries have closed fixes the show's entry numbers (shuffled, see
+ * `fixEntryNumbers`); returns the entry's number after the check-in.
  */
 export async function checkInEntry(
 	show: Show,
@@ -227,8 +234,16 @@ export async function checkInEntry(
 	clerkId: string,
 	input: CheckInInput,
 	options: { transaction: Transaction }
-): Promise<void> {
+): Promise<number> {
 	const { transaction } = options;
+	const locked = await Show.findByPk(show.id, { transaction, lock: transaction.LOCK.UPDATE });
+	if (
+		locked &&
+		!locked.entryNumbersFixedAt &&
+		FIXED_AT_CHECK_IN.has(await stageOfShow(locked, { transaction }))
+	) {
+		await fixEntryNumbers(locked, { transaction, actor: { id: clerkId } });
+	}
 	const entry = await lockEntry(show, entryId, transaction);
 	if (entry.status === 'scratched') throw new DeskProblem('This entry was scratched.');
 	const diameter = toInches(input.diameter, input.unit);
@@ -245,6 +260,7 @@ export async function checkInEntry(
 		},
 		{ transaction }
 	);
+	return entry.number;
 }
 
 /**
@@ -257,8 +273,10 @@ export async function moveEntry(
 	entryId: string,
 	classId: string,
 	options: { transaction: Transaction; actor: AuditActor }
-): Promise<ShowClass> {
+): Promise<{ target: ShowClass; number: number }> {
 	const { transaction } = options;
+	// The show's row first, as check-in and desk entries take it: numbers may change below.
+	const locked = await Show.findByPk(show.id, { transaction, lock: transaction.LOCK.UPDATE });
 	const entry = await lockEntry(show, entryId, transaction);
 	if (!entry.varietyId) throw new DeskProblem('Only plant entries can be moved here.');
 	const [classes, variety] = await Promise.all([
@@ -277,8 +295,12 @@ export async function moveEntry(
 	const declared = variety!.sizeClass;
 	const shown = judged.plant.sizeClass;
 	const from = classes.find((c) => c.id === entry.classId);
+	const before = entry.number;
+	// In the class-number form, an entry that changes class takes a number of its new class.
+	const renumber = locked?.entryNumbersFixedAt && locked.entryNumberForm === 'class_prefix';
+	const number = renumber ? await numberForNewEntry(locked, target.id, transaction) : entry.number;
 	await entry.update(
-		{ classId: target.id, shownSizeClass: shown === declared ? null : shown },
+		{ classId: target.id, shownSizeClass: shown === declared ? null : shown, number },
 		{ transaction }
 	);
 	await recordShowAudit(
@@ -288,12 +310,13 @@ export async function moveEntry(
 			target: { kind: 'entry', id: entry.id, label: `Entry ${entry.number}` },
 			details: {
 				before: { classId: from?.id ?? null, class: from ? label(from) : null },
-				after: { classId: target.id, class: label(target), shownSizeClass: entry.shownSizeClass }
+				after: { classId: target.id, class: label(target), shownSizeClass: entry.shownSizeClass },
+				...(number !== before ? { number: { before, after: number } } : {})
 			}
 		},
 		options
 	);
-	return target;
+	return { target, number };
 }
 
 /** Scratches an entry (it stays on record, is not judged), with the clerk's reason. Audited. */

@@ -1,0 +1,2 @@
+/** A desk action that cannot be done, in a plain sentence. */
+export class DeskProblem extends Error {}
