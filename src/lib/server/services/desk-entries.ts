@@ -18,22 +18,12 @@ import {
 } from '../db';
 import { initialFeeStatus } from '$lib/domain/dues';
 import { DeskProblem } from './desk-problem';
+import { NO_ADDRESS_DOMAIN, isStandInAddress } from '../mail/stand-in';
 import { classRulesOf, plantFactsOf, showContextOf } from './eligibility-input';
 import { exhibitorContextFor, withStandingHint } from './entries';
 import { fixEntryNumbers, numberForNewEntry } from './entry-numbers';
 import { stageOfShow } from './show-stage';
 import { loadSocietySettings } from './society-settings';
-
-/**
- * Addresses given to walk-in exhibitors who left none: under `.invalid`, a name reserved never to
- * exist (RFC 2606), so nobody can sign in with it and no mail is ever sent to it.
- */
-export const NO_ADDRESS_DOMAIN = 'walk-in.invalid';
-
-/** True for the stand-in address of a walk-in exhibitor who gave none. */
-export function isStandInAddress(email: string): boolean {
-	return email.toLowerCase().endsWith(`@${NO_ADDRESS_DOMAIN}`);
-}
 
 /** Whether the desk takes new entries for the show now, and if not, why. */
 export async function deskWindowOf(
@@ -246,4 +236,21 @@ export async function enterAtDesk(
  */
 export async function claimWalkIns(userId: string): Promise<void> {
 	await WalkInExhibitor.update({ claimedAt: new Date() }, { where: { userId, claimedAt: null } });
+}
+
+/** A horticulture class of the show the desk can enter a plant in. */
+export interface DeskClass {
+	id: string;
+	label: string;
+}
+
+/** The show's horticulture classes in schedule order, for the desk's entry form. */
+export async function listDeskClasses(showId: string): Promise<DeskClass[]> {
+	const rows = await sequelize.query<{ id: string; code: string; name: string }>(
+		`SELECT c.id, c.code, c.name FROM classes c JOIN divisions d ON d.id = c.division_id
+		  WHERE c.show_id = $1 AND d.kind = 'horticulture'
+		  ORDER BY d.position, c.position`,
+		{ bind: [showId], type: QueryTypes.SELECT }
+	);
+	return rows.map((r) => ({ id: r.id, label: `${r.code} ${r.name}` }));
 }

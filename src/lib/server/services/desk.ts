@@ -224,7 +224,8 @@ async function lockEntry(show: Show, entryId: string, transaction: Transaction):
 }
 
 /**
- * Checks an entry in with what the clerk measured (inches or centimeters; stored in inches).
+ * Checks an entry in with what the clerk measured (inches or centimeters; stored in inches), or
+ * with nothing measured yet (`input` null: one tap when the plant arrives).
  * The first check-in after entries have closed fixes the show's entry numbers (shuffled, see
  * `fixEntryNumbers`); returns the entry's number after the check-in.
  */
@@ -232,7 +233,7 @@ export async function checkInEntry(
 	show: Show,
 	entryId: string,
 	clerkId: string,
-	input: CheckInInput,
+	input: CheckInInput | null,
 	options: { transaction: Transaction }
 ): Promise<number> {
 	const { transaction } = options;
@@ -246,6 +247,16 @@ export async function checkInEntry(
 	}
 	const entry = await lockEntry(show, entryId, transaction);
 	if (entry.status === 'scratched') throw new DeskProblem('This entry was scratched.');
+	if (input === null) {
+		// One tap: the plant is here; it is measured afterwards.
+		if (entry.status !== 'checked_in') {
+			await entry.update(
+				{ status: 'checked_in', checkedInAt: new Date(), checkedInBy: clerkId },
+				{ transaction }
+			);
+		}
+		return entry.number;
+	}
 	const diameter = toInches(input.diameter, input.unit);
 	const pot = toInches(input.potSize, input.unit);
 	if (diameter >= 1000 || pot >= 100) throw new DeskProblem('Those measurements are too large.');
@@ -255,8 +266,8 @@ export async function checkInEntry(
 			measuredDiameterIn: diameter.toFixed(2),
 			measuredCrowns: input.crowns,
 			potSizeIn: pot.toFixed(2),
-			checkedInAt: new Date(),
-			checkedInBy: clerkId
+			checkedInAt: entry.checkedInAt ?? new Date(),
+			checkedInBy: entry.checkedInBy ?? clerkId
 		},
 		{ transaction }
 	);

@@ -43,6 +43,7 @@ export const load: PageServerLoad = async (event) => {
 		show: { name: show.name, slug: show.slug },
 		entry,
 		lengthUnit: settings.lengthUnit,
+		entered: event.url.searchParams.get('entered') === '1',
 		renumbered: renumbered && /^\d{1,9}$/.test(renumbered) ? Number(renumbered) : null
 	};
 };
@@ -73,6 +74,17 @@ export const actions: Actions = {
 		if (number !== entry.number)
 			redirect(303, `/desk/${show.slug}/entries/${number}?renumbered=${entry.number}`);
 		return { saved: `Entry ${entry.number} is checked in.` };
+	},
+	arrived: async (event) => {
+		const { show, user, entry } = await deskEntry(event);
+		let number = entry.number;
+		const failed = await attempt(async (t) => {
+			number = await checkInEntry(show, entry.id, user.id, null, { transaction: t });
+		});
+		if (failed) return failed;
+		if (number !== entry.number)
+			redirect(303, `/desk/${show.slug}/entries/${number}?renumbered=${entry.number}`);
+		return { saved: `Entry ${entry.number} is checked in; measure it when you can.` };
 	},
 	move: async (event) => {
 		const { show, user, entry } = await deskEntry(event);
