@@ -1,19 +1,17 @@
 import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { formatDateLong, todayIn, type IsoDate } from '$lib/domain/dates';
-import type { LengthUnit } from '$lib/domain/units';
 import {
 	checkEligibility,
 	type CheckPhase,
 	type EligibilityResult,
 	type ExhibitorContext,
-	type PlantFacts,
-	type RuleFailure,
-	type ShowContext
+	type RuleFailure
 } from '$lib/domain/eligibility';
 import type { EntryRequest } from '$lib/schemas/entry';
 import { recordAudit } from '../audit';
 import { Division, Entry, Show, ShowClass, Variety, sequelize } from '../db';
 import { classRulesOf, exhibitorContextOf, plantFactsOf, showContextOf } from './eligibility-input';
+import { numberForNewEntry } from './entry-numbers';
 import { MEMBERSHIP_PAGE, isInGoodStanding } from './standing';
 import { initialFeeStatus } from '$lib/domain/dues';
 import { settleFeeOfWithdrawnEntry } from './refunds';
@@ -166,8 +164,7 @@ export async function createEntry(
 	const resolved = await resolve(show, input, transaction);
 	const result = await judge(resolved, exhibitorId, input.acquiredOn, 'entry', transaction);
 	if (!result.fits) throw new EntryRefused(result.failures);
-	const number = show.nextEntryNumber;
-	await show.update({ nextEntryNumber: number + 1 }, { transaction });
+	const number = await numberForNewEntry(show, resolved.showClass.id, transaction);
 	return Entry.create(
 		{
 			showId: show.id,

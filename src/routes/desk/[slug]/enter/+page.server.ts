@@ -62,7 +62,7 @@ export const actions: Actions = {
 				values
 			});
 		}
-		let entered: { number: number } | null = null;
+		let entered: { number: number };
 		try {
 			entered = await sequelize.transaction((transaction) =>
 				enterAtDesk(show.id, user, parsed.data, { transaction })
