@@ -1,4 +1,8 @@
+import { randomUUID } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
+import { sheetChangeSchema } from '$lib/schemas/judging';
+import { saveSheet, type JudgeClass } from './judging';
+import { isRefusal } from './refusal';
 import type { ScaleCriterionDraft } from '$lib/domain/scales';
 import { sequelize } from '../db';
 
@@ -111,4 +115,73 @@ export async function loadPaperPanels(showId: string, panelId?: string): Promise
 				entries: c.entries.map((e) => e.number)
 			}))
 	}));
+}
+
+/**
+ * Saves a paper judging sheet typed in by the panel's clerk: for every entry with something
+ * typed, the points given per criterion become the deductions the tablet stores (most points
+ * less points given), and the sheet goes through `saveSheet`, as the tablet's changes do (the
+ * panel's sheet, on the version the form was opened on: a sheet changed meanwhile is refused with
+ * 409 and reported). Rows left empty are skipped. Returns how many were saved and every problem.
+ */
+export async function typePaperSheets(
+	actor: { id: string; email: string },
+	cls: JudgeClass,
+	form: FormData
+): Promise<{ saved: number; problems: string[] }> {
+	const problems: string[] = [];
+	let saved = 0;
+	if (cls.sheetKind !== 'consensus') {
+		return {
+			saved,
+			problems: [
+				'In this show each judge keeps their own sheet: judges type their paper sheets on their own judging pages.'
+			]
+		};
+	}
+	for (const entry of cls.entries) {
+		const field = (name: string) => {
+			const value = form.get(`${name}.${entry.id}`);
+			return typeof value === 'string' ? value.trim() : '';
+		};
+		const typed = cls.scale.criteria.map((k) => ({ k, value: field(k.key) }));
+		const comment = field('comment');
+		if (typed.every((t) => t.value === '') && comment === '') continue;
+		const deductions: Record<string, number> = {};
+		const wrong = typed.find(
+			(t) => t.value !== '' && !(Number.isFinite(Number(t.value)) && Number(t.value) >= 0)
+		);
+		if (wrong) {
+			problems.push(`Entry ${entry.number}: write the points for ${wrong.k.label} as a number.`);
+			continue;
+		}
+		for (const t of typed) {
+			if (t.value !== '') deductions[t.k.key] = t.k.maxPoints - Number(t.value);
+		}
+		const parsed = sheetChangeSchema.safeParse({
+			changeId: randomUUID(),
+			entryId: entry.id,
+			baseVersion: Number(field('version') || '0'),
+			deductions,
+			comment
+		});
+		if (!parsed.success) {
+			problems.push(
+				`Entry ${entry.number}: ${parsed.error.issues.map((i) => i.message).join(' ')}`
+			);
+			continue;
+		}
+		try {
+			await saveSheet(actor, parsed.data);
+			saved++;
+		} catch (e) {
+			if (!isRefusal(e)) throw e;
+			problems.push(
+				e.status === 409
+					? `Entry ${entry.number}: the sheet was changed meanwhile on a tablet; open the page again and compare.`
+					: `Entry ${entry.number}: ${e.message}`
+			);
+		}
+	}
+	return { saved, problems };
 }
