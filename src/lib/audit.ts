@@ -16,6 +16,7 @@ export const AUDIT_ACTIONS = {
 	'entry.withdraw': 'Entry withdrawn',
 	'entry.move': 'Entry moved to another class',
 	'entry.scratch': 'Entry scratched',
+	'entry_numbers.fix': 'Entry numbers fixed in shuffled order',
 	'entry_photo.delete': 'Entry photo removed',
 	'results.publish': 'Results published',
 	'plant.gone': 'Plant marked as no longer grown',
@@ -75,6 +76,8 @@ export function describeAuditDetails(
 			return `From class ${text(before.class)} to class ${text(after.class)}.`;
 		case 'entry.scratch':
 			return `Reason: ${text(details.reason)}.`;
+		case 'entry_numbers.fix':
+			return `Entries numbered afresh: ${text(after.entries)}.`;
 		case 'entry.withdraw': {
 			const fee: Record<string, string> = {
 				none: 'no fee involved',

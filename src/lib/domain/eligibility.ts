@@ -580,3 +580,60 @@ function listOf(items: readonly string[], joiner: 'and' | 'or'): string {
 	if (items.length <= 1) return items.join('');
 	return `${items.slice(0, -1).join(', ')} ${joiner} ${items[items.length - 1]}`;
 }
+
+// ---------------------------------------------------------------------------------------------
+// The entry desk: what the clerk does about each failed rule (issue 14). Kept apart from the
+// checks above; a code without desk advice of its own gets the general advice.
+
+/** A failed rule as the desk shows it: the reason, and what to do about it. */
+export interface DeskFailure extends RuleFailure {
+	whatToDo: string;
+}
+
+/** The desk's verdict: the check's result with what to do for every failure. */
+export interface DeskVerdict {
+	fits: boolean;
+	failures: DeskFailure[];
+}
+
+const DESK_ADVICE: Partial<Record<FailureCode, string>> = {
+	diameter_over_limit:
+		'Move the entry to a class for its measured size (the classes that fit are listed), or scratch it if none fits.',
+	pot_over_limit:
+		'The plant cannot be shown in this pot in this class: move it to a class without this pot limit, or scratch it.',
+	too_many_crowns:
+		'The sucker must come off before judging: the exhibitor removes it and the clerk counts the crowns again. Otherwise move the plant to a class that takes several crowns.',
+	too_few_crowns:
+		'Move the plant to a class for single crowns, or scratch it; a trailer cannot gain crowns on the day.',
+	size_class_not_allowed:
+		'Move the entry to a class for its size (the classes that fit are listed).',
+	habit_not_allowed: 'Move the entry to a class for its habit (the classes that fit are listed).',
+	class_entry_limit_reached:
+		'The exhibitor chooses which entries stay in this class; move the others to another class that fits, or scratch them.',
+	variety_entry_limit_reached:
+		'The exhibitor chooses which entry of this variety is shown; scratch the others.',
+	variety_already_in_class:
+		'Move one of the two plants of this variety to another class that fits, or scratch it.',
+	acquired_date_missing:
+		'Ask the exhibitor when they got the plant and record it; without it the plant cannot be shown.',
+	possession_period_not_reached:
+		'The plant has not been grown long enough for this show: scratch the entry (it may be shown next time).',
+	not_in_good_standing:
+		'The exhibitor renews their membership with the society (at the desk or online) before the plant is shown.'
+};
+
+const GENERAL_DESK_ADVICE =
+	'Move the entry to a class that fits (the classes that fit are listed), or scratch it.';
+
+/** What the desk does about one failed rule. */
+export function deskAdvice(code: FailureCode): string {
+	return DESK_ADVICE[code] ?? GENERAL_DESK_ADVICE;
+}
+
+/** Adds what to do to every failure of a check run at the desk. */
+export function withDeskAdvice(result: EligibilityResult): DeskVerdict {
+	return {
+		fits: result.fits,
+		failures: result.failures.map((f) => ({ ...f, whatToDo: deskAdvice(f.code) }))
+	};
+}

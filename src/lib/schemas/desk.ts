@@ -58,3 +58,47 @@ export interface EntryTableRow {
 	crowns: number | null;
 	checkedInAt: string | null;
 }
+
+const optionalText = (max: number, tooLong: string) =>
+	text()
+		.trim()
+		.max(max, tooLong)
+		.refine(hasNoControlChars, CONTROL_CHARS_MESSAGE)
+		.transform((v) => (v === '' ? null : v));
+
+/** Form: a plant entered at the desk for a member (found by name) or for a walk-in exhibitor. */
+export const deskEntrySchema = checkInSchema
+	.extend({
+		who: z.enum(['member', 'walk_in'], 'Choose a member or a walk-in exhibitor.'),
+		memberId: z.uuid('Choose the member from the list.').or(z.literal('')),
+		walkInName: optionalText(120, 'Keep the name under 120 characters.'),
+		walkInEmail: text()
+			.trim()
+			.toLowerCase()
+			.max(254, 'Keep the address under 254 characters.')
+			.pipe(z.email('Enter a complete e-mail address, like name@example.org.').or(z.literal('')))
+			.transform((v) => (v === '' ? null : v)),
+		walkInHousehold: optionalText(120, 'Keep the household under 120 characters.'),
+		classId: z.uuid('Choose a class.'),
+		varietyId: z.uuid('Choose a variety from the registry.'),
+		acquiredOn: z
+			.union([z.iso.date('Give the date as a calendar date.'), z.literal('')])
+			.transform((v) => (v === '' ? null : v))
+	})
+	.superRefine((v, ctx) => {
+		if (v.who === 'member' && !v.memberId) {
+			ctx.addIssue({
+				code: 'custom',
+				path: ['memberId'],
+				message: 'Choose the member from the list.'
+			});
+		}
+		if (v.who === 'walk_in' && !v.walkInName) {
+			ctx.addIssue({
+				code: 'custom',
+				path: ['walkInName'],
+				message: 'Write the walk-in exhibitor’s name.'
+			});
+		}
+	});
+export type DeskEntryInput = z.infer<typeof deskEntrySchema>;

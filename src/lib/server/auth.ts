@@ -5,6 +5,7 @@ import { Account, Session, User, VerificationToken, sequelize } from './db';
 import { buildSignInMessage } from './mail/sign-in-message';
 import { mailFrom, sendMail, smtpUrl } from './mail/transport';
 import { loadSessionUser } from './services/people';
+import { claimWalkIns } from './services/desk-entries';
 
 /** How long a sign-in link works. */
 export const SIGN_IN_LINK_MINUTES = 30;
@@ -151,6 +152,12 @@ export const {
 	// Auth.js refuses every request without this; pinToPublicAddress (hooks) decides which host it sees.
 	trustHost: true,
 	pages: { signIn: '/signin', verifyRequest: '/signin/check-mail', error: '/signin/problem' },
+	events: {
+		// A walk-in entered at the desk with this address now has their entries as their own.
+		async signIn({ user }) {
+			if (user.id) await claimWalkIns(user.id);
+		}
+	},
 	callbacks: {
 		// What GET /auth/session tells page scripts: no session token and no internal ids.
 		session({ session }) {

@@ -69,6 +69,12 @@ export const ACCESS_TABLE: AccessRow[] = [
 	{ route: '/desk/[slug]/entries/[number]', answers: pageFor('clerk', 'chair') },
 	{ route: '/desk/[slug]/table', answers: pageFor('clerk', 'chair') },
 	{ route: '/desk/[slug]/tags', query: 'numbers=1', answers: pageFor('clerk', 'chair') },
+	// Entry day at the desk (issue 14): desk entries, paper sheets; typing in is the panel clerk's.
+	{ route: '/desk/[slug]/enter', answers: pageFor('clerk', 'chair') },
+	{ route: '/desk/[slug]/paper', answers: pageFor('clerk', 'chair') },
+	{ route: '/desk/[slug]/paper/sheets', answers: pageFor('clerk', 'chair') },
+	{ route: '/desk/[slug]/paper/panels', answers: pageFor('clerk', 'chair') },
+	{ route: '/desk/[slug]/paper/[classId]', answers: pageFor('clerk') },
 	{ route: '/api/desk/shows/[slug]/entries', answers: apiFor('clerk', 'chair') },
 	{
 		route: '/e/[slug]/[number]',

@@ -284,6 +284,38 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 		fields: ['reason', 'confirm']
 	},
 	'/desk/[slug]/tags api:GET': { as: 'clerk', corrupt: 'query+path', fields: ['numbers'] },
+	'/desk/[slug] action:fixNumbers': { as: 'clerk', corrupt: 'form', fields: ['confirm'] },
+	'/desk/[slug]/entries/[number] action:arrived': {
+		as: 'clerk',
+		corrupt: 'form',
+		fields: [],
+		noInput:
+			'One tap: the action reads no field; its show and entry come from the path, as for check-in.'
+	},
+	'/desk/[slug]/enter action:enter': {
+		as: 'clerk',
+		corrupt: 'form',
+		fields: [
+			'memberId',
+			'walkInName',
+			'walkInEmail',
+			'walkInHousehold',
+			'classId',
+			'varietyId',
+			'acquiredOn',
+			'diameter',
+			'crowns',
+			'potSize',
+			'unit'
+		]
+	},
+	'/desk/[slug]/paper/sheets api:GET': { as: 'clerk', corrupt: 'query+path', fields: ['class'] },
+	'/desk/[slug]/paper/panels api:GET': { as: 'clerk', corrupt: 'query+path', fields: ['panel'] },
+	'/desk/[slug]/paper/[classId] action:type': {
+		as: 'clerk',
+		corrupt: 'form',
+		fields: ['version', 'comment', 'symmetry']
+	},
 	'/e/[slug]/[number] api:GET': { as: 'clerk', corrupt: 'path', fields: [] },
 	'/my/entries/[id] action:upload': {
 		as: 'member',

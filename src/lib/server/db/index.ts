@@ -22,6 +22,7 @@ import { ShowClass } from './models/show-class';
 import { Society } from './models/society';
 import { User } from './models/user';
 import { Variety } from './models/variety';
+import { WalkInExhibitor } from './models/walk-in-exhibitor';
 
 /** The process's one Sequelize instance. Models are initialised and associated here. */
 export const sequelize = createSequelize();
@@ -53,6 +54,7 @@ ScoreSheet.initModel(sequelize);
 EntryPhoto.initModel(sequelize);
 // The audit log of destructive actions (issue 9)
 AuditEvent.initModel(sequelize);
+WalkInExhibitor.initModel(sequelize);
 
 Membership.belongsTo(Society, { foreignKey: 'societyId', as: 'society' });
 Membership.belongsTo(User, { foreignKey: 'userId', as: 'user' });
@@ -91,6 +93,8 @@ Plant.hasMany(PlantPhoto, { foreignKey: 'plantId', as: 'photos' });
 PlantEvent.belongsTo(Plant, { foreignKey: 'plantId', as: 'plant' });
 PlantPhoto.belongsTo(Plant, { foreignKey: 'plantId', as: 'plant' });
 MailPreference.belongsTo(User, { foreignKey: 'userId', as: 'user' });
+WalkInExhibitor.belongsTo(Society, { foreignKey: 'societyId', as: 'society' });
+WalkInExhibitor.belongsTo(User, { foreignKey: 'userId', as: 'user' });
 Panel.belongsTo(Show, { foreignKey: 'showId', as: 'show' });
 Show.hasMany(Panel, { foreignKey: 'showId', as: 'panels' });
 
@@ -119,5 +123,6 @@ export {
 	Society,
 	User,
 	Variety,
-	VerificationToken
+	VerificationToken,
+	WalkInExhibitor
 };

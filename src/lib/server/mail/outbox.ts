@@ -1,3 +1,4 @@
+import { isStandInAddress } from './stand-in';
 import { QueryTypes, type Transaction } from 'sequelize';
 import { config } from '../config';
 import { sequelize } from '../db';
@@ -37,8 +38,10 @@ export async function queueMail(
 ): Promise<number> {
 	let inserted = 0;
 	const chunk = 500;
-	for (let i = 0; i < messages.length; i += chunk) {
-		const part = messages.slice(i, i + chunk);
+	// A walk-in exhibitor who left no address has a stand-in that must never be mailed.
+	const deliverable = messages.filter((m) => !isStandInAddress(m.to));
+	for (let i = 0; i < deliverable.length; i += chunk) {
+		const part = deliverable.slice(i, i + chunk);
 		const values: string[] = [];
 		const bind: unknown[] = [];
 		for (const m of part) {

@@ -3,18 +3,26 @@ import {
 	checkEligibility,
 	classesThatFit,
 	measuredSizeClass,
-	type EligibilityResult,
+	withDeskAdvice,
+	type DeskVerdict,
 	type PlantFacts
 } from '$lib/domain/eligibility';
 import { todayIn } from '$lib/domain/dates';
 import { toInches } from '$lib/domain/units';
 import type { CheckInInput } from '$lib/schemas/desk';
+import { DeskProblem } from './desk-problem';
+import { fixEntryNumbers, numberForNewEntry } from './entry-numbers';
+import { stageOfShow } from './show-stage';
+
 import { recordShowAudit, type AuditActor } from '../audit';
 import { Division, Entry, Show, ShowClass, User, Variety, sequelize } from '../db';
-import { exhibitorContextFor, plantFactsOf, showContextOf, withStandingHint } from './entries';
-import { IN_SCHEDULE_ORDER, classRulesOf } from './schedule';
+import { classRulesOf, measuredOf, plantFactsOf, showContextOf } from './eligibility-input';
+import { exhibitorContextFor, withStandingHint } from './entries';
+import { IN_SCHEDULE_ORDER } from './schedule';
 import { loadSocietySettings } from './society-settings';
-import { Refusal } from './refusal';
+
+/** Stages in which the first check-in fixes the entry numbers: entries made online have closed. */
+const FIXED_AT_CHECK_IN = new Set(['entries_closed', 'show_days']);
 
 /** A line of the desk's search results. */
 export interface DeskHit {
@@ -95,22 +103,19 @@ export interface DeskEntry {
 	potSizeIn: number | null;
 	checkedInAt: string | null;
 	deskNote: string | null;
-	verdict: EligibilityResult | null;
+	verdict: DeskVerdict | null;
 	proposals: ClassChoice[];
 }
 
 function measuredFacts(entry: Entry, variety: Variety): PlantFacts {
-	const measured: PlantFacts['measured'] = {};
-	if (entry.measuredDiameterIn !== null) measured.diameterIn = Number(entry.measuredDiameterIn);
-	if (entry.measuredCrowns !== null) measured.crowns = entry.measuredCrowns;
 	return plantFactsOf(variety, entry.acquiredOn, {
 		sizeClass: entry.shownSizeClass ?? variety.sizeClass,
-		measured
+		measured: measuredOf(entry)
 	});
 }
 
 interface Judged {
-	verdict: EligibilityResult;
+	verdict: DeskVerdict;
 	fitting: ShowClass[];
 	plant: PlantFacts;
 }
@@ -157,7 +162,7 @@ async function judgeAtDesk(
 		{ phase: 'desk', show: context, exhibitorIn }
 	);
 	return {
-		verdict: { fits: result.fits, failures: withStandingHint(result.failures) },
+		verdict: withDeskAdvice({ fits: result.fits, failures: withStandingHint(result.failures) }),
 		fitting: classes.filter((c) => ids.includes(c.id) && c.id !== entry.classId),
 		plant: asMeasured
 	};
@@ -206,8 +211,7 @@ export async function loadDeskEntry(show: Show, number: number): Promise<DeskEnt
 	};
 }
 
-/** A desk action that cannot be done, in a plain sentence. */
-export class DeskProblem extends Refusal {}
+export { DeskProblem };
 
 async function lockEntry(show: Show, entryId: string, transaction: Transaction): Promise<Entry> {
 	const entry = await Entry.findOne({
@@ -221,19 +225,39 @@ async function lockEntry(show: Show, entryId: string, transaction: Transaction):
 }
 
 /**
- * Checks an entry in with what the clerk measured (inches or centimeters; stored in inches),
- * and returns the verdict with those measurements.
+ * Checks an entry in with what the clerk measured (inches or centimeters; stored in inches), or
+ * with nothing measured yet (`input` null: one tap when the plant arrives).
+ * The first check-in after entries have closed fixes the show's entry numbers (shuffled, see
+ * `fixEntryNumbers`); returns the entry's number after the check-in.
  */
 export async function checkInEntry(
 	show: Show,
 	entryId: string,
 	clerkId: string,
-	input: CheckInInput,
+	input: CheckInInput | null,
 	options: { transaction: Transaction }
-): Promise<void> {
+): Promise<number> {
 	const { transaction } = options;
+	const locked = await Show.findByPk(show.id, { transaction, lock: transaction.LOCK.UPDATE });
+	if (
+		locked &&
+		!locked.entryNumbersFixedAt &&
+		FIXED_AT_CHECK_IN.has(await stageOfShow(locked, { transaction }))
+	) {
+		await fixEntryNumbers(locked, { transaction, actor: { id: clerkId } });
+	}
 	const entry = await lockEntry(show, entryId, transaction);
 	if (entry.status === 'scratched') throw new DeskProblem('This entry was scratched.');
+	if (input === null) {
+		// One tap: the plant is here; it is measured afterwards.
+		if (entry.status !== 'checked_in') {
+			await entry.update(
+				{ status: 'checked_in', checkedInAt: new Date(), checkedInBy: clerkId },
+				{ transaction }
+			);
+		}
+		return entry.number;
+	}
 	const diameter = toInches(input.diameter, input.unit);
 	const pot = toInches(input.potSize, input.unit);
 	if (diameter >= 1000 || pot >= 100) throw new DeskProblem('Those measurements are too large.');
@@ -243,11 +267,12 @@ export async function checkInEntry(
 			measuredDiameterIn: diameter.toFixed(2),
 			measuredCrowns: input.crowns,
 			potSizeIn: pot.toFixed(2),
-			checkedInAt: new Date(),
-			checkedInBy: clerkId
+			checkedInAt: entry.checkedInAt ?? new Date(),
+			checkedInBy: entry.checkedInBy ?? clerkId
 		},
 		{ transaction }
 	);
+	return entry.number;
 }
 
 /**
@@ -260,8 +285,10 @@ export async function moveEntry(
 	entryId: string,
 	classId: string,
 	options: { transaction: Transaction; actor: AuditActor }
-): Promise<ShowClass> {
+): Promise<{ target: ShowClass; number: number }> {
 	const { transaction } = options;
+	// The show's row first, as check-in and desk entries take it: numbers may change below.
+	const locked = await Show.findByPk(show.id, { transaction, lock: transaction.LOCK.UPDATE });
 	const entry = await lockEntry(show, entryId, transaction);
 	if (!entry.varietyId) throw new DeskProblem('Only plant entries can be moved here.');
 	const [classes, variety] = await Promise.all([
@@ -280,8 +307,12 @@ export async function moveEntry(
 	const declared = variety!.sizeClass;
 	const shown = judged.plant.sizeClass;
 	const from = classes.find((c) => c.id === entry.classId);
+	const before = entry.number;
+	// In the class-number form, an entry that changes class takes a number of its new class.
+	const renumber = locked?.entryNumbersFixedAt && locked.entryNumberForm === 'class_prefix';
+	const number = renumber ? await numberForNewEntry(locked, target.id, transaction) : entry.number;
 	await entry.update(
-		{ classId: target.id, shownSizeClass: shown === declared ? null : shown },
+		{ classId: target.id, shownSizeClass: shown === declared ? null : shown, number },
 		{ transaction }
 	);
 	await recordShowAudit(
@@ -291,12 +322,13 @@ export async function moveEntry(
 			target: { kind: 'entry', id: entry.id, label: `Entry ${entry.number}` },
 			details: {
 				before: { classId: from?.id ?? null, class: from ? label(from) : null },
-				after: { classId: target.id, class: label(target), shownSizeClass: entry.shownSizeClass }
+				after: { classId: target.id, class: label(target), shownSizeClass: entry.shownSizeClass },
+				...(number !== before ? { number: { before, after: number } } : {})
 			}
 		},
 		options
 	);
-	return target;
+	return { target, number };
 }
 
 /** Scratches an entry (it stays on record, is not judged), with the clerk's reason. Audited. */

@@ -1,19 +1,17 @@
 import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { formatDateLong, todayIn, type IsoDate } from '$lib/domain/dates';
-import type { LengthUnit } from '$lib/domain/units';
 import {
 	checkEligibility,
 	type CheckPhase,
 	type EligibilityResult,
 	type ExhibitorContext,
-	type PlantFacts,
-	type RuleFailure,
-	type ShowContext
+	type RuleFailure
 } from '$lib/domain/eligibility';
 import type { EntryRequest } from '$lib/schemas/entry';
 import { recordAudit } from '../audit';
 import { Division, Entry, Show, ShowClass, Variety, sequelize } from '../db';
-import { classRulesOf } from './schedule';
+import { classRulesOf, exhibitorContextOf, plantFactsOf, showContextOf } from './eligibility-input';
+import { numberForNewEntry } from './entry-numbers';
 import { MEMBERSHIP_PAGE, isInGoodStanding } from './standing';
 import { initialFeeStatus } from '$lib/domain/dues';
 import { settleFeeOfWithdrawnEntry } from './refunds';
@@ -23,48 +21,6 @@ import { Refusal } from './refusal';
 
 /** Statuses that no longer count towards an exhibitor's limits. */
 export const INACTIVE_STATUSES = ['withdrawn', 'scratched'] as const;
-
-/**
- * The show's dates and limits as the eligibility module reads them, on the society's `today`
- * and with lengths in its unit.
- */
-export function showContextOf(
-	show: Show,
-	today: IsoDate,
-	lengthUnit: LengthUnit = 'in'
-): ShowContext {
-	return {
-		showDate: show.judgingDay,
-		today,
-		lengthUnit,
-		entriesOpen: show.entriesOpen,
-		entriesClose: show.entriesClose,
-		possessionMonths: show.possessionMonths,
-		maxEntriesPerClass: show.maxEntriesPerClass,
-		maxEntriesPerVariety: show.maxEntriesPerVariety,
-		requireGoodStanding: show.requireGoodStanding
-	};
-}
-
-/** What is known of a plant of a variety; measurements are added at the desk. */
-export function plantFactsOf(
-	variety: Variety,
-	acquiredOn: IsoDate | null,
-	extra: Partial<PlantFacts> = {}
-): PlantFacts {
-	return {
-		varietyId: variety.id,
-		varietyName: variety.name,
-		isSpecies: variety.isSpecies,
-		habit: variety.habit,
-		sizeClass: variety.sizeClass,
-		blossomType: variety.blossomType,
-		blossomColours: variety.blossomColours,
-		foliage: variety.foliage,
-		acquiredOn,
-		...extra
-	};
-}
 
 /**
  * The exhibitor's standing and other active entries in a show, as a function of the class, so
@@ -90,13 +46,7 @@ export async function exhibitorContextFor(
 			transaction
 		})
 	]);
-	const ofVariety = others.filter((e) => e.varietyId === varietyId);
-	return (classId) => ({
-		inGoodStanding,
-		entriesInClass: others.filter((e) => e.classId === classId).length,
-		entriesOfVariety: ofVariety.length,
-		varietyAlreadyInClass: ofVariety.some((e) => e.classId === classId)
-	});
+	return exhibitorContextOf(inGoodStanding, others, varietyId);
 }
 
 /** Adds to the domain's good-standing sentence where a member becomes current. */
@@ -213,8 +163,7 @@ export async function createEntry(
 	const resolved = await resolve(show, input, transaction);
 	const result = await judge(resolved, exhibitorId, input.acquiredOn, 'entry', transaction);
 	if (!result.fits) throw new EntryRefused(result.failures);
-	const number = show.nextEntryNumber;
-	await show.update({ nextEntryNumber: number + 1 }, { transaction });
+	const number = await numberForNewEntry(show, resolved.showClass.id, transaction);
 	return Entry.create(
 		{
 			showId: show.id,

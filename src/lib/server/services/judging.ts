@@ -125,7 +125,9 @@ function accessSelect(classId: string): string {
 	        (EXISTS (SELECT 1 FROM entries e WHERE e.class_id = c.id AND ${ACTIVE} AND e.exhibitor_id = :userId)
 	         OR EXISTS (
 	          SELECT 1 FROM memberships mj
-	            JOIN memberships me ON me.society_id = mj.society_id
+	            JOIN (SELECT user_id, society_id, household FROM memberships
+	                  UNION ALL SELECT user_id, society_id, household FROM walk_in_exhibitors) me
+	              ON me.society_id = mj.society_id
 	             AND lower(trim(me.household)) = lower(trim(mj.household))
 	            JOIN entries e ON e.exhibitor_id = me.user_id AND e.class_id = c.id AND ${ACTIVE}
 	           WHERE mj.user_id = :userId AND mj.society_id = s.society_id

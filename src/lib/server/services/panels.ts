@@ -65,10 +65,12 @@ async function conflictEntries(showId: string, classIds: string[], transaction?:
 		exhibitorId: string;
 		exhibitorHousehold: string | null;
 	}>(
-		`SELECT e.class_id AS "classId", e.exhibitor_id AS "exhibitorId", m.household AS "exhibitorHousehold"
+		`SELECT e.class_id AS "classId", e.exhibitor_id AS "exhibitorId",
+		        COALESCE(m.household, w.household) AS "exhibitorHousehold"
 		   FROM entries e
 		   JOIN shows s ON s.id = e.show_id
 		   LEFT JOIN memberships m ON m.user_id = e.exhibitor_id AND m.society_id = s.society_id
+		   LEFT JOIN walk_in_exhibitors w ON w.user_id = e.exhibitor_id AND w.society_id = s.society_id
 		  WHERE e.show_id = :showId AND e.class_id IN (:classIds)
 		    AND e.status NOT IN ('withdrawn', 'scratched')`,
 		{ replacements: { showId, classIds }, type: QueryTypes.SELECT, transaction }

@@ -1,7 +1,6 @@
 import { duesCover } from './standing';
 import { Op, QueryTypes, type Transaction } from 'sequelize';
 import type { IsoDate } from '$lib/domain/dates';
-import type { ExhibitorContext } from '$lib/domain/eligibility';
 import {
 	assessReadiness,
 	type LoggedEvent,
@@ -12,8 +11,7 @@ import {
 } from '$lib/domain/readiness';
 import { Division, Membership, Show, ShowClass, Society, sequelize } from '../db';
 import { plantName } from './plants';
-import type { LengthUnit } from '$lib/domain/units';
-import { classRulesOf as scheduleClassRules } from './schedule';
+import { classRulesOf, exhibitorContextOf, plantFactsOf, showContextOf } from './eligibility-input';
 
 /** A class of the schedule, as the readiness page names it. */
 export interface ClassLabel {
@@ -40,29 +38,6 @@ export interface ShowForReadiness {
 	societyName: string;
 	context: ReadinessShow;
 	classes: (ReadinessClass & ClassLabel)[];
-}
-
-/** The rules of a class as the eligibility module reads them (one reader: schedule.ts). */
-export const classRulesOf = scheduleClassRules;
-
-/** A show's dates and limits as the eligibility and readiness modules read them. */
-export function showContextOf(
-	show: Show,
-	today: IsoDate,
-	lengthUnit: LengthUnit = 'in'
-): ReadinessShow {
-	return {
-		lengthUnit,
-		showDate: show.judgingDay,
-		entryDay: show.entryDay,
-		today,
-		entriesOpen: show.entriesOpen,
-		entriesClose: show.entriesClose,
-		possessionMonths: show.possessionMonths,
-		maxEntriesPerClass: show.maxEntriesPerClass,
-		maxEntriesPerVariety: show.maxEntriesPerVariety,
-		requireGoodStanding: show.requireGoodStanding
-	};
 }
 
 /** Loads a show with its published schedule's horticulture classes; null when there is none. */
@@ -220,28 +195,27 @@ export async function assessCollections(
 
 	for (const p of plants) {
 		const own = entries.filter((e) => e.exhibitor_id === p.owner_id);
-		const exhibitorIn = (classId: string): ExhibitorContext => ({
-			inGoodStanding: standing.get(p.owner_id) ?? false,
-			entriesInClass: own.filter((e) => e.class_id === classId).length,
-			entriesOfVariety: own.filter((e) => e.variety_id === p.variety_id).length,
-			varietyAlreadyInClass: own.some(
-				(e) => e.class_id === classId && e.variety_id === p.variety_id
-			)
-		});
+		const exhibitorIn = exhibitorContextOf(
+			standing.get(p.owner_id) ?? false,
+			own.map((e) => ({ classId: e.class_id, varietyId: e.variety_id })),
+			p.variety_id
+		);
 		const readiness = assessReadiness(
 			{
 				plantId: p.id,
-				facts: {
-					varietyId: p.variety_id,
-					varietyName: p.name,
-					isSpecies: p.is_species,
-					habit: p.habit,
-					sizeClass: p.size_class,
-					blossomType: p.blossom_type,
-					blossomColours: p.blossom_colours,
-					foliage: p.foliage,
-					acquiredOn: p.obtained_on
-				},
+				facts: plantFactsOf(
+					{
+						id: p.variety_id,
+						name: p.name,
+						isSpecies: p.is_species,
+						habit: p.habit,
+						sizeClass: p.size_class,
+						blossomType: p.blossom_type,
+						blossomColours: p.blossom_colours,
+						foliage: p.foliage
+					},
+					p.obtained_on
+				),
 				events: eventsOf.get(p.id) ?? []
 			},
 			show.context,

@@ -174,6 +174,9 @@ const SHOW_OWN_COLUMNS = [
 	'schedule_published_at',
 	'results_published_at',
 	'next_entry_number',
+	'entry_number_seed',
+	'entry_number_digits',
+	'entry_numbers_fixed_at',
 	'created_at',
 	'updated_at'
 ];

@@ -1,13 +1,52 @@
+import { fail } from '@sveltejs/kit';
+import { Show, sequelize } from '$lib/server/db';
+import { requireConfirmation } from '$lib/server/confirm';
 import { requireShowRole } from '$lib/server/policies/show';
 import { findDeskEntries } from '$lib/server/services/desk';
-import type { PageServerLoad } from './$types';
+import { deskWindowOf } from '$lib/server/services/desk-entries';
+import { DeskProblem } from '$lib/server/services/desk-problem';
+import { fixEntryNumbers } from '$lib/server/services/entry-numbers';
+import type { Actions, PageServerLoad } from './$types';
+
+const ROLES = ['clerk', 'chair'] as const;
 
 export const load: PageServerLoad = async (event) => {
-	const { show } = await requireShowRole(event, event.params.slug, ['clerk', 'chair']);
+	const { show } = await requireShowRole(event, event.params.slug, ROLES);
 	const q = (event.url.searchParams.get('q') ?? '').slice(0, 80);
+	const window = await deskWindowOf(show);
 	return {
-		show: { name: show.name, slug: show.slug, entryDay: show.entryDay },
+		show: {
+			name: show.name,
+			slug: show.slug,
+			entryDay: show.entryDay,
+			numbersFixed: show.entryNumbersFixedAt !== null
+		},
+		deskEntries: window.open ? null : window.reason,
 		q,
 		hits: await findDeskEntries(show.id, q)
 	};
+};
+
+export const actions: Actions = {
+	/** Fixes the show's entry numbers now, in shuffled order (else the first check-in does). */
+	fixNumbers: async (event) => {
+		const { show, user } = await requireShowRole(event, event.params.slug, ROLES);
+		const form = await event.request.formData();
+		const unconfirmed = requireConfirmation(event, form, 'Fix the entry numbers now?');
+		if (unconfirmed) return unconfirmed;
+		try {
+			const fixed = await sequelize.transaction(async (transaction) => {
+				const locked = await Show.findByPk(show.id, { transaction, lock: transaction.LOCK.UPDATE });
+				return fixEntryNumbers(locked!, { transaction, actor: user });
+			});
+			return {
+				saved: fixed
+					? 'The entry numbers are fixed in shuffled order. Print the tags now.'
+					: 'The entry numbers were fixed already.'
+			};
+		} catch (e) {
+			if (e instanceof DeskProblem) return fail(400, { message: e.message });
+			throw e;
+		}
+	}
 };

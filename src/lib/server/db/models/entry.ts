@@ -35,6 +35,7 @@ export class Entry extends Model<InferAttributes<Entry>, InferCreationAttributes
 		'miniature' | 'semiminiature' | 'standard' | 'large' | null
 	>;
 	declare deskNote: CreationOptional<string | null>;
+	declare enteredAtDeskBy: CreationOptional<string | null>;
 	declare createdAt: CreationOptional<Date>;
 	declare updatedAt: CreationOptional<Date>;
 
@@ -60,6 +61,7 @@ export class Entry extends Model<InferAttributes<Entry>, InferCreationAttributes
 				feePaymentId: { type: DataTypes.UUID },
 				shownSizeClass: { type: DataTypes.STRING(16) },
 				deskNote: { type: DataTypes.STRING(240) },
+				enteredAtDeskBy: { type: DataTypes.UUID },
 				createdAt: { type: DataTypes.DATE, defaultValue: DataTypes.NOW },
 				updatedAt: { type: DataTypes.DATE, defaultValue: DataTypes.NOW }
 			},

@@ -7,6 +7,8 @@ import {
 	type InferCreationAttributes,
 	type Sequelize
 } from 'sequelize';
+import type { EntryNumberForm } from '../../../domain/entry-numbers';
+import type { DeskEntriesUntil } from '../../../domain/desk-window';
 
 /** A judged show held by a society, with its dates and rules. */
 export class Show extends Model<InferAttributes<Show>, InferCreationAttributes<Show>> {
@@ -31,6 +33,11 @@ export class Show extends Model<InferAttributes<Show>, InferCreationAttributes<S
 	declare entryFeeRefund: CreationOptional<'none' | 'until_entries_close' | 'until_entry_day'>;
 	declare generalRules: CreationOptional<string | null>;
 	declare committee: CreationOptional<string | null>;
+	declare deskEntriesUntil: CreationOptional<DeskEntriesUntil>;
+	declare entryNumberForm: CreationOptional<EntryNumberForm>;
+	declare entryNumberSeed: CreationOptional<number | null>;
+	declare entryNumberDigits: CreationOptional<number | null>;
+	declare entryNumbersFixedAt: CreationOptional<Date | null>;
 	declare schedulePublishedAt: Date | null;
 	declare resultsPublishedAt: Date | null;
 	declare createdAt: CreationOptional<Date>;
@@ -59,6 +66,19 @@ export class Show extends Model<InferAttributes<Show>, InferCreationAttributes<S
 				entryFeeRefund: { type: DataTypes.STRING(24), allowNull: false, defaultValue: 'none' },
 				generalRules: { type: DataTypes.TEXT },
 				committee: { type: DataTypes.TEXT },
+				deskEntriesUntil: {
+					type: DataTypes.STRING(24),
+					allowNull: false,
+					defaultValue: 'judging_starts'
+				},
+				entryNumberForm: {
+					type: DataTypes.STRING(16),
+					allowNull: false,
+					defaultValue: 'show_sequence'
+				},
+				entryNumberSeed: { type: DataTypes.INTEGER },
+				entryNumberDigits: { type: DataTypes.INTEGER },
+				entryNumbersFixedAt: { type: DataTypes.DATE },
 				schedulePublishedAt: { type: DataTypes.DATE },
 				resultsPublishedAt: { type: DataTypes.DATE },
 				createdAt: { type: DataTypes.DATE, defaultValue: DataTypes.NOW },

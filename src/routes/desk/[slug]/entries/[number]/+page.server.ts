@@ -1,4 +1,4 @@
-import { error, fail } from '@sveltejs/kit';
+import { error, fail, redirect } from '@sveltejs/kit';
 import { checkInSchema, moveSchema, scratchSchema } from '$lib/schemas/desk';
 import { sequelize } from '$lib/server/db';
 import { requireConfirmation } from '$lib/server/confirm';
@@ -38,7 +38,14 @@ async function attempt(change: (t: import('sequelize').Transaction) => Promise<u
 export const load: PageServerLoad = async (event) => {
 	const { show, entry } = await deskEntry(event);
 	const settings = await loadSocietySettings(show.societyId);
-	return { show: { name: show.name, slug: show.slug }, entry, lengthUnit: settings.lengthUnit };
+	const renumbered = event.url.searchParams.get('renumbered');
+	return {
+		show: { name: show.name, slug: show.slug },
+		entry,
+		lengthUnit: settings.lengthUnit,
+		entered: event.url.searchParams.get('entered') === '1',
+		renumbered: renumbered && /^\d{1,9}$/.test(renumbered) ? Number(renumbered) : null
+	};
 };
 
 export const actions: Actions = {
@@ -58,10 +65,26 @@ export const actions: Actions = {
 				values
 			});
 		}
-		const failed = await attempt((t) =>
-			checkInEntry(show, entry.id, user.id, parsed.data, { transaction: t })
-		);
-		return failed ?? { saved: `Entry ${entry.number} is checked in.` };
+		let number = entry.number;
+		const failed = await attempt(async (t) => {
+			number = await checkInEntry(show, entry.id, user.id, parsed.data, { transaction: t });
+		});
+		if (failed) return failed;
+		// The first check-in after entries closed fixes the numbers: the entry's page moves with it.
+		if (number !== entry.number)
+			redirect(303, `/desk/${show.slug}/entries/${number}?renumbered=${entry.number}`);
+		return { saved: `Entry ${entry.number} is checked in.` };
+	},
+	arrived: async (event) => {
+		const { show, user, entry } = await deskEntry(event);
+		let number = entry.number;
+		const failed = await attempt(async (t) => {
+			number = await checkInEntry(show, entry.id, user.id, null, { transaction: t });
+		});
+		if (failed) return failed;
+		if (number !== entry.number)
+			redirect(303, `/desk/${show.slug}/entries/${number}?renumbered=${entry.number}`);
+		return { saved: `Entry ${entry.number} is checked in; measure it when you can.` };
 	},
 	move: async (event) => {
 		const { show, user, entry } = await deskEntry(event);
@@ -75,14 +98,19 @@ export const actions: Actions = {
 		);
 		if (unconfirmed) return unconfirmed;
 		let label = '';
+		let number = entry.number;
 		const failed = await attempt(async (t) => {
-			const target = await moveEntry(show, entry.id, parsed.data.classId, {
+			const moved = await moveEntry(show, entry.id, parsed.data.classId, {
 				transaction: t,
 				actor: user
 			});
-			label = `${target.code} ${target.name}`;
+			label = `${moved.target.code} ${moved.target.name}`;
+			number = moved.number;
 		});
-		return failed ?? { saved: `Entry ${entry.number} is moved to class ${label}.` };
+		if (failed) return failed;
+		if (number !== entry.number)
+			redirect(303, `/desk/${show.slug}/entries/${number}?renumbered=${entry.number}`);
+		return { saved: `Entry ${entry.number} is moved to class ${label}.` };
 	},
 	scratch: async (event) => {
 		const { show, user, entry } = await deskEntry(event);
