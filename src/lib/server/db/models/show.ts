@@ -31,6 +31,8 @@ export class Show extends Model<InferAttributes<Show>, InferCreationAttributes<S
 	declare entryFeeRefund: CreationOptional<'none' | 'until_entries_close' | 'until_entry_day'>;
 	declare generalRules: CreationOptional<string | null>;
 	declare committee: CreationOptional<string | null>;
+	/** Whether exhibitors see the points lost per criterion once results are published. */
+	declare sharePointsLost: CreationOptional<boolean>;
 	declare schedulePublishedAt: Date | null;
 	declare resultsPublishedAt: Date | null;
 	declare createdAt: CreationOptional<Date>;
@@ -59,6 +61,7 @@ export class Show extends Model<InferAttributes<Show>, InferCreationAttributes<S
 				entryFeeRefund: { type: DataTypes.STRING(24), allowNull: false, defaultValue: 'none' },
 				generalRules: { type: DataTypes.TEXT },
 				committee: { type: DataTypes.TEXT },
+				sharePointsLost: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
 				schedulePublishedAt: { type: DataTypes.DATE },
 				resultsPublishedAt: { type: DataTypes.DATE },
 				createdAt: { type: DataTypes.DATE, defaultValue: DataTypes.NOW },
