@@ -3,6 +3,7 @@ import {
 	bestScores,
 	describeCounts,
 	figuresOf,
+	levelsIn,
 	markedDown,
 	pointsLost,
 	recordByVariety,
@@ -131,6 +132,10 @@ describe('figuresOf and describeCounts', () => {
 		expect(describeCounts(figuresOf(SET).counts)).toBe(
 			'3 blue ribbons, 1 red ribbon, 1 white ribbon'
 		);
+	});
+	it('names the ribbons that occur, in order', () => {
+		expect(levelsIn(SET)).toEqual(['blue', 'red', 'white']);
+		expect(levelsIn([])).toEqual([]);
 	});
 	it.each([
 		[84.875, 84.9],

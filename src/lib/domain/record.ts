@@ -204,3 +204,9 @@ export function markedDown(lost: readonly PointsLost[]): PointsLost[] {
 		.sort((a, b) => b.p.lost - a.p.lost || a.i - b.i)
 		.map(({ p }) => p);
 }
+
+/** The ribbons and places that occur among the entries, in RECORD_LEVELS order. */
+export function levelsIn(entries: readonly RecordEntry[]): AwardLevel[] {
+	const seen = new Set(entries.map((e) => e.level));
+	return RECORD_LEVELS.filter((l) => seen.has(l));
+}

@@ -10,6 +10,7 @@ import {
 	settingsOf,
 	updateShowSettings
 } from '$lib/server/services/schedule';
+import { setSharePointsLost } from '$lib/server/services/my-results';
 import type { Actions, PageServerLoad } from './$types';
 
 const FIELDS = [
@@ -38,6 +39,7 @@ export const load: PageServerLoad = async (event) => {
 	const started = event.url.searchParams.get('started');
 	return {
 		show: settingsOf(show),
+		sharePointsLost: show.sharePointsLost,
 		started: started === 'create' || started === 'copy' ? started : null
 	};
 };
@@ -67,6 +69,22 @@ export const actions: Actions = {
 			return fail(400, { message: e.message, errors: { [e.field]: e.message }, values });
 		}
 		return { saved: 'The show’s dates and rules are saved.' };
+	},
+	sharePoints: async (event) => {
+		const { show } = await requireShowRole(event, event.params.slug, ['chair']);
+		const choice = (await event.request.formData()).get('share');
+		if (choice !== 'yes' && choice !== 'no') {
+			return fail(400, { message: 'Choose whether exhibitors see the points lost.' });
+		}
+		await sequelize.transaction((transaction) =>
+			setSharePointsLost(show.id, choice === 'yes', { transaction })
+		);
+		return {
+			saved:
+				choice === 'yes'
+					? 'Exhibitors will see the points lost per criterion once results are published.'
+					: 'Exhibitors will not see the points lost per criterion.'
+		};
 	},
 	publish: async (event) => {
 		const { show, user } = await requireShowRole(event, event.params.slug, ['chair']);
