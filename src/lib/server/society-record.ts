@@ -24,8 +24,11 @@ export async function societyRecordFor(
 ): Promise<SocietyRecordView> {
 	const user = requireRole(event, ['member']);
 	const mine = user.memberships.filter((m) => m.roles.includes('member'));
-	const asked = event.url.searchParams.get('society');
-	const chosen = asked ? mine.find((m) => m.societySlug === asked) : mine[0];
+	const params = event.url.searchParams;
+	// A society asked for by address must be one of the person's (an empty or unknown one is not).
+	const chosen = params.has('society')
+		? mine.find((m) => m.societySlug === params.get('society'))
+		: mine[0];
 	if (!chosen) error(404, 'You are not a member of that society.');
 	requireRole(event, ['member'], chosen.societyId);
 	const entries = await loadSocietyRecord(chosen.societyId);
