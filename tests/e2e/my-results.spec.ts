@@ -24,13 +24,24 @@ let tag: string;
 let ownEntry: string;
 let otherEntry: string;
 let plantId: string;
+const showName = () => `Judging test show ${show.slug.replace('judging-test-', '')}`;
 const comment = (who: string) => `${who} note ${tag}`;
+
+/** A whole sheet (a judge's tablet sends every criterion): the points lost given, 0 elsewhere. */
+const sheet = (lost: Record<string, number>) => ({
+	symmetry: 0,
+	condition: 0,
+	quantity_of_bloom: 0,
+	size_and_type_of_blossom: 0,
+	color_of_blossom: 0,
+	...lost
+});
 
 /** Writes judge1's sheet for each entry and gives exhibitor3's entry a plant of their own. */
 async function scoreShow(): Promise<void> {
 	tag = randomUUID().slice(0, 8);
 	show = await createJudgingShow(4);
-	const lost = [
+	const lost: Record<string, number>[] = [
 		{ symmetry: 10, condition: 10, quantity_of_bloom: 5 },
 		{ symmetry: 5, condition: 5, quantity_of_bloom: 5 },
 		{ symmetry: 2, condition: 1 },
@@ -43,7 +54,7 @@ async function scoreShow(): Promise<void> {
 			await db.query(
 				`INSERT INTO score_sheets (show_id, entry_id, kind, judge_id, deductions, comment)
 				 VALUES ($1, $2, 'judge', $3, $4::jsonb, $5)`,
-				[show.showId, e.id, judge, JSON.stringify(lost[i]), comment(`exhibitor${i + 1}`)]
+				[show.showId, e.id, judge, JSON.stringify(sheet(lost[i])), comment(`exhibitor${i + 1}`)]
 			);
 		}
 		ownEntry = show.entries[2].id;
@@ -64,9 +75,15 @@ async function scoreShow(): Promise<void> {
 /** The page's text, for "never contains" checks. */
 const textOf = (page: Page) => page.locator('body').innerText();
 
-/** True when the page scrolls sideways at its current width. */
+/** True when the page, or a table's box within it, scrolls sideways at its current width. */
 const scrollsSideways = (page: Page) =>
-	page.evaluate(() => document.documentElement.scrollWidth > window.innerWidth);
+	page.evaluate(
+		() =>
+			document.documentElement.scrollWidth > window.innerWidth ||
+			[...document.querySelectorAll('div')].some(
+				(d) => getComputedStyle(d).overflowX === 'auto' && d.scrollWidth > d.clientWidth
+			)
+	);
 
 test('before results are published, the exhibitor sees no score, ribbon or comment', async ({
 	page
@@ -94,7 +111,7 @@ test('before results are published, the exhibitor sees no score, ribbon or comme
 	expect(await textOf(page)).not.toContain('97');
 	expect(await textOf(page)).not.toContain('Blue ribbon');
 	await page.goto('/my');
-	const table = page.getByRole('table', { name: `My entries in Judging test show ${tag}` });
+	const table = page.getByRole('table', { name: `My entries in ${showName()}` });
 	await expect(table.getByRole('row').nth(1)).toContainText('Not yet');
 });
 
@@ -143,23 +160,21 @@ test('after publishing, the exhibitor sees their own score, ribbon, comment and 
 	// /my: the show with its ribbons.
 	await page.goto('/my');
 	await expect(page.getByText(/1 blue ribbon/).first()).toBeVisible();
-	const table = page.getByRole('table', { name: `My entries in Judging test show ${tag}` });
+	const table = page.getByRole('table', { name: `My entries in ${showName()}` });
 	await expect(table.getByRole('row').nth(1)).toContainText('Best in class, Blue ribbon (97)');
 
 	// The record: by year, by variety, best scores, with a chart.
 	await page.goto('/my/record');
 	await expect(page.getByRole('img', { name: /My ribbons and places by year/ })).toBeVisible();
 	const best = page.getByRole('table', { name: 'My best scores' });
-	await expect(
-		best.getByRole('row', { name: new RegExp(`97 .*Judging test show ${tag}`) })
-	).toBeVisible();
+	await expect(best.getByRole('row', { name: new RegExp(`97 .*${showName()}`) })).toBeVisible();
 	await expect(page.getByRole('table', { name: 'My results by year' })).toBeVisible();
 	await expectAccessible(page);
 
 	// The plant's show history beside its family.
 	await page.goto(`/my/plants/${plantId}`);
 	const history = page.getByRole('region', { name: 'Show history' });
-	await expect(history).toContainText(`Judging test show ${tag}`);
+	await expect(history).toContainText(`${showName()}`);
 	await expect(history).toContainText(comment('exhibitor3'));
 	await expect(page.getByRole('region', { name: 'Plant and family' })).toBeVisible();
 	await expectAccessible(page);
@@ -168,7 +183,7 @@ test('after publishing, the exhibitor sees their own score, ribbon, comment and 
 	const params = await loadParams();
 	await page.goto(`/my/plants/readiness?show=${params.showId}`);
 	const card = page.getByRole('listitem').filter({ hasText: `Bench ${tag}` });
-	await expect(card).toContainText(`Last time: Judging test show ${tag}`);
+	await expect(card).toContainText(`Last time: ${showName()}`);
 	await expect(card).toContainText(
 		'The judges marked down: symmetry or leaf pattern 2 of 25; condition 1 of 25.'
 	);
@@ -206,6 +221,7 @@ test('public results and my pages read on a phone without sideways scrolling', a
 	await page.goto(`/shows/${show.slug}/results`);
 	await expect(class1.getByRole('row', { name: /97 Best in class, Blue ribbon/ })).toBeVisible();
 	await expectAccessible(page);
+	if (process.env.CB_SHOT) await page.screenshot({ path: process.env.CB_SHOT, fullPage: true });
 	await signIn(page, OWN);
 	for (const url of [
 		`/shows/${show.slug}/results`,

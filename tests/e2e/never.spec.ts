@@ -509,14 +509,21 @@ test('an exhibitor never receives a score, ribbon or comment before results are 
 	const show = await createJudgingShow(2);
 	const words = { a: `Own remark ${tag}`, b: `Rival remark ${tag}` };
 	const aPlant = randomUUID();
+	const sheet = {
+		symmetry: 3,
+		condition: 0,
+		quantity_of_bloom: 0,
+		size_and_type_of_blossom: 0,
+		color_of_blossom: 0
+	};
 	await withDb(async (db) => {
 		const judge = (await db.query(`SELECT id FROM users WHERE email = 'judge1@crownbench.test'`))
 			.rows[0].id;
 		for (const [i, text] of [words.a, words.b].entries()) {
 			await db.query(
 				`INSERT INTO score_sheets (show_id, entry_id, kind, judge_id, deductions, comment)
-				 VALUES ($1, $2, 'judge', $3, '{"symmetry": 3}'::jsonb, $4)`,
-				[show.showId, show.entries[i].id, judge, text]
+				 VALUES ($1, $2, 'judge', $3, $4::jsonb, $5)`,
+				[show.showId, show.entries[i].id, judge, JSON.stringify(sheet), text]
 			);
 		}
 		const entry = (
