@@ -130,7 +130,8 @@ test('an exhibitor never sees another exhibitor’s entries, plants or photos be
 	// The words are there to be found: B sees them, so a leak to A would be caught.
 	const own = await fetchAll(bApi, [`/my/entries/${b.entryId}`, `/my/plants/${b.plantId}`]);
 	expect(own.map((a) => a.status)).toEqual([200, 200]);
-	expect(leaks(own, [secretTitle])).toHaveLength(1);
+	// The title is on the entry and, in its show history, on the plant's page.
+	expect(leaks(own, [secretTitle])).toHaveLength(2);
 	expect(leaks(own, [secretLabel])).toHaveLength(1);
 	expect((await bApi.get(`/api/photos/${entryPhotoId}`)).status()).toBe(200);
 	expect((await bApi.get(`/my/plants/${b.plantId}/photos/${plantPhotoId}`)).status()).toBe(200);
@@ -495,4 +496,98 @@ test('only the show’s chair publishes the schedule and the results', async ({
 	const published = await state();
 	expect(published).toMatchObject({ schedule: true, results: true });
 	await chair.dispose();
+});
+
+test('an exhibitor never receives a score, ribbon or comment before results are public, nor another exhibitor’s comment after', async ({
+	browser,
+	baseURL
+}) => {
+	test.setTimeout(180_000);
+	const params = await loadParams();
+	const tag = randomUUID().slice(0, 8);
+	// A judged show of its own: exhibitor1 (A) and exhibitor2 (B) each have one scored entry with
+	// a comment; A's entry is of a plant of A's collection.
+	const show = await createJudgingShow(2);
+	const words = { a: `Own remark ${tag}`, b: `Rival remark ${tag}` };
+	const aPlant = randomUUID();
+	const sheet = {
+		symmetry: 3,
+		condition: 0,
+		quantity_of_bloom: 0,
+		size_and_type_of_blossom: 0,
+		color_of_blossom: 0
+	};
+	await withDb(async (db) => {
+		const judge = (await db.query(`SELECT id FROM users WHERE email = 'judge1@crownbench.test'`))
+			.rows[0].id;
+		for (const [i, text] of [words.a, words.b].entries()) {
+			await db.query(
+				`INSERT INTO score_sheets (show_id, entry_id, kind, judge_id, deductions, comment)
+				 VALUES ($1, $2, 'judge', $3, $4::jsonb, $5)`,
+				[show.showId, show.entries[i].id, judge, JSON.stringify(sheet), text]
+			);
+		}
+		const entry = (
+			await db.query(`SELECT exhibitor_id, variety_id FROM entries WHERE id = $1`, [
+				show.entries[0].id
+			])
+		).rows[0];
+		await db.query(
+			`INSERT INTO plants (id, owner_id, variety_id, obtained_how, obtained_on)
+			 VALUES ($1, $2, $3, 'bought', current_date - 300)`,
+			[aPlant, entry.exhibitor_id, entry.variety_id]
+		);
+		await db.query(`UPDATE entries SET plant_id = $2 WHERE id = $1`, [show.entries[0].id, aPlant]);
+		await db.query(`UPDATE shows SET share_points_lost = true WHERE id = $1`, [show.showId]);
+	});
+	// A's own ids in every GET address of the access table, and this show's slug.
+	const own: Record<string, string> = {
+		memberEntryId: show.entries[0].id,
+		entryId: show.entries[0].id,
+		id: show.entries[0].id,
+		plantId: aPlant,
+		slug: show.slug,
+		classId: show.classId,
+		number: String(show.entries[0].number)
+	};
+	const urls = ACCESS_TABLE.filter(
+		(row) => (row.method ?? 'GET') === 'GET' && !row.route.startsWith('/dev/')
+	).map((row) => {
+		const values: Record<string, string> = { ...params, ...row.params, ...own };
+		const query = row.query?.replace(/\$(\w+)/g, (_, k: string) => values[k]);
+		return fillRoute(row.route, values) + (query ? `?${query}` : '');
+	});
+	urls.push(`/my/plants/readiness?show=${params.showId}`);
+	const aCookie = await cookieFor(browser, 'exhibitor1@crownbench.test');
+	let a = await requestAs(baseURL!, aCookie);
+	// A score of 97 (100 less 3 on symmetry) and its points lost, written as the pages write them.
+	const scoreWords = [words.a, words.b, 'symmetry or leaf pattern 3 of 25', 'Points lost per'];
+
+	const before = await fetchAll(a, urls, { withData: true });
+	expect(before.length).toBeGreaterThan(60);
+	expect(leaks(before, scoreWords)).toEqual([]);
+	const entryPage = before.find((x) => x.url === `/my/entries/${show.entries[0].id}`);
+	expect(entryPage?.status).toBe(200);
+	expect(wordsIn(entryPage!.body, ['has not published'])).toHaveLength(1);
+
+	const chair = await requestAs(baseURL!, await cookieFor(browser, VISITORS.chair));
+	const published = await chair.post(`/chair/shows/${show.slug}/awards?/publish`, {
+		form: { allowIncomplete: 'on', confirm: 'yes' },
+		headers: { accept: 'text/html' },
+		maxRedirects: 0
+	});
+	expect(published.status()).toBe(200);
+	await chair.dispose();
+
+	// A fresh context: the first one's kept-alive connections may have been closed meanwhile.
+	await a.dispose();
+	a = await requestAs(baseURL!, aCookie);
+	const after = await fetchAll(a, urls, { withData: true });
+	console.log(
+		`never, results: ${before.length + after.length} answers to an exhibitor checked before and after publishing`
+	);
+	// A's own comment is there to be found (so B's would be caught), B's is nowhere.
+	expect(leaks(after, [words.a]).length).toBeGreaterThan(0);
+	expect(leaks(after, [words.b])).toEqual([]);
+	await a.dispose();
 });

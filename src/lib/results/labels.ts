@@ -1,6 +1,9 @@
 import type { AwardLevel } from '$lib/domain/awards';
 import type { ResultEntry } from './types';
 
+/** What an entry's award words are made of. */
+type Awarded = Pick<ResultEntry, 'topAwards' | 'bestInClass' | 'level' | 'state'>;
+
 /** Words for each ribbon or place. */
 export const LEVEL_LABELS: Record<AwardLevel, string> = {
 	blue: 'Blue ribbon',
@@ -19,7 +22,7 @@ export function formatScore(score: number | null): string {
 }
 
 /** Every award of an entry in words, highest first: top awards, best in class, ribbon or place. */
-export function entryAwards(entry: ResultEntry): string[] {
+export function entryAwards(entry: Awarded): string[] {
 	const words = [...entry.topAwards];
 	if (entry.bestInClass) words.push('Best in class');
 	if (entry.level) words.push(LEVEL_LABELS[entry.level]);
@@ -27,7 +30,7 @@ export function entryAwards(entry: ResultEntry): string[] {
 }
 
 /** The entry's awards in one line, or what happened when it has none. */
-export function awardLine(entry: ResultEntry): string {
+export function awardLine(entry: Awarded): string {
 	const words = entryAwards(entry);
 	if (words.length > 0) return words.join(', ');
 	if (entry.state === 'not_judged') return 'Not judged';

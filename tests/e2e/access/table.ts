@@ -143,6 +143,28 @@ export const ACCESS_TABLE: AccessRow[] = [
 		params: { plantId: 'not-an-id' },
 		answers: { ...ownPlant(), member: 404 }
 	},
+	// Results and records (issue 16): one's own record; a society's record for its members only.
+	{ route: '/my/record', answers: pageFor('member', 'clerk', 'chair', 'admin', 'other') },
+	{ route: '/my/society-record', answers: pageFor('member', 'clerk', 'chair', 'admin', 'other') },
+	{
+		route: '/my/society-record',
+		query: 'society=cedar-ridge',
+		answers: { ...pageFor('other'), member: 404, clerk: 404, chair: 404, admin: 404 }
+	},
+	{
+		route: '/my/society-record',
+		query: 'society=larkspur-valley',
+		answers: { ...pageFor('member', 'clerk', 'chair', 'admin'), other: 404 }
+	},
+	{
+		route: '/my/society-record/record.csv',
+		answers: pageFor('member', 'clerk', 'chair', 'admin', 'other')
+	},
+	{
+		route: '/my/society-record/record.csv',
+		query: 'society=larkspur-valley',
+		answers: { ...pageFor('member', 'clerk', 'chair', 'admin'), other: 404 }
+	},
 	{ route: '/my/mail', answers: pageFor('member', 'clerk', 'chair', 'admin', 'other') },
 	{
 		route: '/api/chair/shows/[showId]/entry-reminders',

@@ -166,6 +166,7 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 			'publicHours'
 		]
 	},
+	'/chair/shows/[slug] action:sharePoints': { as: 'chair', corrupt: 'form', fields: ['share'] },
 	'/chair/shows/[slug] action:publish': {
 		as: 'chair',
 		corrupt: 'form',
@@ -375,6 +376,12 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 		corrupt: 'path',
 		fields: [],
 		params: { photoId: NOTHING }
+	},
+	'/my/society-record/record.csv api:GET': {
+		as: 'member',
+		corrupt: 'query+path',
+		fields: ['society'],
+		needsField: true
 	},
 	'/my/plants/labels/pdf api:GET': { as: 'member', corrupt: 'query+path', fields: ['plant'] },
 	'/my/plants/new action:default': { as: 'member', corrupt: 'form', fields: PLANT_FIELDS },

@@ -1,4 +1,4 @@
-import { Op, QueryTypes, fn, col } from 'sequelize';
+import { Op, fn, col } from 'sequelize';
 import { todayIn } from '$lib/domain/dates';
 import type { ShowSummary } from '$lib/types';
 import { Entry, Show, Society } from '../db';
@@ -49,45 +49,6 @@ export async function listShowsOfSocieties(societyIds: string[]): Promise<ShowSu
 	})) as unknown as { showId: string; n: string }[];
 	const byShow = new Map(counts.map((c) => [c.showId, Number(c.n)]));
 	return shows.map((s) => toSummary(s, byShow.get(s.id) ?? 0));
-}
-
-/** The entries of one exhibitor, newest show first, with class and variety names. */
-export async function listEntriesOfExhibitor(userId: string): Promise<
-	{
-		id: string;
-		number: number;
-		showName: string;
-		classLabel: string;
-		plant: string;
-		status: string;
-	}[]
-> {
-	const rows = (await Entry.sequelize!.query(
-		`SELECT e.id, e.number, s.name AS show_name, c.code || ' ' || c.name AS class_label,
-		        COALESCE(v.name, e.title, '') AS plant, e.status
-		   FROM entries e
-		   JOIN shows s ON s.id = e.show_id
-		   JOIN classes c ON c.id = e.class_id
-		   LEFT JOIN varieties v ON v.id = e.variety_id
-		  WHERE e.exhibitor_id = :userId
-		  ORDER BY s.judging_day DESC, e.number`,
-		{ replacements: { userId }, type: QueryTypes.SELECT }
-	)) as {
-		id: string;
-		number: number;
-		show_name: string;
-		class_label: string;
-		plant: string;
-		status: string;
-	}[];
-	return rows.map((r) => ({
-		id: r.id,
-		number: r.number,
-		showName: r.show_name,
-		classLabel: r.class_label,
-		plant: r.plant,
-		status: r.status
-	}));
 }
 
 /** Published shows of the given societies that still take entries (on each society's own day), soonest first. */

@@ -38,6 +38,8 @@ export class Show extends Model<InferAttributes<Show>, InferCreationAttributes<S
 	declare entryNumberSeed: CreationOptional<number | null>;
 	declare entryNumberDigits: CreationOptional<number | null>;
 	declare entryNumbersFixedAt: CreationOptional<Date | null>;
+	/** Whether exhibitors see the points lost per criterion once results are published. */
+	declare sharePointsLost: CreationOptional<boolean>;
 	declare schedulePublishedAt: Date | null;
 	declare resultsPublishedAt: Date | null;
 	declare createdAt: CreationOptional<Date>;
@@ -79,6 +81,7 @@ export class Show extends Model<InferAttributes<Show>, InferCreationAttributes<S
 				entryNumberSeed: { type: DataTypes.INTEGER },
 				entryNumberDigits: { type: DataTypes.INTEGER },
 				entryNumbersFixedAt: { type: DataTypes.DATE },
+				sharePointsLost: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
 				schedulePublishedAt: { type: DataTypes.DATE },
 				resultsPublishedAt: { type: DataTypes.DATE },
 				createdAt: { type: DataTypes.DATE, defaultValue: DataTypes.NOW },

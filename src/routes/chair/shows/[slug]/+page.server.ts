@@ -9,6 +9,7 @@ import {
 	settingsOf,
 	updateShowSettings
 } from '$lib/server/services/schedule';
+import { setSharePointsLost } from '$lib/server/services/my-results';
 import type { Actions, PageServerLoad } from './$types';
 import { refusedForm } from '$lib/server/http/refusals';
 import type { Refusal } from '$lib/server/services/refusal';
@@ -39,6 +40,7 @@ export const load: PageServerLoad = async (event) => {
 	const started = event.url.searchParams.get('started');
 	return {
 		show: settingsOf(show),
+		sharePointsLost: show.sharePointsLost,
 		started: started === 'create' || started === 'copy' ? started : null
 	};
 };
@@ -69,6 +71,22 @@ export const actions: Actions = {
 			return refusedForm(e, (r) => ({ errors: { [field(r)]: r.message }, values }));
 		}
 		return { saved: 'The show’s dates and rules are saved.' };
+	},
+	sharePoints: async (event) => {
+		const { show } = await requireShowRole(event, event.params.slug, ['chair']);
+		const choice = (await event.request.formData()).get('share');
+		if (choice !== 'yes' && choice !== 'no') {
+			return fail(400, { message: 'Choose whether exhibitors see the points lost.' });
+		}
+		await sequelize.transaction((transaction) =>
+			setSharePointsLost(show.id, choice === 'yes', { transaction })
+		);
+		return {
+			saved:
+				choice === 'yes'
+					? 'Exhibitors will see the points lost per criterion once results are published.'
+					: 'Exhibitors will not see the points lost per criterion.'
+		};
 	},
 	publish: async (event) => {
 		const { show, user } = await requireShowRole(event, event.params.slug, ['chair']);

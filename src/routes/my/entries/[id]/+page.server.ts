@@ -11,6 +11,7 @@ import {
 	deleteEntryPhoto,
 	listEntryPhotos
 } from '$lib/server/services/photos';
+import { loadMyEntryResult } from '$lib/server/services/my-results';
 import { readOnePhoto } from '$lib/server/uploads';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -26,11 +27,12 @@ async function ownEntry(event: Pick<RequestEvent, 'url' | 'locals'>, id: string)
 
 export const load: PageServerLoad = async (event) => {
 	const entry = await ownEntry(event, event.params.id);
-	const [show, showClass, variety, photos] = await Promise.all([
+	const [show, showClass, variety, photos, result] = await Promise.all([
 		Show.findByPk(entry.showId, { attributes: ['name', 'slug'] }),
 		ShowClass.findByPk(entry.classId, { attributes: ['code', 'name'] }),
 		entry.varietyId ? Variety.findByPk(entry.varietyId, { attributes: ['name'] }) : null,
-		listEntryPhotos(entry.id)
+		listEntryPhotos(entry.id),
+		loadMyEntryResult(entry.exhibitorId, entry.id)
 	]);
 	return {
 		entry: {
@@ -42,6 +44,7 @@ export const load: PageServerLoad = async (event) => {
 			showName: show?.name ?? '',
 			showSlug: show?.slug ?? ''
 		},
+		result,
 		photos,
 		limits: { maxBytes: MAX_PHOTO_BYTES, maxPhotos: MAX_PHOTOS_PER_ENTRY }
 	};

@@ -15,15 +15,20 @@ import {
 	potUpSucker,
 	setPlantGone
 } from '$lib/server/services/plants';
+import { loadPlantHistory } from '$lib/server/services/my-results';
 import { loadMemberSettings } from '$lib/server/services/society-today';
 import { readOnePhoto } from '$lib/server/uploads';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
 	const { user, id } = memberAndId(event, event.params.plantId);
-	const [plant, settings] = await Promise.all([getPlant(user.id, id), loadMemberSettings(user)]);
+	const [plant, settings, history] = await Promise.all([
+		getPlant(user.id, id),
+		loadMemberSettings(user),
+		loadPlantHistory(user.id, id)
+	]);
 	if (!plant) error(404, 'This plant does not exist.');
-	return { plant, today: todayIn(settings.timeZone), lengthUnit: settings.lengthUnit };
+	return { plant, history, today: todayIn(settings.timeZone), lengthUnit: settings.lengthUnit };
 };
 
 type Write = (ownerId: string, plantId: string, transaction: Transaction) => Promise<string>;

@@ -9,6 +9,7 @@ import {
 	listUpcomingShows,
 	loadShowForReadiness
 } from '$lib/server/services/readiness';
+import { loadLastTimes } from '$lib/server/services/my-results';
 import { loadMemberSettings, societyToday } from '$lib/server/services/society-today';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -31,11 +32,15 @@ export const load: PageServerLoad = async (event) => {
 			Number(a.entry !== null) - Number(b.entry !== null) ||
 			ORDER[a.readiness.status] - ORDER[b.readiness.status]
 	);
+	const lastTimes = await loadLastTimes(
+		user.id,
+		plants.map((p) => p.plantId)
+	);
 	return {
 		shows,
 		show: { id: show.id, name: show.name, ...show.context },
 		classes: show.classes.map((c) => ({ id: c.id, code: c.code, name: c.name })),
-		plants
+		plants: plants.map((p) => ({ ...p, lastTime: lastTimes.get(p.plantId) ?? null }))
 	};
 };
 
