@@ -30,6 +30,7 @@ export default ts.config(
 				projectService: {
 					allowDefaultProject: [
 						'playwright.config.ts',
+						'src/service-worker.ts',
 						'vitest.integration.config.ts',
 						'scripts/*.ts',
 						'scripts/bench/*.ts'

@@ -1,20 +1,11 @@
 import { expect, test, type Page, type Response } from '@playwright/test';
 import { expectAccessible } from './support/axe';
 import { createJudgingShow, withDb } from './support/judging-fixture';
+import { changesOf, score } from './support/scoresheet';
 import { signIn } from './support/session';
 
 // A tablet held in portrait.
 test.use({ viewport: { width: 768, height: 1024 } });
-
-// The published scale: symmetry 25, condition 25, quantity of bloom 25, size and type of blossom
-// 15, color of blossom 10 ("A Beginner's Guide to Judging", AVM 1993, rev. 2020 (DOMAIN.md)).
-const CRITERIA = [
-	'Symmetry or leaf pattern',
-	'Condition',
-	'Quantity of bloom',
-	'Size and type of blossom',
-	'Color of blossom'
-];
 
 /** Deductions per entry and the totals they give on the published scale (100 less the sum). */
 const SHEETS: { deduct: number[]; total: number; ribbon: string }[] = [
@@ -23,25 +14,6 @@ const SHEETS: { deduct: number[]; total: number; ribbon: string }[] = [
 	{ deduct: [2, 2, 2, 1.5, 0.5], total: 92, ribbon: 'Blue ribbon' },
 	{ deduct: [6, 6, 7, 4, 2], total: 75, ribbon: 'White ribbon' }
 ];
-
-/** Scores the entry on screen: the last criterion by the half-point button, the rest by typing. */
-async function score(page: Page, deduct: number[]) {
-	for (let i = 0; i < CRITERIA.length - 1; i++) {
-		const input = page.getByLabel(CRITERIA[i], { exact: true });
-		await input.fill(String(deduct[i]));
-		await input.press('Tab');
-	}
-	const last = CRITERIA[CRITERIA.length - 1];
-	for (let n = 0; n < deduct[CRITERIA.length - 1] * 2; n++) {
-		await page.getByRole('button', { name: `Deduct half a point on ${last}` }).click();
-	}
-	await expect(page.getByTestId('running-total')).toHaveText(String(100 - sum(deduct)));
-}
-
-const sum = (xs: number[]) => xs.reduce((a, b) => a + b, 0);
-
-/** Changes one entry takes in `score`: four typed criteria and one click per half point. */
-const changesOf = (s: { deduct: number[] }) => CRITERIA.length - 1 + s.deduct[4] * 2;
 
 /** Keeps the body of every page and data answer the judge's browser receives. */
 function recordAnswers(page: Page): Promise<string>[] {

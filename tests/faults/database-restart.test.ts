@@ -3,7 +3,7 @@
  *
  * The built app runs against the private cluster; eight tablets (two judges, four each) save
  * sheets through PUT /api/judging/sheets as the scoresheet page does, retrying a change with the
- * same change id after a 5xx or a lost answer, as the tablet's queue does (src/lib/judging/queue.ts).
+ * same change id after a 5xx or a lost answer, as the tablet's queue does (src/lib/judging/sheet-outbox.ts).
  * The test stops the cluster in the middle of the load and starts it again. Expected: while it is
  * down the app answers 503 with a plain message (no hang, no crash); afterwards the same app
  * process saves again; and every sheet in the database is exactly the last version its tablet

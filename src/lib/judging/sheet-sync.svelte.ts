@@ -1,14 +1,30 @@
 /**
- * Keeps a class's sheets in step between the tablet and the server: every edit is queued in
- * IndexedDB first, then sent; while offline the judge keeps scoring and the queue waits; a change
- * another panel member saved first is shown (a conflict), never overwritten.
+ * Keeps a class's sheets in step between the tablet and the server: every edit goes into the
+ * person's outbox in IndexedDB first, then is sent; while offline (or signed out) the judge keeps
+ * scoring and the outbox waits; a change another panel member saved first is shown (a conflict),
+ * never overwritten. The sheets the server acknowledged are kept on the tablet too, so a page
+ * opened offline from an older copy shows the newest of them.
  */
 import { isSheetComplete, runningTotal } from '$lib/domain/judging';
 import type { ScaleOfPoints } from '$lib/domain/scoring';
-import { acknowledge, drop, enqueue, newChangeId, readQueue, send, setAside } from './queue';
+import {
+	acknowledge,
+	adoptLegacyChanges,
+	drop,
+	enqueue,
+	keepSheets,
+	newChangeId,
+	noteReached,
+	readKeptSheets,
+	readLastReached,
+	readQueue,
+	send,
+	setAside,
+	useTabletOf
+} from './sheet-outbox';
 import type { QueuedChange, TabletSheet } from './types';
 
-export type SyncStatus = 'saved' | 'saving' | 'waiting' | 'conflict';
+export type SyncStatus = 'reading' | 'saved' | 'saving' | 'waiting' | 'signed-out' | 'conflict';
 
 /** The editable parts of a sheet. */
 export type SheetEdit = Partial<
@@ -23,6 +39,12 @@ export class SheetSync {
 	private pending = $state(0);
 	sending = $state(false);
 	online = $state(true);
+	/** False until the changes kept on the tablet are read: until then nothing can be called saved. */
+	private started = $state(false);
+	/** The server answered that the session has run out: changes wait until the judge signs in. */
+	signedOut = $state(false);
+	/** When the last change from this tablet reached the server (milliseconds since 1970). */
+	lastReached: number | null = $state(null);
 	conflicts: Record<string, { mine: TabletSheet; theirs: TabletSheet; message: string }> = $state(
 		{}
 	);
@@ -39,7 +61,8 @@ export class SheetSync {
 
 	constructor(
 		private scale: ScaleOfPoints,
-		initial: Record<string, TabletSheet>
+		initial: Record<string, TabletSheet>,
+		private person: string
 	) {
 		this.sheets = structuredClone(initial);
 		this.confirmed = structuredClone(initial);
@@ -52,14 +75,30 @@ export class SheetSync {
 	}
 
 	get status(): SyncStatus {
+		if (!this.started) return 'reading';
 		if (Object.keys(this.conflicts).length > 0) return 'conflict';
+		if (this.waiting > 0 && this.signedOut) return 'signed-out';
 		if (this.waiting > 0) return this.sending && this.online ? 'saving' : 'waiting';
 		return 'saved';
 	}
 
-	/** Reads changes left in the browser (e.g. from before a reload), shows them, and sends them. */
+	/**
+	 * Reads what the tablet kept (sheets newer than the page's copy, changes left from before a
+	 * reload or a closed browser), shows it, and sends the waiting changes.
+	 */
 	async start(): Promise<void> {
 		this.online = navigator.onLine;
+		useTabletOf(this.person);
+		await adoptLegacyChanges();
+		const kept = await readKeptSheets();
+		for (const [id, s] of Object.entries(kept)) {
+			if (!this.sheets[id] || s.version <= this.sheets[id].version) continue;
+			this.sheets[id] = structuredClone(s);
+			this.confirmed[id] = structuredClone(s);
+			this.known[id] = s.version;
+		}
+		await keepSheets(Object.values(this.confirmed));
+		this.lastReached = await readLastReached();
 		const queued = await readQueue();
 		for (const c of queued) {
 			if (!this.sheets[c.entryId]) continue;
@@ -67,6 +106,7 @@ export class SheetSync {
 			this.apply(c.entryId, c);
 		}
 		this.queued = queued.length;
+		this.started = true;
 		await this.flush();
 	}
 
@@ -141,6 +181,11 @@ export class SheetSync {
 					this.online = navigator.onLine;
 					return;
 				}
+				if (outcome.kind === 'signed-out') {
+					this.signedOut = true;
+					return;
+				}
+				this.signedOut = false;
 				if (outcome.kind === 'saved') {
 					if (outcome.sheet.version !== baseVersion) {
 						(this.moved[next.entryId] ??= {})[baseVersion] = outcome.sheet.version;
@@ -148,6 +193,10 @@ export class SheetSync {
 					await acknowledge({ ...next, baseVersion }, outcome.sheet.version);
 					this.known[next.entryId] = outcome.sheet.version;
 					this.confirmed[next.entryId] = outcome.sheet;
+					const at = Date.now();
+					await keepSheets([outcome.sheet]);
+					await noteReached(at);
+					this.lastReached = at;
 					const local = this.sheets[next.entryId];
 					if (local) local.version = outcome.sheet.version;
 				} else if (outcome.kind === 'conflict') {
@@ -161,6 +210,7 @@ export class SheetSync {
 					this.known[next.entryId] = outcome.current.version;
 					this.confirmed[next.entryId] = outcome.current;
 					this.sheets[next.entryId] = outcome.current;
+					await keepSheets([outcome.current]);
 				} else {
 					// Refused for good: set aside (kept, never resent) so later saves go on.
 					await setAside(next);

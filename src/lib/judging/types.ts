@@ -31,7 +31,8 @@ export type SendOutcome =
 	| { kind: 'saved'; sheet: TabletSheet }
 	| { kind: 'conflict'; current: TabletSheet; message: string }
 	| { kind: 'refused'; message: string }
-	| { kind: 'offline' };
+	| { kind: 'offline' }
+	| { kind: 'signed-out' };
 
 /** One row of the progress board. */
 export interface BoardClass {

@@ -595,3 +595,28 @@ export async function saveSheet(
 		return { status: write === 'unchanged' ? 'unchanged' : 'saved', sheet: after };
 	});
 }
+
+/**
+ * The judging pages a person's tablet keeps for working offline: their list, and each class and
+ * scoresheet of the shows whose results are not yet published (entry ids only, nothing more).
+ */
+export async function listJudgingPagesToKeep(userId: string): Promise<string[]> {
+	const rows = await sequelize.query<{ class_id: string; entry_id: string | null }>(
+		`SELECT c.id AS class_id, e.id AS entry_id
+		   FROM panels p
+		   JOIN shows s ON s.id = p.show_id AND s.results_published_at IS NULL
+		   JOIN panel_classes pc ON pc.panel_id = p.id
+		   JOIN classes c ON c.id = pc.class_id
+		   LEFT JOIN entries e ON e.class_id = c.id AND ${ACTIVE}
+		  WHERE p.clerk_id = :userId
+		     OR EXISTS (SELECT 1 FROM panel_judges pj WHERE pj.panel_id = p.id AND pj.user_id = :userId)
+		  ORDER BY c.id, e.number`,
+		{ replacements: { userId }, type: QueryTypes.SELECT }
+	);
+	const pages = new Set(['/judging']);
+	for (const r of rows) {
+		pages.add(`/judging/class/${r.class_id}`);
+		if (r.entry_id) pages.add(`/judging/entry/${r.entry_id}`);
+	}
+	return [...pages];
+}
