@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { text } from './text';
+import { GENUS_KEYS, GROWTH_FORMS } from '$lib/domain/plant-groups';
 import { isIsoDate } from '$lib/domain/dates';
 import { CONTROL_CHARS_MESSAGE, hasNoControlChars } from './text';
 
@@ -146,6 +147,21 @@ export const classSchema = z
 				.max(24, 'The largest pot must be at most 24 in.')
 				.nullable()
 		),
+		plantKind: z
+			.enum(['any', 'african_violet', 'other_gesneriad'], 'Choose the group the class is for.')
+			.optional(),
+		genera: z
+			.array(z.enum(GENUS_KEYS as [string, ...string[]], 'Unknown genus.'))
+			.max(20)
+			.optional(),
+		growthForms: z
+			.array(z.enum(GROWTH_FORMS as [string, ...string[]], 'Unknown growth form.'))
+			.max(10)
+			.optional(),
+		rootTypes: z
+			.array(z.enum(['tuberous', 'rhizomatous', 'fibrous'], 'Unknown root type.'))
+			.max(3)
+			.optional(),
 		scaleId: z.preprocess(
 			(v) => (v === '' ? null : v),
 			z.uuid('Choose a scale of points.').nullable()

@@ -61,6 +61,9 @@ export function plantFactsOf(
 		blossomColours: variety.blossomColours,
 		foliage: variety.foliage,
 		acquiredOn,
+		plantGroup: variety.plantGroup,
+		growthForm: variety.growthForm,
+		botanicalName: variety.botanicalName,
 		...extra
 	};
 }
