@@ -220,7 +220,7 @@ export function checkVarietyGroup(v: {
 	if (!group.growthForms.includes(v.growthForm)) {
 		problems.push({
 			field: 'growthForm',
-			message: `A ${group.name} is grown as ${wordsOf(group.growthForms.map((f) => GROWTH_FORM_LABELS[f]))}; give one of those.`
+			message: `${capitalized(article(group.name))} is grown as ${wordsOf(group.growthForms.map((f) => GROWTH_FORM_LABELS[f]))}; give one of those.`
 		});
 	}
 	if (!groupSizeClass(group, v.sizeClass)) {
@@ -245,6 +245,14 @@ export function checkVarietyGroup(v: {
 		}
 	}
 	return problems;
+}
+
+function article(words: string): string {
+	return `${/^[aeiou]/i.test(words) ? 'an' : 'a'} ${words}`;
+}
+
+function capitalized(words: string): string {
+	return `${words[0].toUpperCase()}${words.slice(1)}`;
 }
 
 function wordsOf(items: readonly string[]): string {

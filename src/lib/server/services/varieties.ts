@@ -224,6 +224,8 @@ export async function importVarietiesCsv(
 			problems.push({ line, reason: 'species: write yes or no.' });
 			return;
 		}
+		// An older file gives the habit; its reasons then name that column.
+		const formColumn = (row.growth_form ?? '').trim() ? 'growth_form' : 'habit';
 		const result = varietySchema.safeParse({
 			name: row.name ?? '',
 			plantGroup: row.group ?? '',
@@ -240,7 +242,12 @@ export async function importVarietiesCsv(
 		if (!result.success) {
 			const issue = result.error.issues[0];
 			const key = String(issue.path[0]) as keyof VarietyInput;
-			const field = Object.hasOwn(VARIETY_CSV_COLUMN_OF, key) ? VARIETY_CSV_COLUMN_OF[key] : key;
+			const field =
+				key === 'growthForm'
+					? formColumn
+					: Object.hasOwn(VARIETY_CSV_COLUMN_OF, key)
+						? VARIETY_CSV_COLUMN_OF[key]
+						: key;
 			problems.push({ line, reason: `${field}: ${issue.message}` });
 			return;
 		}
