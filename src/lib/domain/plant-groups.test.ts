@@ -71,7 +71,7 @@ function violet(over: Partial<PlantFacts> = {}): PlantFacts {
 	};
 }
 
-function codes(r: ClassRules, plant: PlantFacts, phase: 'entry' | 'desk' = 'entry'): FailureCode[] {
+function failures(r: ClassRules, plant: PlantFacts, phase: 'entry' | 'desk') {
 	return checkEligibility({
 		rules: r,
 		plant,
@@ -92,31 +92,15 @@ function codes(r: ClassRules, plant: PlantFacts, phase: 'entry' | 'desk' = 'entr
 			entriesOfVariety: 0,
 			varietyAlreadyInClass: false
 		}
-	}).failures.map((f) => f.code);
+	}).failures;
+}
+
+function codes(r: ClassRules, plant: PlantFacts, phase: 'entry' | 'desk' = 'entry'): FailureCode[] {
+	return failures(r, plant, phase).map((f) => f.code);
 }
 
 function messages(r: ClassRules, plant: PlantFacts, phase: 'entry' | 'desk' = 'entry'): string[] {
-	return checkEligibility({
-		rules: r,
-		plant,
-		phase,
-		show: {
-			showDate: '2025-05-17',
-			today: '2025-05-05',
-			entriesOpen: '2025-04-01',
-			entriesClose: '2025-05-10',
-			possessionMonths: 0,
-			maxEntriesPerClass: null,
-			maxEntriesPerVariety: null,
-			requireGoodStanding: false
-		},
-		exhibitor: {
-			inGoodStanding: true,
-			entriesInClass: 0,
-			entriesOfVariety: 0,
-			varietyAlreadyInClass: false
-		}
-	}).failures.map((f) => f.message);
+	return failures(r, plant, phase).map((f) => f.message);
 }
 
 describe('the groups as data', () => {

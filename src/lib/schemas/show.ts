@@ -175,6 +175,14 @@ export const classSchema = z
 				message: 'The most crowns must be at least the fewest crowns.'
 			});
 		}
+		if (v.plantKind === 'african_violet' && (v.genera?.length ?? 0) > 0) {
+			ctx.addIssue({
+				code: 'custom',
+				path: ['genera'],
+				message:
+					'A class for African violets takes no other genus; untick the genera, or make it a class for the other gesneriads.'
+			});
+		}
 	});
 export type ClassInput = z.infer<typeof classSchema>;
 
