@@ -749,6 +749,7 @@ module.exports = {
 					blossom_colours: colours,
 					foliage: 'plain',
 					is_species: true,
+					botanical_name: name,
 					description: SPECIES_NOTE
 				});
 			}

@@ -1,6 +1,16 @@
 import type { AwardRules } from './domain/awards';
 import type { ClassRules } from './domain/eligibility';
 import { formatMoney } from './domain/money';
+import {
+	AFRICAN_VIOLET,
+	GROWTH_FORM_LABELS,
+	ROOT_TYPE_LABELS,
+	describeGroupSize,
+	groupSizeClass,
+	isPlantGroup,
+	plantGroupOf,
+	type RootType
+} from './domain/plant-groups';
 import { formatLengthBoth, type LengthUnit } from './domain/units';
 import { formatDate } from './format';
 
@@ -19,10 +29,10 @@ function list(items: string[], joiner = 'or'): string {
  * the society's unit.
  */
 export function describeClass(c: ClassDescribed, unit: LengthUnit): string[] {
-	const parts: string[] = [];
+	const parts: string[] = describeGroupRules(c);
 	if (c.speciesOnly) parts.push('species only');
 	if (c.habit !== 'any') parts.push(c.habit === 'trailer' ? 'trailers' : 'single crown');
-	if (c.sizeClasses.length) parts.push(`size: ${list(c.sizeClasses)}`);
+	if (c.sizeClasses.length) parts.push(`size: ${list(sizesOfClass(c, unit))}`);
 	if (c.blossomTypes.length) parts.push(`blossoms: ${list(c.blossomTypes)}`);
 	if (c.blossomColours.length) parts.push(`color: ${list(c.blossomColours)}`);
 	if (c.foliage !== 'any') parts.push(`${c.foliage} foliage`);
@@ -55,6 +65,39 @@ export function describeClass(c: ClassDescribed, unit: LengthUnit): string[] {
 	}
 	if (c.scaleName) parts.push(`judged on: ${c.scaleName}`);
 	return parts.length ? parts : ['open to any plant'];
+}
+
+/** The group, genera, growth forms and root types a class asks for, as phrases. */
+function describeGroupRules(c: ClassDescribed): string[] {
+	const parts: string[] = [];
+	if (c.plantKind === 'african_violet') parts.push('African violets');
+	if (c.plantKind === 'other_gesneriad') parts.push('gesneriads other than African violets');
+	const name = (key: string) => (isPlantGroup(key) ? plantGroupOf(key).name : key);
+	if (c.genera.length) parts.push(`genus: ${list(c.genera.map(name))}`);
+	if (c.growthForms.length) {
+		parts.push(`growth: ${list(c.growthForms.map((f) => GROWTH_FORM_LABELS[f] ?? f))}`);
+	}
+	if (c.rootTypes.length) {
+		parts.push(list(c.rootTypes.map((r) => ROOT_TYPE_LABELS[r])));
+	}
+	return parts;
+}
+
+/**
+ * The size classes of a class in words; for a class of one genus, with that genus's own limits
+ * ("miniature (leaf blade up to 2.5 in)").
+ */
+function sizesOfClass(c: ClassDescribed, unit: LengthUnit): string[] {
+	const only = c.genera.length === 1 && isPlantGroup(c.genera[0]) ? c.genera[0] : null;
+	const group = only
+		? plantGroupOf(only)
+		: c.plantKind === 'african_violet'
+			? plantGroupOf(AFRICAN_VIOLET)
+			: null;
+	return c.sizeClasses.map((s) => {
+		const size = group ? groupSizeClass(group, s) : null;
+		return size ? describeGroupSize(size, (inches) => formatLengthBoth(inches, unit)) : s;
+	});
 }
 
 /** The show fields that the schedule states as dates and rules. */

@@ -25,4 +25,8 @@ export interface VarietyRow {
 	foliage: 'plain' | 'variegated';
 	isSpecies: boolean;
 	description: string | null;
+	/** African violet, or a gesneriad genus key (domain/plant-groups). */
+	plantGroup: string;
+	growthForm: string;
+	botanicalName: string | null;
 }

@@ -156,7 +156,7 @@ test('the chair imports a registry file with broken rows: nothing, then only the
 	await page.getByRole('button', { name: 'Import', exact: true }).click();
 	await expect(page.getByText(/Nothing was imported: 2 of the lines have problems/)).toBeVisible();
 	await expect(
-		page.getByText(/Line 3: habit: Give the habit as single crown or trailer/)
+		page.getByText(/Line 3: habit: An African violet is grown as single crown or trailer/)
 	).toBeVisible();
 	await expect(page.getByText(/Line 4: size_class:/)).toBeVisible();
 	await page.getByLabel('Search the registry').fill(`Test Dawn ${stamp}`);

@@ -8,7 +8,7 @@
  * classes. Its scale of points may change until the first sheet in the class is scored.
  */
 
-import type { ClassRules } from './eligibility';
+import { OPEN_CLASS_RULES, type ClassRules } from './eligibility';
 
 /** Every eligibility rule of a class, with the plain name used in refusals. */
 export const CLASS_RULE_LABELS: Readonly<Record<keyof ClassRules, string>> = Object.freeze({
@@ -25,7 +25,11 @@ export const CLASS_RULE_LABELS: Readonly<Record<keyof ClassRules, string>> = Obj
 	possessionMonths: 'possession period',
 	maxEntriesPerExhibitor: 'entries per exhibitor',
 	maxEntriesPerVariety: 'entries per variety',
-	maxPotIn: 'largest pot'
+	maxPotIn: 'largest pot',
+	plantKind: 'group',
+	genera: 'genera',
+	growthForms: 'growth forms',
+	rootTypes: 'root types'
 });
 
 /** The fields of a class that are eligibility rules, in the form's order. */
@@ -62,7 +66,10 @@ function sameValue(a: unknown, b: unknown): boolean {
 
 /** The rules that differ between two versions of a class (lists compared as sets). */
 export function changedRuleFields(before: ClassRules, after: ClassRules): (keyof ClassRules)[] {
-	return CLASS_RULE_FIELDS.filter((field) => !sameValue(before[field], after[field]));
+	// A rule left out (older callers) reads as the open class's value.
+	const value = (rules: ClassRules, field: keyof ClassRules) =>
+		rules[field] ?? OPEN_CLASS_RULES[field];
+	return CLASS_RULE_FIELDS.filter((field) => !sameValue(value(before, field), value(after, field)));
 }
 
 function listOf(items: string[]): string {

@@ -15,6 +15,15 @@ import {
 	type IsoDate
 } from './dates';
 import { formatLengthBoth, type LengthUnit } from './units';
+import {
+	AFRICAN_VIOLET,
+	GROWTH_FORM_LABELS,
+	ROOT_TYPE_LABELS,
+	groupSizeClass,
+	isPlantGroup,
+	plantGroupOf,
+	type RootType
+} from './plant-groups';
 
 /** How a variety grows: a single rosette, or several crowns from one main stem. */
 export type Habit = 'single_crown' | 'trailer';
@@ -62,7 +71,18 @@ export interface ClassRules {
 	 * pot measurement is given (`measured.potIn`).
 	 */
 	maxPotIn: number | null;
+	/** African violets, the other gesneriads, or any (absent: any). */
+	plantKind?: PlantKind;
+	/** Gesneriad genus groups the class takes (keys of `PLANT_GROUPS`); empty or absent = any. */
+	genera?: string[];
+	/** Growth forms the class takes (`GROWTH_FORM_LABELS`); empty or absent = any. */
+	growthForms?: string[];
+	/** Root types the class takes; empty or absent = any. */
+	rootTypes?: RootType[];
 }
+
+/** Which side of the family a class is for: African violets, or the other gesneriads. */
+export type PlantKind = 'any' | 'african_violet' | 'other_gesneriad';
 
 /** A class with no rule of its own: every plant fits it (only the plant's size limit applies). */
 export const OPEN_CLASS_RULES: Readonly<ClassRules> = {
@@ -79,7 +99,11 @@ export const OPEN_CLASS_RULES: Readonly<ClassRules> = {
 	possessionMonths: null,
 	maxEntriesPerExhibitor: null,
 	maxEntriesPerVariety: null,
-	maxPotIn: null
+	maxPotIn: null,
+	plantKind: 'any',
+	genera: [],
+	growthForms: [],
+	rootTypes: []
 };
 
 /** What is known about the plant (or collection) being entered. */
@@ -98,9 +122,15 @@ export interface PlantFacts {
 	 * What the clerks measured at the desk (used in phase 'desk' only).
 	 * For a collection, give the largest diameter and crown count among its plants.
 	 */
-	measured?: { diameterIn?: number; crowns?: number; potIn?: number };
+	measured?: { diameterIn?: number; crowns?: number; potIn?: number; leafIn?: number };
 	/** For a collection entry: the variety of every plant in it, one id per plant. */
 	collectionVarietyIds?: string[];
+	/** The variety's group (`PLANT_GROUPS`); absent: an African violet. */
+	plantGroup?: string;
+	/** The variety's growth form; absent: its habit. */
+	growthForm?: string;
+	/** A species' botanical name, for messages. */
+	botanicalName?: string | null;
 }
 
 /** The show's dates and limits, as the show chair set them. */
@@ -141,6 +171,11 @@ export const FAILURE_CODES = [
 	'entries_not_yet_open',
 	'entries_closed',
 	'not_in_good_standing',
+	'group_not_allowed',
+	'genus_not_allowed',
+	'growth_form_not_allowed',
+	'root_type_not_allowed',
+	'leaf_over_limit',
 	'habit_not_allowed',
 	'size_class_not_allowed',
 	'diameter_over_limit',
@@ -261,7 +296,7 @@ export function sizeClassForDiameter(diameterIn: number): SizeClass {
  */
 export function measuredSizeClass(plant: PlantFacts): SizeClass {
 	const diameter = plant.measured?.diameterIn;
-	const limit = sizeLimitIn(plant.sizeClass);
+	const limit = diameterLimitOf(plant);
 	if (diameter === undefined || limit === null || diameter <= limit + LENGTH_TOLERANCE_IN) {
 		return plant.sizeClass;
 	}
@@ -397,6 +432,7 @@ function collectFailures(
 		fail('not_a_species', `This class is for species only, and ${name} is a hybrid.`);
 	}
 	checkCollection(rules, plant, fail);
+	checkGroupRules(rules, plant, phase, fail, show?.lengthUnit ?? 'in');
 
 	// How long the exhibitor has grown it (the class's own period, else the show's)
 	const possessionMonths = show ? (rules.possessionMonths ?? show.possessionMonths) : 0;
@@ -460,7 +496,7 @@ function checkMeasurements(
 	if (diameter !== undefined) {
 		assertMeasure('diameter', diameter);
 		const kind = SIZE_CLASS_NAMES[plant.sizeClass];
-		const ownLimit = sizeLimitIn(plant.sizeClass);
+		const ownLimit = diameterLimitOf(plant);
 		const limits: { limit: number; message: string }[] = [];
 		if (ownLimit !== null) {
 			limits.push({
@@ -497,9 +533,11 @@ function checkMeasurements(
 		if (!Number.isInteger(crowns)) {
 			throw new RangeError(`A crown count must be a whole number, not ${crowns}.`);
 		}
-		const singleCrown = plant.habit === 'single_crown' && !plant.isSpecies;
+		const singleCrown =
+			plant.habit === 'single_crown' && !plant.isSpecies && isAfricanViolet(plant);
 		const maxCrowns = rules.maxCrowns ?? (singleCrown ? SINGLE_CROWN_MAX_CROWNS : null);
-		const minCrowns = rules.minCrowns ?? (plant.habit === 'trailer' ? TRAILER_MIN_CROWNS : null);
+		const trailer = plant.habit === 'trailer' && isAfricanViolet(plant);
+		const minCrowns = rules.minCrowns ?? (trailer ? TRAILER_MIN_CROWNS : null);
 		if (maxCrowns !== null && crowns > maxCrowns) {
 			fail(
 				'too_many_crowns',
@@ -636,4 +674,106 @@ export function withDeskAdvice(result: EligibilityResult): DeskVerdict {
 		fits: result.fits,
 		failures: result.failures.map((f) => ({ ...f, whatToDo: deskAdvice(f.code) }))
 	};
+}
+
+// Groups of the gesneriad family (African violets, or a genus), growth forms and root types.
+
+/** Whether a plant is an African violet (a plant of no stated group is one). */
+export function isAfricanViolet(plant: Pick<PlantFacts, 'plantGroup'>): boolean {
+	return (plant.plantGroup ?? AFRICAN_VIOLET) === AFRICAN_VIOLET;
+}
+
+/** A plant's growth form: the one given, else its habit. */
+export function growthFormOf(plant: Pick<PlantFacts, 'growthForm' | 'habit'>): string {
+	return plant.growthForm ?? plant.habit;
+}
+
+/**
+ * The largest diameter, in inches, of a plant's size class in its group; null when the size
+ * class has no upper limit or is measured by another part than the span (miniature Sinningia by
+ * the leaf blade). African violets keep `sizeLimitIn`.
+ */
+export function diameterLimitOf(
+	plant: Pick<PlantFacts, 'plantGroup' | 'sizeClass'>
+): number | null {
+	if (isAfricanViolet(plant)) return sizeLimitIn(plant.sizeClass);
+	const size = groupSizeClass(groupOf(plant), plant.sizeClass);
+	return size && size.measure === 'diameter' ? size.maxIn : null;
+}
+
+function groupOf(plant: Pick<PlantFacts, 'plantGroup'>) {
+	const key = plant.plantGroup ?? AFRICAN_VIOLET;
+	if (!isPlantGroup(key)) throw new RangeError(`Unknown plant group '${key}'.`);
+	return plantGroupOf(key);
+}
+
+function checkGroupRules(
+	rules: ClassRules,
+	plant: PlantFacts,
+	phase: CheckPhase,
+	fail: (code: FailureCode, message: string) => void,
+	unit: LengthUnit
+): void {
+	const group = groupOf(plant);
+	const name = quoted(plant.varietyName);
+	const violet = group.key === AFRICAN_VIOLET;
+	const kind = rules.plantKind ?? 'any';
+	if (kind === 'african_violet' && !violet) {
+		fail(
+			'group_not_allowed',
+			`This class is for African violets, and ${name} is ${article(group.name)}.`
+		);
+	} else if (kind === 'other_gesneriad' && violet) {
+		fail(
+			'group_not_allowed',
+			`This class is for gesneriads other than African violets, and ${name} is an African violet.`
+		);
+	}
+	const genera = rules.genera ?? [];
+	if (genera.length > 0 && !genera.includes(group.key)) {
+		const asked = listOf(
+			genera.map((g) => (isPlantGroup(g) ? plantGroupOf(g).name : g)),
+			'or'
+		);
+		fail('genus_not_allowed', `This class is for ${asked}, and ${name} is ${article(group.name)}.`);
+	}
+	const forms = rules.growthForms ?? [];
+	const form = growthFormOf(plant);
+	if (forms.length > 0 && !forms.includes(form)) {
+		const label = (f: string) => GROWTH_FORM_LABELS[f] ?? f;
+		fail(
+			'growth_form_not_allowed',
+			`This class is for ${listOf(forms.map(label), 'or')} plants, and ${name} grows as ${article(label(form))}.`
+		);
+	}
+	const roots = rules.rootTypes ?? [];
+	if (roots.length > 0 && !roots.includes(group.rootType)) {
+		fail(
+			'root_type_not_allowed',
+			`This class is for ${listOf(
+				roots.map((r) => ROOT_TYPE_LABELS[r]),
+				'or'
+			)} gesneriads, and ${name} is ${ROOT_TYPE_LABELS[group.rootType]}.`
+		);
+	}
+	const leaf = plant.measured?.leafIn;
+	if (phase === 'desk' && leaf !== undefined) {
+		assertMeasure('leaf length', leaf);
+		const size = groupSizeClass(group, plant.sizeClass);
+		if (
+			size &&
+			size.measure === 'leaf' &&
+			size.maxIn !== null &&
+			leaf > size.maxIn + LENGTH_TOLERANCE_IN
+		) {
+			fail(
+				'leaf_over_limit',
+				`A ${size.key} ${group.name} has leaf blades up to ${lengthWords(size.maxIn, unit)} long, and the longest leaf blade of this plant measures ${lengthWords(leaf, unit)}, so it cannot be judged in this class.`
+			);
+		}
+	}
+}
+
+function article(words: string): string {
+	return `${/^[aeiou]/i.test(words) ? 'an' : 'a'} ${words}`;
 }

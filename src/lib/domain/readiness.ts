@@ -128,7 +128,11 @@ const TRAIT_FAILURES: ReadonlySet<FailureCode> = new Set<FailureCode>([
 	'not_a_species',
 	'collection_wrong_count',
 	'collection_repeats_variety',
-	'collection_in_single_plant_class'
+	'collection_in_single_plant_class',
+	'group_not_allowed',
+	'genus_not_allowed',
+	'growth_form_not_allowed',
+	'root_type_not_allowed'
 ]);
 
 const NO_EXHIBITOR: ExhibitorContext = {

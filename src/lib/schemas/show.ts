@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { text } from './text';
 import { markOrderProblems } from '$lib/domain/awards';
+import { GENUS_KEYS, GROWTH_FORMS } from '$lib/domain/plant-groups';
 import { isIsoDate } from '$lib/domain/dates';
 import { CONTROL_CHARS_MESSAGE, hasNoControlChars } from './text';
 
@@ -142,6 +143,21 @@ export const classSchema = z
 				.max(24, 'The largest pot must be at most 24 in.')
 				.nullable()
 		),
+		plantKind: z
+			.enum(['any', 'african_violet', 'other_gesneriad'], 'Choose the group the class is for.')
+			.optional(),
+		genera: z
+			.array(z.enum(GENUS_KEYS as [string, ...string[]], 'Unknown genus.'))
+			.max(20)
+			.optional(),
+		growthForms: z
+			.array(z.enum(GROWTH_FORMS as [string, ...string[]], 'Unknown growth form.'))
+			.max(10)
+			.optional(),
+		rootTypes: z
+			.array(z.enum(['tuberous', 'rhizomatous', 'fibrous'], 'Unknown root type.'))
+			.max(3)
+			.optional(),
 		scaleId: z.preprocess(
 			(v) => (v === '' ? null : v),
 			z.uuid('Choose a scale of points.').nullable()
@@ -153,6 +169,14 @@ export const classSchema = z
 				code: 'custom',
 				path: ['maxCrowns'],
 				message: 'The most crowns must be at least the fewest crowns.'
+			});
+		}
+		if (v.plantKind === 'african_violet' && (v.genera?.length ?? 0) > 0) {
+			ctx.addIssue({
+				code: 'custom',
+				path: ['genera'],
+				message:
+					'A class for African violets takes no other genus; untick the genera, or make it a class for the other gesneriads.'
 			});
 		}
 	});

@@ -65,6 +65,12 @@ export const ACCESS_TABLE: AccessRow[] = [
 	{ route: '/chair/shows/[slug]', answers: pageFor('chair') },
 	{ route: '/chair/shows/[slug]/schedule', answers: pageFor('chair') },
 	{ route: '/chair/varieties', answers: pageFor('chair', 'other') },
+	{ route: '/chair/varieties/export', answers: pageFor('chair', 'other') },
+	{
+		route: '/chair/varieties/export',
+		query: 'society=cedar-ridge',
+		answers: { ...pageFor('other'), chair: 403 }
+	},
 	{ route: '/desk/[slug]', answers: pageFor('clerk', 'chair') },
 	{ route: '/desk/[slug]/entries/[number]', answers: pageFor('clerk', 'chair') },
 	{ route: '/desk/[slug]/table', answers: pageFor('clerk', 'chair') },

@@ -45,6 +45,10 @@ const CLASS_FIELDS = [
 	'speciesOnly',
 	'blossomTypes',
 	'maxCrowns',
+	'plantKind',
+	'genera',
+	'growthForms',
+	'rootTypes',
 	'sort'
 ];
 
@@ -256,8 +260,10 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 			'name',
 			'hybridizer',
 			'isSpecies',
+			'plantGroup',
+			'growthForm',
+			'botanicalName',
 			'sizeClass',
-			'habit',
 			'blossomType',
 			'blossomColours',
 			'foliage',
@@ -269,6 +275,7 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 		corrupt: 'form',
 		fields: ['societyId', 'file', 'goodRowsOnly']
 	},
+	'/chair/varieties/export api:GET': { as: 'chair', corrupt: 'query+path', fields: ['society'] },
 	'/desk/[slug]/entries/[number] action:checkIn': {
 		as: 'clerk',
 		corrupt: 'form',

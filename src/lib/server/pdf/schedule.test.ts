@@ -54,6 +54,37 @@ const divisions: ScheduleDivision[] = [
 				maxEntriesPerExhibitor: null,
 				maxEntriesPerVariety: null,
 				maxPotIn: null,
+				plantKind: 'any',
+				genera: [],
+				growthForms: [],
+				rootTypes: [],
+				scaleId: null,
+				scaleName: null
+			},
+			{
+				id: 'g',
+				divisionId: 'd',
+				code: '2',
+				name: 'Miniature Sinningia species',
+				description: null,
+				habit: 'any',
+				sizeClasses: ['miniature'],
+				blossomTypes: [],
+				blossomColours: [],
+				foliage: 'any',
+				minCrowns: null,
+				maxCrowns: null,
+				collectionSize: null,
+				speciesOnly: true,
+				maxDiameterIn: null,
+				possessionMonths: null,
+				maxEntriesPerExhibitor: null,
+				maxEntriesPerVariety: null,
+				maxPotIn: null,
+				plantKind: 'other_gesneriad',
+				genera: ['sinningia'],
+				growthForms: ['rosette'],
+				rootTypes: ['tuberous'],
 				scaleId: null,
 				scaleName: null
 			}
@@ -84,5 +115,22 @@ describe('scheduleDocument', () => {
 		for (const page of pdf.sizes) expect(page).toEqual(LETTER_POINTS); // ANSI/ASME Y14.1
 		expect(pdf.text).toContain('up to 6 in (15.2 cm) across');
 		expect(pdf.text).toContain('Entry fee: $1.50 per entry.');
+	});
+
+	it('prints the group, genus, growth form, root type and the genus’s own size limit', async () => {
+		const doc = scheduleDocument(show, divisions, {
+			paperSize: 'letter',
+			lengthUnit: 'in',
+			currency: 'USD'
+		});
+		const text = (await readPdf(await renderPdf(doc))).text.replace(/\s+/g, ' ');
+		expect(text).toContain('gesneriads other than African violets');
+		expect(text).toContain('genus: Sinningia');
+		expect(text).toContain('growth: rosette');
+		expect(text).toContain('tuberous');
+		expect(text).toContain('species only');
+		// Miniature Sinningia: leaf blade at most 2.5 in (The Gesneriad Society convention show
+		// schedule 2018; New England chapter schedule 2022)
+		expect(text).toContain('size: miniature (leaf blade up to 2.5 in (6.4 cm))');
 	});
 });

@@ -1,3 +1,4 @@
+import { GROWTH_FORM_LABELS, isPlantGroup, plantGroupOf } from '$lib/domain/plant-groups';
 import { QueryTypes, type Transaction } from 'sequelize';
 import {
 	checkEligibility,
@@ -95,6 +96,9 @@ export interface DeskEntry {
 		blossomType: string;
 		blossomColours: string[];
 		foliage: string;
+		/** The group's name (African violet, Sinningia, …) and the growth form in words. */
+		group?: string;
+		growthForm?: string;
 	} | null;
 	shownSizeClass: string | null;
 	acquiredOn: string | null;
@@ -170,6 +174,17 @@ async function judgeAtDesk(
 
 const label = (c: ShowClass) => `${c.code} ${c.name}`;
 
+/** A variety's group and growth form in words, for the clerk. */
+function groupWords(variety: Variety): { group: string; growthForm: string } {
+	const form = variety.growthForm ?? variety.habit;
+	return {
+		group: isPlantGroup(variety.plantGroup)
+			? plantGroupOf(variety.plantGroup).name
+			: variety.plantGroup,
+		growthForm: GROWTH_FORM_LABELS[form] ?? form
+	};
+}
+
 /** Loads an entry of a show by its number for the desk, or null. */
 export async function loadDeskEntry(show: Show, number: number): Promise<DeskEntry | null> {
 	const entry = await Entry.findOne({ where: { showId: show.id, number } });
@@ -196,7 +211,8 @@ export async function loadDeskEntry(show: Show, number: number): Promise<DeskEnt
 					sizeClass: variety.sizeClass,
 					blossomType: variety.blossomType,
 					blossomColours: variety.blossomColours,
-					foliage: variety.foliage
+					foliage: variety.foliage,
+					...groupWords(variety)
 				}
 			: null,
 		shownSizeClass: entry.shownSizeClass,

@@ -56,6 +56,10 @@ export interface VarietyFacts {
 	blossomType: string;
 	blossomColours: string[];
 	foliage: PlantFacts['foliage'];
+	/** The variety's group (African violet, or a gesneriad genus) and growth form. */
+	plantGroup?: string;
+	growthForm?: string;
+	botanicalName?: string | null;
 }
 
 /** What is known of a plant of a variety; measurements are added at the desk. */
@@ -74,6 +78,9 @@ export function plantFactsOf(
 		blossomColours: variety.blossomColours,
 		foliage: variety.foliage,
 		acquiredOn,
+		plantGroup: variety.plantGroup,
+		growthForm: variety.growthForm,
+		botanicalName: variety.botanicalName,
 		...extra
 	};
 }

@@ -115,6 +115,8 @@ interface PlantRow {
 	blossom_type: string;
 	blossom_colours: string[];
 	foliage: 'plain' | 'variegated';
+	plant_group: string;
+	growth_form: string;
 }
 
 interface EntryRow {
@@ -140,7 +142,8 @@ export async function assessCollections(
 	if (userIds.length === 0) return result;
 	const plants = await sequelize.query<PlantRow>(
 		`SELECT p.id, p.owner_id, p.label, p.obtained_on, v.id AS variety_id, v.name, v.is_species,
-		        v.habit, v.size_class, v.blossom_type, v.blossom_colours, v.foliage
+		        v.habit, v.size_class, v.blossom_type, v.blossom_colours, v.foliage,
+		        v.plant_group, v.growth_form
 		   FROM plants p JOIN varieties v ON v.id = p.variety_id
 		  WHERE p.owner_id = ANY($1::uuid[]) AND v.society_id = $2 AND p.gone_on IS NULL
 		    AND ($3::uuid[] IS NULL OR p.id = ANY($3::uuid[]))
@@ -212,7 +215,9 @@ export async function assessCollections(
 						sizeClass: p.size_class,
 						blossomType: p.blossom_type,
 						blossomColours: p.blossom_colours,
-						foliage: p.foliage
+						foliage: p.foliage,
+						plantGroup: p.plant_group,
+						growthForm: p.growth_form
 					},
 					p.obtained_on
 				),

@@ -71,7 +71,9 @@ export function settingsOf(show: Show): ShowSettings {
 }
 
 /** The eligibility rules of a class, in the shape the eligibility module reads. */
-export function classRulesOf(c: Pick<ScheduleClass, keyof ClassRules> | ShowClass): ClassRules {
+export function classRulesOf(
+	c: Pick<ScheduleClass, keyof ClassRules> | ShowClass
+): Required<ClassRules> {
 	const diameter = c.maxDiameterIn;
 	return {
 		habit: c.habit,
@@ -87,7 +89,11 @@ export function classRulesOf(c: Pick<ScheduleClass, keyof ClassRules> | ShowClas
 		possessionMonths: c.possessionMonths ?? null,
 		maxEntriesPerExhibitor: c.maxEntriesPerExhibitor ?? null,
 		maxEntriesPerVariety: c.maxEntriesPerVariety ?? null,
-		maxPotIn: c.maxPotIn === null || c.maxPotIn === undefined ? null : Number(c.maxPotIn)
+		maxPotIn: c.maxPotIn === null || c.maxPotIn === undefined ? null : Number(c.maxPotIn),
+		plantKind: c.plantKind ?? 'any',
+		genera: c.genera ?? [],
+		growthForms: c.growthForms ?? [],
+		rootTypes: c.rootTypes ?? []
 	};
 }
 
@@ -343,6 +349,7 @@ function classValues(input: ClassInput) {
 		maxEntriesPerExhibitor: input.maxEntriesPerExhibitor,
 		maxEntriesPerVariety: input.maxEntriesPerVariety,
 		maxPotIn: input.maxPotIn === null ? null : String(input.maxPotIn),
+		...groupRulesOfInput(input),
 		scaleId: input.scaleId
 	};
 }
@@ -366,6 +373,16 @@ export async function classProgress(
 	return { entries, scoredSheets };
 }
 
+/** The group, genera, growth forms and root types of a class form (left out: any). */
+function groupRulesOfInput(input: ClassInput) {
+	return {
+		plantKind: input.plantKind ?? 'any',
+		genera: input.genera ?? [],
+		growthForms: input.growthForms ?? [],
+		rootTypes: input.rootTypes ?? []
+	};
+}
+
 function rulesOfInput(input: ClassInput): ClassRules {
 	const { habit, blossomTypes, blossomColours, foliage, minCrowns, maxCrowns } = input;
 	return {
@@ -382,7 +399,8 @@ function rulesOfInput(input: ClassInput): ClassRules {
 		possessionMonths: input.possessionMonths,
 		maxEntriesPerExhibitor: input.maxEntriesPerExhibitor,
 		maxEntriesPerVariety: input.maxEntriesPerVariety,
-		maxPotIn: input.maxPotIn
+		maxPotIn: input.maxPotIn,
+		...groupRulesOfInput(input)
 	};
 }
 

@@ -8,7 +8,13 @@ import {
 	where as sqlWhere,
 	type Transaction
 } from 'sequelize';
-import { VARIETY_CSV_COLUMNS, varietySchema, type VarietyInput } from '$lib/schemas/variety';
+import { habitOfGrowthForm, plantGroupOf } from '$lib/domain/plant-groups';
+import {
+	VARIETY_CSV_COLUMNS,
+	VARIETY_CSV_COLUMN_OF,
+	varietySchema,
+	type VarietyInput
+} from '$lib/schemas/variety';
 import type { VarietyRow } from '$lib/types';
 import { Variety, sequelize } from '../db';
 import { Refusal } from './refusal';
@@ -27,7 +33,10 @@ export function toVarietyRow(v: Variety): VarietyRow {
 		blossomColours: v.blossomColours,
 		foliage: v.foliage,
 		isSpecies: v.isSpecies,
-		description: v.description
+		description: v.description,
+		plantGroup: v.plantGroup,
+		growthForm: v.growthForm,
+		botanicalName: v.botanicalName
 	};
 }
 
@@ -82,7 +91,10 @@ function values(input: VarietyInput) {
 	return {
 		name: input.name,
 		hybridizer: input.hybridizer || null,
-		habit: input.habit,
+		plantGroup: input.plantGroup,
+		growthForm: input.growthForm,
+		habit: habitOfGrowthForm(input.growthForm),
+		botanicalName: input.botanicalName || null,
 		sizeClass: input.sizeClass,
 		blossomType: input.blossomType,
 		blossomColours: input.blossomColours,
@@ -137,6 +149,12 @@ export interface ImportReport {
 	problems: ImportProblem[];
 }
 
+/** A header as the import reads it: lower case, spaces as underscores, older spellings mapped. */
+function csvHeader(typed: string): string {
+	const plain = typed.trim().toLowerCase().replace(/\s+/g, '_');
+	return plain === 'blossom_colours' ? 'blossom_colors' : plain;
+}
+
 const TRUE_WORDS = new Set(['yes', 'y', 'true', '1', 'species']);
 const FALSE_WORDS = new Set(['', 'no', 'n', 'false', '0']);
 
@@ -160,12 +178,13 @@ export async function importVarietiesCsv(
 	const parsed = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ''), {
 		header: true,
 		skipEmptyLines: 'greedy',
-		transformHeader: (h) => h.trim().toLowerCase().replace(/\s+/g, '_')
+		transformHeader: csvHeader,
+		// The export writes a quote before a cell a spreadsheet would read as a formula.
+		transform: (value) => value.replace(/^'(?=[=+\-@\t\r])/, '')
 	});
 	const headers = parsed.meta.fields ?? [];
-	const missing = ['name', 'habit', 'size_class', 'blossom_type'].filter(
-		(c) => !headers.includes(c)
-	);
+	const missing = ['name', 'size_class', 'blossom_type'].filter((c) => !headers.includes(c));
+	if (!headers.includes('growth_form') && !headers.includes('habit')) missing.push('growth_form');
 	if (missing.length) {
 		return {
 			rows: 0,
@@ -204,23 +223,31 @@ export async function importVarietiesCsv(
 			problems.push({ line, reason: 'species: write yes or no.' });
 			return;
 		}
+		// An older file gives the habit; its reasons then name that column.
+		const formColumn = (row.growth_form ?? '').trim() ? 'growth_form' : 'habit';
 		const result = varietySchema.safeParse({
 			name: row.name ?? '',
+			plantGroup: row.group ?? '',
 			hybridizer: row.hybridizer ?? '',
-			habit: row.habit ?? '',
+			growthForm: (row.growth_form ?? '').trim() || (row.habit ?? ''),
 			sizeClass: row.size_class ?? '',
 			blossomType: row.blossom_type ?? '',
-			blossomColours: (row.blossom_colours ?? '').replace(/;/g, ','),
+			blossomColours: (row.blossom_colors ?? '').replace(/;/g, ','),
 			foliage: row.foliage ?? '',
 			isSpecies: TRUE_WORDS.has(species),
+			botanicalName: row.botanical_name ?? '',
 			description: row.description ?? ''
 		});
 		if (!result.success) {
 			const issue = result.error.issues[0];
-			const field = VARIETY_CSV_COLUMNS.find(
-				(c) => c.replace(/_(\w)/g, (_, l: string) => l.toUpperCase()) === String(issue.path[0])
-			);
-			problems.push({ line, reason: `${field ?? String(issue.path[0])}: ${issue.message}` });
+			const key = String(issue.path[0]) as keyof VarietyInput;
+			const field =
+				key === 'growthForm'
+					? formColumn
+					: Object.hasOwn(VARIETY_CSV_COLUMN_OF, key)
+						? VARIETY_CSV_COLUMN_OF[key]
+						: key;
+			problems.push({ line, reason: `${field}: ${issue.message}` });
 			return;
 		}
 		const key = result.data.name.toLowerCase();
@@ -251,4 +278,40 @@ export async function importVarietiesCsv(
 		);
 	}
 	return { rows, imported: good.length, problems };
+}
+
+/** One CSV cell that a spreadsheet will not read as a formula. */
+function safeCell(value: string): string {
+	return /^[=+\-@\t\r]/.test(value) ? `'${value}` : value;
+}
+
+/**
+ * A society's whole registry as a CSV file in the columns `importVarietiesCsv` reads, sorted by
+ * group and name, so that a file exported and imported into an empty registry gives it back.
+ */
+export async function exportVarietiesCsv(societyId: string): Promise<string> {
+	const rows = await Variety.findAll({
+		where: { societyId },
+		order: [
+			['plantGroup', 'ASC'],
+			[fn('lower', col('name')), 'ASC']
+		]
+	});
+	const data = rows.map((v) => {
+		const cells: Record<(typeof VARIETY_CSV_COLUMNS)[number], string> = {
+			name: v.name,
+			group: plantGroupOf(v.plantGroup).name,
+			hybridizer: v.hybridizer ?? '',
+			species: v.isSpecies ? 'yes' : 'no',
+			botanical_name: v.botanicalName ?? '',
+			growth_form: v.growthForm,
+			size_class: v.sizeClass,
+			blossom_type: v.blossomType,
+			blossom_colors: v.blossomColours.join('; '),
+			foliage: v.foliage,
+			description: v.description ?? ''
+		};
+		return VARIETY_CSV_COLUMNS.map((c) => safeCell(cells[c]));
+	});
+	return Papa.unparse({ fields: [...VARIETY_CSV_COLUMNS], data }, { newline: '\r\n' });
 }

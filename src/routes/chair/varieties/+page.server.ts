@@ -1,5 +1,6 @@
 import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
+import { PLANT_GROUPS } from '$lib/domain/plant-groups';
 import { varietySchema } from '$lib/schemas/variety';
 import { sequelize } from '$lib/server/db';
 import { fieldErrors, textFields } from '$lib/server/forms';
@@ -17,8 +18,10 @@ import type { Actions, PageServerLoad } from './$types';
 
 const FIELDS = [
 	'name',
+	'plantGroup',
 	'hybridizer',
-	'habit',
+	'botanicalName',
+	'growthForm',
 	'sizeClass',
 	'blossomType',
 	'blossomColours',
@@ -31,7 +34,7 @@ export const load: PageServerLoad = async (event) => {
 	const society = chooseSociety(user, ['chair'], event.url.searchParams.get('society'));
 	const editId = z.uuid().safeParse(event.url.searchParams.get('edit'));
 	const editing = editId.success ? await findVariety(society.societyId, editId.data) : null;
-	return { society, editing: editing ? toVarietyRow(editing) : null };
+	return { society, editing: editing ? toVarietyRow(editing) : null, groups: PLANT_GROUPS };
 };
 
 export const actions: Actions = {

@@ -7,6 +7,8 @@ import {
 	type InferCreationAttributes,
 	type Sequelize
 } from 'sequelize';
+import type { PlantKind } from '../../../domain/eligibility';
+import type { RootType } from '../../../domain/plant-groups';
 
 /** A class of a show schedule with its structured eligibility rules. */
 export class ShowClass extends Model<
@@ -39,6 +41,11 @@ export class ShowClass extends Model<
 	declare maxEntriesPerVariety: number | null;
 	/** Largest pot, inches across the rim; null = no limit stated. */
 	declare maxPotIn: string | null;
+	declare plantKind: CreationOptional<PlantKind>;
+	/** Genus groups (keys of `PLANT_GROUPS`); empty = any. */
+	declare genera: CreationOptional<string[]>;
+	declare growthForms: CreationOptional<string[]>;
+	declare rootTypes: CreationOptional<RootType[]>;
 
 	static initModel(sequelize: Sequelize): typeof ShowClass {
 		const texts = () => ({
@@ -66,7 +73,11 @@ export class ShowClass extends Model<
 				possessionMonths: { type: DataTypes.INTEGER },
 				maxEntriesPerExhibitor: { type: DataTypes.INTEGER },
 				maxEntriesPerVariety: { type: DataTypes.INTEGER },
-				maxPotIn: { type: DataTypes.DECIMAL(5, 2) }
+				maxPotIn: { type: DataTypes.DECIMAL(5, 2) },
+				plantKind: { type: DataTypes.STRING(24), allowNull: false, defaultValue: 'any' },
+				genera: texts(),
+				growthForms: texts(),
+				rootTypes: texts()
 			},
 			{
 				sequelize,

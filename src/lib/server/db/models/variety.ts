@@ -21,6 +21,12 @@ export class Variety extends Model<InferAttributes<Variety>, InferCreationAttrib
 	declare foliage: 'plain' | 'variegated';
 	declare isSpecies: boolean;
 	declare description: string | null;
+	/** African violet, or a gesneriad genus (`PLANT_GROUPS` in domain/plant-groups). */
+	declare plantGroup: CreationOptional<string>;
+	/** How it grows, among its group's forms; a violet's is its habit (the default, by trigger). */
+	declare growthForm: CreationOptional<string>;
+	/** A species' botanical name, like Sinningia pusilla; null for a named hybrid. */
+	declare botanicalName: string | null;
 	declare createdAt: CreationOptional<Date>;
 	declare updatedAt: CreationOptional<Date>;
 
@@ -41,6 +47,13 @@ export class Variety extends Model<InferAttributes<Variety>, InferCreationAttrib
 				foliage: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'plain' },
 				isSpecies: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
 				description: { type: DataTypes.TEXT },
+				plantGroup: {
+					type: DataTypes.STRING(32),
+					allowNull: false,
+					defaultValue: 'african_violet'
+				},
+				growthForm: { type: DataTypes.STRING(24) },
+				botanicalName: { type: DataTypes.STRING(160) },
 				createdAt: { type: DataTypes.DATE, defaultValue: DataTypes.NOW },
 				updatedAt: { type: DataTypes.DATE, defaultValue: DataTypes.NOW }
 			},

@@ -37,6 +37,7 @@ const CLASS_FIELDS = [
 	'maxEntriesPerExhibitor',
 	'maxEntriesPerVariety',
 	'maxPotIn',
+	'plantKind',
 	'scaleId'
 ] as const;
 const optionalId = z.uuid().nullable().catch(null);
@@ -113,6 +114,9 @@ export const actions: Actions = {
 		const parsed = classSchema.safeParse({
 			...values,
 			sizeClasses: form.getAll('sizeClasses'),
+			genera: form.getAll('genera'),
+			growthForms: form.getAll('growthForms'),
+			rootTypes: form.getAll('rootTypes'),
 			speciesOnly: form.get('speciesOnly') === 'on'
 		});
 		if (!parsed.success) {
