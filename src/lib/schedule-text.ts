@@ -15,7 +15,7 @@ import { formatLengthBoth, type LengthUnit } from './domain/units';
 import { formatDate } from './format';
 
 /** The class fields that the schedule describes in words: the class's rules and its scale. */
-export interface ClassDescribed extends ClassRules {
+export interface ClassDescribed extends Required<ClassRules> {
 	scaleName?: string | null;
 }
 

@@ -7,7 +7,10 @@ import PgBoss from 'pg-boss';
 import type { Transaction } from 'sequelize';
 import { config } from '../config';
 import { sequelize } from '../db';
-import type { PgClient } from '../db/pg';
+import type pg from 'pg';
+
+/** A connection of Sequelize's pool (a pg client). */
+type PgClient = pg.ClientBase;
 
 export const JOB_SCHEMA = 'pgboss';
 
