@@ -8,8 +8,7 @@ import {
 	describeGroupSize,
 	groupSizeClass,
 	isPlantGroup,
-	plantGroupOf,
-	type RootType
+	plantGroupOf
 } from './domain/plant-groups';
 import { formatLengthBoth, type LengthUnit } from './domain/units';
 import { formatDate } from './format';
