@@ -14,6 +14,7 @@ import {
 } from '$lib/server/services/societies';
 
 import { actions, load } from '../../src/routes/societies/new/+page.server';
+import { useConfig } from '$lib/server/config';
 
 const run = promisify(execFile);
 const stamp = Date.now().toString(36);
@@ -222,8 +223,8 @@ describe('starting a society through the service', () => {
 
 describe('the start page on a closed host (CB_SOCIETY_SIGNUP unset)', () => {
 	it('says so, and its action answers 403 writing nothing', async () => {
-		const saved = process.env.CB_SOCIETY_SIGNUP;
-		delete process.env.CB_SOCIETY_SIGNUP;
+		// Settings are read once at start: this host starts with the variable unset.
+		useConfig({ ...process.env, CB_SOCIETY_SIGNUP: undefined });
 		try {
 			const person = await founder();
 			const user = { id: person.id, email: person.email, name: null, memberships: [] };
@@ -243,8 +244,7 @@ describe('the start page on a closed host (CB_SOCIETY_SIGNUP unset)', () => {
 			expect(answer.data.message).toBe(SIGNUP_CLOSED_MESSAGE);
 			expect(await counts()).toEqual(before);
 		} finally {
-			if (saved === undefined) delete process.env.CB_SOCIETY_SIGNUP;
-			else process.env.CB_SOCIETY_SIGNUP = saved;
+			useConfig(process.env);
 		}
 	});
 });

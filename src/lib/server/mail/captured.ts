@@ -1,3 +1,4 @@
+import { config } from '../config';
 import { devMailEnabled } from '../startup-checks';
 
 /** A message caught by the local SMTP fake (development and tests only). */
@@ -12,7 +13,7 @@ export interface CapturedMail {
 
 /** Reads the messages the local SMTP fake caught; null when the fake is not configured. */
 export async function listCapturedMail(): Promise<CapturedMail[] | null> {
-	const base = process.env.CB_DEV_MAIL_URL;
+	const base = config().devMailUrl;
 	if (!base || !devMailEnabled()) return null;
 	const response = await fetch(`${base}/messages`);
 	if (!response.ok) throw new Error(`SMTP fake answered ${response.status}`);

@@ -1,13 +1,14 @@
 import nodemailer, { type Transporter } from 'nodemailer';
+import { config } from '../config';
 
 /** The SMTP server mail goes through: SMTP_URL, or the local SMTP fake in development. */
 export function smtpUrl(): string {
-	return process.env.SMTP_URL || 'smtp://127.0.0.1:2525';
+	return config().smtpUrl || 'smtp://127.0.0.1:2525';
 }
 
 /** The sender shown on every message. */
 export function mailFrom(): string {
-	return process.env.MAIL_FROM || 'Crownbench <no-reply@crownbench.test>';
+	return config().mailFrom || 'Crownbench <no-reply@crownbench.test>';
 }
 
 let transporter: Transporter | null = null;
