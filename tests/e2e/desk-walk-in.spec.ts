@@ -146,7 +146,11 @@ test('a walk-in exhibitor enters at the desk, is judged on paper, placed, and fi
 	await clerk.goto(`/desk/${slug}/paper`);
 	await expectAccessible(clerk);
 	await clerk.getByRole('link', { name: /Type in the paper sheet/ }).click();
+	await expect(
+		clerk.getByRole('heading', { level: 1, name: 'Type in the paper sheet of class 1' })
+	).toBeVisible();
 	const boxes = clerk.locator('input[inputmode="decimal"]');
+	await expect(boxes.first()).toBeVisible();
 	const count = await boxes.count();
 	expect(count).toBeGreaterThan(1);
 	// One point below the most on every criterion (the default scale totals 100: DOMAIN.md).
