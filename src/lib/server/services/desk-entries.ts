@@ -254,3 +254,50 @@ export async function listDeskClasses(showId: string): Promise<DeskClass[]> {
 	);
 	return rows.map((r) => ({ id: r.id, label: `${r.code} ${r.name}` }));
 }
+
+/** An entry of a person without a role in the society (a walk-in), as their start page lists it. */
+export interface OwnEntry {
+	id: string;
+	number: number;
+	showName: string;
+	showSlug: string;
+	resultsPublished: boolean;
+	classLabel: string;
+	plant: string;
+	status: string;
+}
+
+/** The person's entries in every show, newest show first, with whether its results are out. */
+export async function listOwnEntries(userId: string): Promise<OwnEntry[]> {
+	const rows = await sequelize.query<{
+		id: string;
+		number: number;
+		show_name: string;
+		show_slug: string;
+		published: boolean;
+		class_label: string;
+		plant: string;
+		status: string;
+	}>(
+		`SELECT e.id, e.number, s.name AS show_name, s.slug AS show_slug,
+		        s.results_published_at IS NOT NULL AS published, c.code || ' ' || c.name AS class_label,
+		        COALESCE(v.name, e.title, '') AS plant, e.status
+		   FROM entries e
+		   JOIN shows s ON s.id = e.show_id
+		   JOIN classes c ON c.id = e.class_id
+		   LEFT JOIN varieties v ON v.id = e.variety_id
+		  WHERE e.exhibitor_id = $1
+		  ORDER BY s.judging_day DESC, e.number`,
+		{ bind: [userId], type: QueryTypes.SELECT }
+	);
+	return rows.map((r) => ({
+		id: r.id,
+		number: r.number,
+		showName: r.show_name,
+		showSlug: r.show_slug,
+		resultsPublished: r.published,
+		classLabel: r.class_label,
+		plant: r.plant,
+		status: r.status
+	}));
+}
