@@ -387,8 +387,7 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 	'/my/society-record/record.csv api:GET': {
 		as: 'member',
 		corrupt: 'query+path',
-		fields: ['society'],
-		needsField: true
+		fields: ['society']
 	},
 	'/my/plants/labels/pdf api:GET': { as: 'member', corrupt: 'query+path', fields: ['plant'] },
 	'/my/plants/new action:default': { as: 'member', corrupt: 'form', fields: PLANT_FIELDS },
