@@ -150,6 +150,9 @@ test('the chair downloads the registry with its gesneriads, and only the own soc
 	expect((await page.request.get('/chair/varieties/export?society=cedar-ridge')).status()).toBe(
 		403
 	);
+	const unnamed = await page.request.get('/chair/varieties/export');
+	expect(unnamed.status()).toBe(400);
+	expect((await unnamed.json()).message).toMatch(/Say which society’s registry/);
 
 	// The variety form offers the growth forms and size classes of the group chosen.
 	await page.getByLabel('Group').selectOption({ label: 'Sinningia' });

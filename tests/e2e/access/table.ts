@@ -65,7 +65,11 @@ export const ACCESS_TABLE: AccessRow[] = [
 	{ route: '/chair/shows/[slug]', answers: pageFor('chair') },
 	{ route: '/chair/shows/[slug]/schedule', answers: pageFor('chair') },
 	{ route: '/chair/varieties', answers: pageFor('chair', 'other') },
-	{ route: '/chair/varieties/export', answers: pageFor('chair', 'other') },
+	{
+		route: '/chair/varieties/export',
+		query: 'society=larkspur-valley',
+		answers: { ...pageFor('chair'), other: 403 }
+	},
 	{
 		route: '/chair/varieties/export',
 		query: 'society=cedar-ridge',
