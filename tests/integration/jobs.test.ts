@@ -36,6 +36,10 @@ describe('the job worker', () => {
 			expect(ready.checks.jobs.detail).toBe('1 worker(s) alive');
 		} finally {
 			await stop();
+			// Leave no schedule or reminders behind for the files after this one.
+			await sequelize.query(`DELETE FROM pgboss.schedule WHERE name = 'reminders-check'`);
+			await sequelize.query(`DELETE FROM pgboss.job WHERE name = 'reminders-check'`);
+			await sequelize.query(`DELETE FROM outbox_messages WHERE kind = 'entry-reminder'`);
 		}
 		expect((await checkReadiness()).checks.jobs.ok).toBe(false);
 	});
