@@ -107,7 +107,26 @@ beforeAll(async () => {
 	show = (await Show.findByPk(showId))!;
 });
 
-afterAll(() => sequelize.close());
+const madeUsers: string[] = [];
+
+// Leaves the database as the seed made it (the migrations test takes the seed down and counts).
+afterAll(async () => {
+	const walkIns = await WalkInExhibitor.findAll({
+		where: { createdBy: clerk.id },
+		attributes: ['userId']
+	});
+	const users = [...madeUsers, ...walkIns.map((w) => w.userId)];
+	await sequelize.query('DELETE FROM audit_events WHERE show_id = $1', { bind: [show.id] });
+	await sequelize.query('DELETE FROM entries WHERE show_id = $1', { bind: [show.id] });
+	await sequelize.query('DELETE FROM shows WHERE id = $1', { bind: [show.id] });
+	if (users.length) {
+		await sequelize.query('DELETE FROM walk_in_exhibitors WHERE user_id = ANY($1::uuid[])', {
+			bind: [users]
+		});
+		await sequelize.query('DELETE FROM users WHERE id = ANY($1::uuid[])', { bind: [users] });
+	}
+	await sequelize.close();
+});
 
 describe('entries at the desk', () => {
 	it('refuses while the desk takes no entries, writing nothing', async () => {
@@ -231,6 +250,7 @@ describe('entries at the desk', () => {
 			emailVerified: null,
 			image: null
 		});
+		madeUsers.push(outsider.id);
 		const e = await failure(enter(input({ who: 'member', memberId: outsider.id })));
 		expect(e).toBeInstanceOf(DeskProblem);
 	});
