@@ -29,7 +29,6 @@ export default ts.config(
 			parserOptions: {
 				projectService: {
 					allowDefaultProject: [
-						'playwright.config.ts',
 						'src/service-worker.ts',
 						'vitest.integration.config.ts',
 						'scripts/*.ts',

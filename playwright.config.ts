@@ -12,6 +12,11 @@ export default defineConfig({
 	use: {
 		baseURL: process.env.E2E_BASE_URL ?? 'http://127.0.0.1:4173',
 		trace: 'off',
+		// The service worker (src/service-worker.ts) keeps the whole built app when it installs:
+		// most specs leave it out, to spare the app hundreds of requests per browser; the judging
+		// specs let it in (test.use({ serviceWorkers: 'allow' })), and judging-offline.spec.ts
+		// runs a persistent profile of its own with it.
+		serviceWorkers: 'block',
 		screenshot: 'only-on-failure',
 		launchOptions: {
 			executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',

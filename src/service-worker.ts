@@ -25,6 +25,13 @@ import {
 const sw = globalThis.self as unknown as ServiceWorkerGlobalScope;
 const SHELL_CACHE = `crownbench-app-${version}`;
 const SHELL = new Set([...build, ...files]);
+/**
+ * Kept at install: the built files and static files, less the fonts a modern browser never asks
+ * for (WOFF beside WOFF2, alphabets other than Latin); those are kept when first fetched.
+ */
+const PRECACHE = [...SHELL].filter(
+	(path) => !path.endsWith('.woff') && !/-(cyrillic|greek|vietnamese)[a-z-]*-\d+-/.test(path)
+);
 /** How long a judging page waits for a weak network before the kept copy is shown. */
 const NETWORK_WAIT_MS = 4000;
 
@@ -32,7 +39,7 @@ sw.addEventListener('install', (event) => {
 	event.waitUntil(
 		(async () => {
 			const cache = await caches.open(SHELL_CACHE);
-			await cache.addAll([...SHELL]);
+			await cache.addAll(PRECACHE);
 			await sw.skipWaiting();
 		})()
 	);
@@ -80,8 +87,12 @@ sw.addEventListener('message', (event) => {
 });
 
 async function fromShell(request: Request): Promise<Response> {
-	const kept = await caches.match(request, { cacheName: SHELL_CACHE });
-	return kept ?? fetch(request);
+	const cache = await caches.open(SHELL_CACHE);
+	const kept = await cache.match(request);
+	if (kept) return kept;
+	const response = await fetch(request);
+	if (response.ok) await cache.put(request, response.clone());
+	return response;
 }
 
 /** The person whose judging pages are served offline: the last one a judging page named. */

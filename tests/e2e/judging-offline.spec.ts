@@ -19,6 +19,9 @@ import { signIn } from './support/session';
 
 const TABLET = { width: 768, height: 1024 };
 
+// A browser opened on a new profile first keeps the whole built app (hundreds of files).
+test.describe.configure({ timeout: 120_000 });
+
 /** Deductions per entry on the published scale (see support/scoresheet.ts), 100 less the sum. */
 const SHEETS = [
 	{ deduct: [1, 1.5, 1, 1, 0.5] },
@@ -51,6 +54,8 @@ const tabletTest = test.extend<{ tablet: Tablet }>({
 					...config.use?.launchOptions,
 					baseURL: hall.origin,
 					viewport: TABLET,
+					// The config blocks service workers for other specs; a tablet has one.
+					serviceWorkers: 'allow',
 					offline: options.offline ?? false
 				});
 				opened.context = context;
@@ -72,8 +77,8 @@ const tabletTest = test.extend<{ tablet: Tablet }>({
 async function openJudgingOnline(page: Page): Promise<number> {
 	await page.goto('/judging');
 	const ready = page.locator('[data-offline-pages]');
-	// Every page of the person's classes is fetched once: the demo show has many.
-	await expect(ready).toContainText('Ready to work offline', { timeout: 30_000 });
+	// The built app and every page of the person's classes are fetched once: the demo show has many.
+	await expect(ready).toContainText('Ready to work offline', { timeout: 60_000 });
 	return Number(await ready.getAttribute('data-offline-pages'));
 }
 
@@ -213,6 +218,15 @@ tabletTest(
 		await expect(other.getByRole('heading', { name: 'Not kept on this tablet' })).toBeVisible();
 		await other.close();
 
+		// The class page, opened offline from its kept copy, shows the sheets as the tablet has them.
+		await page.goto(`/judging/class/${show.classId}`);
+		for (const [i, total] of [95, 85, 92, 75].entries()) {
+			await expect(
+				page.getByRole('link', { name: new RegExp(`Entry ${show.entries[i].number}\\b`) })
+			).toContainText(`Scored ${total}`);
+		}
+		await expect(page.locator('[data-sync]')).toHaveAttribute('data-sync', 'waiting');
+
 		// The network returns: every change is sent once, in the order made, on the right versions.
 		await tablet.setOffline(false);
 		await expect(page.locator('[data-sync]')).toHaveAttribute('data-sync', 'saved', {
@@ -238,7 +252,11 @@ tabletTest(
 		);
 
 		// Daylight: the judging pages meet the enhanced contrast (7:1) of WCAG's AAA level.
-		for (const url of ['/judging', `/judging/class/${show.classId}`, page.url()]) {
+		for (const url of [
+			'/judging',
+			`/judging/class/${show.classId}`,
+			`/judging/entry/${show.entries[3].id}`
+		]) {
 			await page.goto(url);
 			const results = await new AxeBuilder({ page })
 				.withRules(['color-contrast-enhanced'])

@@ -5,7 +5,8 @@ import { createJudgingShow, withDb } from './support/judging-fixture';
 import { signIn } from './support/session';
 
 // A tablet held in portrait, as in judging.spec.ts.
-test.use({ viewport: { width: 768, height: 1024 } });
+// With the service worker, as a judge's tablet has it.
+test.use({ viewport: { width: 768, height: 1024 }, serviceWorkers: 'allow' });
 
 /**
  * Puts text in the comment box as a paste would: text no keyboard types (a NUL, half of a
@@ -18,21 +19,25 @@ async function setComment(page: Page, value: string) {
 	}, value);
 }
 
-/** The changes this tablet set aside (idb-keyval's store, read with the browser's own API). */
+/** The changes this tablet set aside (idb-keyval's store of the person, read with the browser's own API). */
 function setAside(page: Page): Promise<{ comment: string }[]> {
 	return page.evaluate(
 		() =>
 			new Promise<{ comment: string }[]>((resolve, reject) => {
-				const open = indexedDB.open('crownbench-judging');
-				open.onerror = () => reject(open.error);
-				open.onsuccess = () => {
-					const read = open.result.transaction('queue').objectStore('queue').get('set-aside');
-					read.onerror = () => reject(read.error);
-					read.onsuccess = () => {
-						open.result.close();
-						resolve((read.result as { comment: string }[] | undefined) ?? []);
+				void indexedDB.databases().then((all) => {
+					const name = all.map((d) => d.name).find((n) => n?.startsWith('crownbench-tablet-'));
+					if (!name) return resolve([]);
+					const open = indexedDB.open(name);
+					open.onerror = () => reject(open.error);
+					open.onsuccess = () => {
+						const read = open.result.transaction('kept').objectStore('kept').get('set-aside');
+						read.onerror = () => reject(read.error);
+						read.onsuccess = () => {
+							open.result.close();
+							resolve((read.result as { comment: string }[] | undefined) ?? []);
+						};
 					};
-				};
+				});
 			})
 	);
 }

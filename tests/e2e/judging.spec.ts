@@ -4,8 +4,8 @@ import { createJudgingShow, withDb } from './support/judging-fixture';
 import { changesOf, score } from './support/scoresheet';
 import { signIn } from './support/session';
 
-// A tablet held in portrait.
-test.use({ viewport: { width: 768, height: 1024 } });
+// A tablet held in portrait, with the service worker as a judge's tablet has it.
+test.use({ viewport: { width: 768, height: 1024 }, serviceWorkers: 'allow' });
 
 /** Deductions per entry and the totals they give on the published scale (100 less the sum). */
 const SHEETS: { deduct: number[]; total: number; ribbon: string }[] = [

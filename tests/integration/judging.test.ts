@@ -1,7 +1,11 @@
 import { QueryTypes } from 'sequelize';
 import { afterAll, describe, expect, it } from 'vitest';
 import { sequelize, Show } from '../../src/lib/server/db';
-import { loadJudgeClass, saveSheet } from '../../src/lib/server/services/judging';
+import {
+	listJudgingPagesToKeep,
+	loadJudgeClass,
+	saveSheet
+} from '../../src/lib/server/services/judging';
 import { addJudge, assignClass, setClerk } from '../../src/lib/server/services/panels';
 import { Refusal } from '../../src/lib/server/services/refusal';
 import {
@@ -338,5 +342,31 @@ describe('panel scores, board, awards and publishing', () => {
 			sequelize.transaction((t) => publishResults(f.judges[0], f.showId, { transaction: t }))
 		);
 		expect(again.message).toMatch(/already published/);
+	});
+});
+
+describe('the judging pages a tablet keeps for working offline', () => {
+	it('lists the class and every active entry of the person’s panels, until results are public', async () => {
+		const f = await buildFixture();
+		const expected = [
+			'/judging',
+			`/judging/class/${f.classId}`,
+			...f.entries.map((e) => `/judging/entry/${e.id}`)
+		];
+		expect((await listJudgingPagesToKeep(f.judges[0].id)).sort()).toEqual(expected.sort());
+		// The panel's clerk keeps the same pages; someone on no panel only the list.
+		expect((await listJudgingPagesToKeep(f.clerk.id)).sort()).toEqual(expected.sort());
+		expect(await listJudgingPagesToKeep(f.exhibitors[0].id)).toEqual(['/judging']);
+		// A withdrawn entry is not judged (common practice): its scoresheet is not kept.
+		await sequelize.query(`UPDATE entries SET status = 'withdrawn' WHERE id = :id`, {
+			replacements: { id: f.entries[0].id }
+		});
+		expect(await listJudgingPagesToKeep(f.judges[0].id)).not.toContain(
+			`/judging/entry/${f.entries[0].id}`
+		);
+		await sequelize.query(`UPDATE shows SET results_published_at = now() WHERE id = :id`, {
+			replacements: { id: f.showId }
+		});
+		expect(await listJudgingPagesToKeep(f.judges[0].id)).toEqual(['/judging']);
 	});
 });

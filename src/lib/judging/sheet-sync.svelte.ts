@@ -110,6 +110,26 @@ export class SheetSync {
 		await this.flush();
 	}
 
+	/**
+	 * Starts (see start) and follows the network: sends when it comes back, and tries again now
+	 * and then, since not every browser reports that. Returns the function that stops following.
+	 */
+	connect(): () => void {
+		const on = () => this.setOnline(true);
+		const off = () => this.setOnline(false);
+		window.addEventListener('online', on);
+		window.addEventListener('offline', off);
+		void this.start();
+		const retry = setInterval(() => {
+			if (this.waiting > 0) this.setOnline(navigator.onLine);
+		}, 4000);
+		return () => {
+			clearInterval(retry);
+			window.removeEventListener('online', on);
+			window.removeEventListener('offline', off);
+		};
+	}
+
 	setOnline(online: boolean): void {
 		this.online = online;
 		if (online) void this.flush();
