@@ -13,6 +13,8 @@ export const signInSchema = z.object({
 		.trim()
 		.min(1, 'Enter your e-mail address.')
 		.max(254, 'That address is too long.')
-		.pipe(z.email('Enter a complete e-mail address, like name@example.org.')),
+		.pipe(z.email('Enter a complete e-mail address, like name@example.org.'))
+		// `.invalid` is reserved never to exist (RFC 6761): walk-ins who left no address get one.
+		.refine((email) => !/\.invalid$/i.test(email), 'That address cannot receive mail.'),
 	redirectTo: safeNextPath
 });
