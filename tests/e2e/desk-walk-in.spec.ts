@@ -202,3 +202,46 @@ test('a walk-in exhibitor enters at the desk, is judged on paper, placed, and fi
 	expect(claimed.claimed_at).not.toBeNull();
 	await walkInContext.close();
 });
+
+test('the chair decides until when the desk takes new entries, and the desk says so', async ({
+	browser
+}) => {
+	const { slug } = await createEntryDayShow();
+	const chairContext = await browser.newContext();
+	const chair = await chairContext.newPage();
+	await signIn(chair, 'chair@crownbench.test');
+	await chair.goto(`/chair/shows/${slug}`);
+	const card = chair.getByRole('group', { name: /the desk enters plants never entered online/ });
+	await expect(card.getByLabel('Until judging starts (the first score of the show)')).toBeChecked();
+	await card.getByLabel('The desk takes no new entries').check();
+	await chair
+		.locator('form[action="?/deskEntries"]')
+		.getByRole('button', { name: 'Save this choice' })
+		.click();
+	await expect(
+		chair.getByText('New entries at the desk: The desk takes no new entries.')
+	).toBeVisible();
+	await expectAccessible(chair);
+
+	const clerkContext = await browser.newContext();
+	const clerk = await clerkContext.newPage();
+	await signIn(clerk, 'clerk@crownbench.test');
+	await clerk.goto(`/desk/${slug}/enter`);
+	await expect(clerk.getByText('This show takes no entries at the desk.')).toBeVisible();
+	await expect(clerk.getByLabel('Find a member by name')).toHaveCount(0);
+
+	// Until the end of entry day (today): the desk takes entries again.
+	await chair.reload();
+	await card.getByLabel('Until the end of entry day').check();
+	await chair
+		.locator('form[action="?/deskEntries"]')
+		.getByRole('button', { name: 'Save this choice' })
+		.click();
+	await expect(
+		chair.getByText('New entries at the desk: Until the end of entry day.')
+	).toBeVisible();
+	await clerk.reload();
+	await expect(clerk.getByLabel('Find a member by name')).toBeVisible();
+	await chairContext.close();
+	await clerkContext.close();
+});

@@ -96,6 +96,10 @@ describe('checkChange', () => {
 		['past', 'panels', false],
 		['taking_entries', 'fees', true],
 		['results_out', 'fees', false],
+		// The desk's window is an entry-day matter: the chair may change it until results are out.
+		['show_days', 'desk_window', true],
+		['awaiting_results', 'desk_window', true],
+		['results_out', 'desk_window', false],
 		['results_out', 'schedule', false],
 		['past', 'schedule', false],
 		['announced', 'publish_schedule', false],

@@ -85,7 +85,8 @@ export function stageOf(facts: StageFacts, today: IsoDate): ShowStage {
 }
 
 /** The kinds of change the stage decides on. */
-export type ShowChange = 'schedule' | 'panels' | 'fees' | 'publish_schedule' | 'hide_schedule';
+export type ShowChange =
+	'schedule' | 'panels' | 'fees' | 'desk_window' | 'publish_schedule' | 'hide_schedule';
 
 /** The answer to "may this change happen now?": yes, or no with the reason in plain words. */
 export type StageVerdict = { allowed: true } | { allowed: false; reason: string };
@@ -105,7 +106,8 @@ const LOCKED = 'The results of this show are published: nothing about it can cha
 
 /**
  * The single check of what may change at a stage. The schedule (divisions, classes, dates and
- * rules) changes only while the show is being planned; panels and fees until the results are out;
+ * rules) changes only while the show is being planned; panels, fees and until when the desk takes
+ * entries until the results are out;
  * publishing the schedule needs at least one class and a scale of points for each class (members
  * could otherwise enter where nothing can be judged); hiding a public schedule is possible only
  * while nobody has entered, since entries stand on what the schedule said.
@@ -125,6 +127,7 @@ export function checkChange(
 					);
 		case 'panels':
 		case 'fees':
+		case 'desk_window':
 			return YES;
 		case 'publish_schedule': {
 			if (stage !== 'planning') return no('The schedule is already public.');

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { CONTROL_CHARS_MESSAGE, hasNoControlChars, text } from './text';
 import { LENGTH_UNITS } from '$lib/domain/units';
+import { DESK_ENTRIES_UNTIL } from '$lib/domain/desk-window';
 
 const measure = (label: string, max: number) =>
 	z.coerce
@@ -102,3 +103,8 @@ export const deskEntrySchema = checkInSchema
 		}
 	});
 export type DeskEntryInput = z.infer<typeof deskEntrySchema>;
+
+/** The chair's choice of until when the desk takes new entries. */
+export const deskEntriesUntilSchema = z.object({
+	until: z.enum(DESK_ENTRIES_UNTIL, { error: 'Choose until when the desk takes new entries.' })
+});

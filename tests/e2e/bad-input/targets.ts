@@ -171,6 +171,7 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 		]
 	},
 	'/chair/shows/[slug] action:sharePoints': { as: 'chair', corrupt: 'form', fields: ['share'] },
+	'/chair/shows/[slug] action:deskEntries': { as: 'chair', corrupt: 'form', fields: ['until'] },
 	'/chair/shows/[slug] action:publish': {
 		as: 'chair',
 		corrupt: 'form',

@@ -22,7 +22,8 @@ import { NO_ADDRESS_DOMAIN, isStandInAddress } from '../mail/stand-in';
 import { classRulesOf, plantFactsOf, showContextOf } from './eligibility-input';
 import { exhibitorContextFor, withStandingHint } from './entries';
 import { fixEntryNumbers, numberForNewEntry } from './entry-numbers';
-import { stageOfShow } from './show-stage';
+import { stageOfShow, verdictFor } from './show-stage';
+import { Refusal } from './refusal';
 import { loadSocietySettings } from './society-settings';
 
 /** Whether the desk takes new entries for the show now, and if not, why. */
@@ -46,6 +47,20 @@ export async function deskWindowOf(
 		entryDay: show.entryDay,
 		judgingStarted: started.length > 0
 	});
+}
+
+/**
+ * The chair's choice of until when the desk takes new entries; refused once the results are
+ * published (the show is then closed for good).
+ */
+export async function setDeskEntriesUntil(
+	show: Show,
+	until: DeskEntriesUntil,
+	options: { transaction: Transaction }
+): Promise<void> {
+	const verdict = await verdictFor(show, 'desk_window', options);
+	if (!verdict.allowed) throw new Refusal(verdict.reason, 409, 'until');
+	await show.update({ deskEntriesUntil: until }, { transaction: options.transaction });
 }
 
 /** A person the desk may enter plants for: a member of the society, or a walk-in seen before. */

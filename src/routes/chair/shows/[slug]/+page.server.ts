@@ -10,6 +10,9 @@ import {
 	updateShowSettings
 } from '$lib/server/services/schedule';
 import { setSharePointsLost } from '$lib/server/services/my-results';
+import { setDeskEntriesUntil } from '$lib/server/services/desk-entries';
+import { deskEntriesUntilSchema } from '$lib/schemas/desk';
+import { DESK_ENTRIES_UNTIL, DESK_ENTRIES_UNTIL_WORDS } from '$lib/domain/desk-window';
 import type { Actions, PageServerLoad } from './$types';
 import { refusedForm } from '$lib/server/http/refusals';
 import type { Refusal } from '$lib/server/services/refusal';
@@ -41,6 +44,11 @@ export const load: PageServerLoad = async (event) => {
 	return {
 		show: settingsOf(show),
 		sharePointsLost: show.sharePointsLost,
+		deskEntriesUntil: show.deskEntriesUntil,
+		deskEntriesChoices: DESK_ENTRIES_UNTIL.map((value) => ({
+			value,
+			label: DESK_ENTRIES_UNTIL_WORDS[value]
+		})),
 		started: started === 'create' || started === 'copy' ? started : null
 	};
 };
@@ -87,6 +95,23 @@ export const actions: Actions = {
 					? 'Exhibitors will see the points lost per criterion once results are published.'
 					: 'Exhibitors will not see the points lost per criterion.'
 		};
+	},
+	deskEntries: async (event) => {
+		const { show } = await requireShowRole(event, event.params.slug, ['chair']);
+		const parsed = deskEntriesUntilSchema.safeParse({
+			until: (await event.request.formData()).get('until')
+		});
+		if (!parsed.success) {
+			return fail(400, { message: parsed.error.issues[0]?.message ?? 'Check the choice.' });
+		}
+		try {
+			await sequelize.transaction((transaction) =>
+				setDeskEntriesUntil(show, parsed.data.until, { transaction })
+			);
+		} catch (e) {
+			return refusedForm(e);
+		}
+		return { saved: `New entries at the desk: ${DESK_ENTRIES_UNTIL_WORDS[parsed.data.until]}.` };
 	},
 	publish: async (event) => {
 		const { show, user } = await requireShowRole(event, event.params.slug, ['chair']);
