@@ -232,7 +232,7 @@ test.describe.serial('a new society from an empty database', () => {
 		for (const v of Object.values(varieties)) {
 			await chair.getByLabel('Name', { exact: true }).fill(v.name);
 			await chair.getByLabel('Hybridizer').fill('Brookfield trial grower');
-			await chair.getByLabel('Habit').selectOption({ label: v.habit });
+			await chair.getByLabel('Growth form').selectOption({ label: v.habit });
 			await chair.getByLabel('Size class').selectOption(v.size);
 			await chair.getByLabel('Blossom type').fill('single');
 			await chair.getByLabel('Blossom colors').fill('pink');
