@@ -279,7 +279,7 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 	'/desk/[slug]/entries/[number] action:checkIn': {
 		as: 'clerk',
 		corrupt: 'form',
-		fields: ['crowns', 'diameter', 'unit', 'note']
+		fields: ['crowns', 'diameter', 'leaf', 'unit', 'note']
 	},
 	'/desk/[slug]/entries/[number] action:move': {
 		as: 'clerk',
@@ -312,6 +312,7 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 			'varietyId',
 			'acquiredOn',
 			'diameter',
+			'leaf',
 			'crowns',
 			'potSize',
 			'unit'
