@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Op, QueryTypes } from 'sequelize';
 import { consecutivePairs } from '../../src/lib/domain/entry-numbers';
-import { deskEntrySchema, type DeskEntryInput } from '../../src/lib/schemas/desk';
+import { checkInSchema, deskEntrySchema, type DeskEntryInput } from '../../src/lib/schemas/desk';
 import {
 	AuditEvent,
 	Entry,
@@ -18,6 +18,7 @@ import {
 	claimWalkIns,
 	enterAtDesk
 } from '../../src/lib/server/services/desk-entries';
+import { checkInEntry, loadDeskEntry } from '../../src/lib/server/services/desk';
 import { DeskProblem } from '../../src/lib/server/services/desk-problem';
 
 let spring: Show;
@@ -253,5 +254,120 @@ describe('entries at the desk', () => {
 		madeUsers.push(outsider.id);
 		const e = await failure(enter(input({ who: 'member', memberId: outsider.id })));
 		expect(e).toBeInstanceOf(DeskProblem);
+	});
+});
+
+// A miniature Sinningia is sized by its longest leaf blade, at most 2.5 in (The Gesneriad Society
+// convention show schedule 2018; New England chapter schedule 2022), as in plant-groups.ts.
+describe('the longest leaf blade at the desk', () => {
+	let miniClass: string;
+	let standardClass: string;
+	let mini: Variety;
+
+	beforeAll(async () => {
+		mini = (await Variety.findOne({
+			where: { societyId: spring.societyId, plantGroup: 'sinningia', sizeClass: 'miniature' },
+			order: [['name', 'ASC']]
+		}))!;
+		const division = await sequelize.query<{ id: string }>(
+			'SELECT id FROM divisions WHERE show_id = $1',
+			{ bind: [show.id], type: QueryTypes.SELECT }
+		);
+		const scale = await sequelize.query<{ scale_id: string }>(
+			'SELECT scale_id FROM classes WHERE id = $1',
+			{ bind: [classId], type: QueryTypes.SELECT }
+		);
+		[miniClass, standardClass] = [randomUUID(), randomUUID()];
+		for (const [id, code, name, size, position] of [
+			[miniClass, 'S1', 'Miniature Sinningia', 'miniature', 2],
+			[standardClass, 'S2', 'Sinningia, standard', 'standard', 3]
+		] as const) {
+			await sequelize.query(
+				`INSERT INTO classes (id, show_id, division_id, code, name, position, scale_id, genera, size_classes)
+				 VALUES ($1, $2, $3, $4, $5, $6, $7, ARRAY['sinningia'], ARRAY[$8])`,
+				{ bind: [id, show.id, division[0].id, code, name, position, scale[0].scale_id, size] }
+			);
+		}
+	});
+
+	const sinningia = (over: Partial<DeskEntryInput> = {}) =>
+		input({
+			walkInName: 'Perrin Ashgrove',
+			classId: miniClass,
+			varietyId: mini.id,
+			diameter: 4,
+			potSize: 2.5,
+			...over
+		});
+
+	it('refuses a miniature Sinningia with a 3 in leaf blade, with its reason, and takes one of 2 in', async () => {
+		const before = await Entry.count({ where: { showId: show.id } });
+		const e = await failure(enter(sinningia({ leaf: 3 })));
+		expect(e).toBeInstanceOf(DeskEntryRefused);
+		const failures = (e as DeskEntryRefused).failures;
+		expect(failures.map((f) => f.code)).toEqual(['leaf_over_limit']);
+		expect(failures[0].message).toMatch(/leaf blades up to 2\.5 in .* measures 3 in/);
+		expect(failures[0].whatToDo).toMatch(/class for its measured size.*or scratch it/);
+		expect(await Entry.count({ where: { showId: show.id } })).toBe(before);
+
+		// 5.08 cm = 2 in (1 in = 2.54 cm exactly, NIST SP 811): the society's unit or the other.
+		const entered = await enter(
+			sinningia({ leaf: 5.08, diameter: 10.16, potSize: 6.35, unit: 'cm' })
+		);
+		const entry = (await Entry.findByPk(entered.id))!;
+		expect(entry.classId).toBe(miniClass);
+		expect(Number(entry.measuredLeafIn)).toBe(2);
+		expect(Number(entry.measuredDiameterIn)).toBe(4);
+	});
+
+	it('measured again at check-in with a 3 in leaf: the reason, and the standard class proposed', async () => {
+		const entered = await enter(sinningia({ leaf: 2 }));
+		const checkIn = (leaf: number | undefined) =>
+			sequelize.transaction((transaction) =>
+				checkInEntry(
+					show,
+					entered.id,
+					clerk.id,
+					{ diameter: 4, crowns: 1, potSize: 2.5, leaf, unit: 'in' },
+					{ transaction }
+				)
+			);
+		expect((await loadDeskEntry(show, entered.number))!.verdict!.fits).toBe(true);
+
+		await checkIn(3);
+		const desk = (await loadDeskEntry(show, entered.number))!;
+		expect(desk.sizedByLeaf).toBe(true);
+		expect(desk.measuredLeafIn).toBe(3);
+		expect(desk.verdict!.failures.map((f) => f.code)).toEqual(['leaf_over_limit']);
+		expect(desk.verdict!.failures[0].whatToDo).toMatch(/class for its measured size/);
+		// Proposed: the standard Sinningia class (and the open class 1, which asks for no group).
+		expect(desk.proposals.map((p) => p.id)).toContain(standardClass);
+		expect(desk.proposals.map((p) => p.id)).not.toContain(miniClass);
+
+		// A negative leaf blade: the form refuses it with a clear message, the service writes nothing.
+		const parsed = checkInSchema.safeParse({
+			diameter: '4',
+			crowns: '1',
+			potSize: '2.5',
+			leaf: '-2',
+			unit: 'in'
+		});
+		expect(parsed.success).toBe(false);
+		expect(parsed.error!.issues.map((i) => [i.path.join('.'), i.message])).toEqual([
+			['leaf', 'The longest leaf blade must be more than 0.']
+		]);
+		const bad = await failure(checkIn(-2));
+		expect(bad).toBeInstanceOf(RangeError);
+		const tooLarge = await failure(checkIn(250));
+		expect(tooLarge).toBeInstanceOf(DeskProblem);
+		expect((tooLarge as Error).message).toBe('Those measurements are too large.');
+		expect(Number((await Entry.findByPk(entered.id))!.measuredLeafIn)).toBe(3);
+
+		// Measured again without the leaf: the earlier length no longer stands.
+		await checkIn(undefined);
+		expect((await Entry.findByPk(entered.id))!.measuredLeafIn).toBeNull();
+		// A violet's group is not sized by the leaf: the desk does not ask for it.
+		const violet = (await Entry.findOne({ where: { showId: show.id, classId } }))!;
+		expect((await loadDeskEntry(show, violet.number))!.sizedByLeaf).toBe(false);
 	});
 });

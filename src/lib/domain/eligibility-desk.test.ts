@@ -4,6 +4,7 @@ import {
 	OPEN_CLASS_RULES,
 	checkEligibility,
 	deskAdvice,
+	measuredSizeClass,
 	withDeskAdvice,
 	type ClassRules,
 	type ExhibitorContext,
@@ -131,6 +132,29 @@ describe('the desk’s checks, with reason and what to do', () => {
 			'class_entry_limit_reached'
 		]);
 		for (const f of all.failures) expect(f.whatToDo.length).toBeGreaterThan(20);
+	});
+
+	it('a miniature Sinningia by its longest leaf blade; over it, proposed as a standard one', () => {
+		// Miniature Sinningia: leaf blade at most 2.5 in (The Gesneriad Society convention show
+		// schedule 2018; New England chapter schedule 2022), as in plant-groups.ts
+		const mini = {
+			plantGroup: 'sinningia',
+			growthForm: 'rosette',
+			sizeClass: 'miniature' as const,
+			varietyName: 'Sinningia pusilla',
+			isSpecies: true
+		};
+		const over = atDesk({}, { ...mini, measured: { diameterIn: 4, leafIn: 3 } });
+		expect(over.failures.map((f) => f.code)).toEqual(['leaf_over_limit']);
+		expect(over.failures[0].whatToDo).toMatch(/class for its measured size/);
+		expect(over.failures[0].whatToDo).toMatch(/scratch it/);
+		expect(atDesk({}, { ...mini, measured: { diameterIn: 4, leafIn: 2 } }).fits).toBe(true);
+		expect(measuredSizeClass(plant({ ...mini, measured: { diameterIn: 4, leafIn: 3 } }))).toBe(
+			'standard'
+		);
+		expect(measuredSizeClass(plant({ ...mini, measured: { diameterIn: 4, leafIn: 2.5 } }))).toBe(
+			'miniature'
+		);
 	});
 
 	it('has advice for every failure code, ending in a full stop', () => {

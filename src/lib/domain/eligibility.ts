@@ -22,6 +22,7 @@ import {
 	groupSizeClass,
 	isPlantGroup,
 	plantGroupOf,
+	type GroupSizeClass,
 	type RootType
 } from './plant-groups';
 
@@ -291,10 +292,13 @@ export function sizeClassForDiameter(diameterIn: number): SizeClass {
 
 /**
  * The size class a plant can be shown as once measured: its declared size class, unless the
- * measured diameter is over that size class's limit, in which case the size class of the
- * measured diameter. A plant is never moved down because it measures small.
+ * measured diameter (or, for a size class measured by the leaf, the longest leaf blade) is over
+ * that size class's limit, in which case the size class of the measurement. A plant is never
+ * moved down because it measures small.
  */
 export function measuredSizeClass(plant: PlantFacts): SizeClass {
+	const byLeaf = leafSizeClass(plant);
+	if (byLeaf) return byLeaf;
 	const diameter = plant.measured?.diameterIn;
 	const limit = diameterLimitOf(plant);
 	if (diameter === undefined || limit === null || diameter <= limit + LENGTH_TOLERANCE_IN) {
@@ -637,6 +641,8 @@ export interface DeskVerdict {
 const DESK_ADVICE: Partial<Record<FailureCode, string>> = {
 	diameter_over_limit:
 		'Move the entry to a class for its measured size (the classes that fit are listed), or scratch it if none fits.',
+	leaf_over_limit:
+		'The leaf blades are too long for this size class: move the entry to a class for its measured size (the classes that fit are listed), or scratch it if none fits.',
 	pot_over_limit:
 		'The plant cannot be shown in this pot in this class: move it to a class without this pot limit, or scratch it.',
 	too_many_crowns:
@@ -699,6 +705,28 @@ export function diameterLimitOf(
 	if (isAfricanViolet(plant)) return sizeLimitIn(plant.sizeClass);
 	const size = groupSizeClass(groupOf(plant), plant.sizeClass);
 	return size && size.measure === 'diameter' ? size.maxIn : null;
+}
+
+/**
+ * For a plant of a size class measured by the leaf whose longest leaf blade is over the limit:
+ * the first larger size class of its group that the measurements fit (a miniature Sinningia
+ * with long leaves is a standard one). Null otherwise.
+ */
+function leafSizeClass(plant: PlantFacts): SizeClass | null {
+	const leaf = plant.measured?.leafIn;
+	if (leaf === undefined || isAfricanViolet(plant)) return null;
+	const group = groupOf(plant);
+	const at = group.sizeClasses.findIndex((s) => s.key === plant.sizeClass);
+	const size = group.sizeClasses[at];
+	if (!size || size.measure !== 'leaf' || size.maxIn === null) return null;
+	if (leaf <= size.maxIn + LENGTH_TOLERANCE_IN) return null;
+	const diameter = plant.measured?.diameterIn;
+	const fits = (s: GroupSizeClass) =>
+		s.maxIn === null ||
+		(s.measure === 'leaf'
+			? leaf <= s.maxIn + LENGTH_TOLERANCE_IN
+			: diameter !== undefined && diameter <= s.maxIn + LENGTH_TOLERANCE_IN);
+	return group.sizeClasses.slice(at + 1).find(fits)?.key ?? null;
 }
 
 function groupOf(plant: Pick<PlantFacts, 'plantGroup'>) {

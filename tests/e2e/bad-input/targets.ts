@@ -280,7 +280,7 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 	'/desk/[slug]/entries/[number] action:checkIn': {
 		as: 'clerk',
 		corrupt: 'form',
-		fields: ['crowns', 'diameter', 'unit', 'note']
+		fields: ['crowns', 'diameter', 'leaf', 'unit', 'note']
 	},
 	'/desk/[slug]/entries/[number] action:move': {
 		as: 'clerk',
@@ -313,6 +313,7 @@ export const BAD_INPUT_TARGETS: Record<string, BadInputTarget> = {
 			'varietyId',
 			'acquiredOn',
 			'diameter',
+			'leaf',
 			'crowns',
 			'potSize',
 			'unit'

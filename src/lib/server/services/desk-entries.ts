@@ -3,7 +3,6 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { todayIn } from '$lib/domain/dates';
 import { deskTakesEntries, type DeskEntriesUntil } from '$lib/domain/desk-window';
 import { checkEligibility, withDeskAdvice, type DeskFailure } from '$lib/domain/eligibility';
-import { toInches } from '$lib/domain/units';
 import type { DeskEntryInput } from '$lib/schemas/desk';
 import {
 	Division,
@@ -18,6 +17,7 @@ import {
 } from '../db';
 import { initialFeeStatus } from '$lib/domain/dues';
 import { DeskProblem } from './desk-problem';
+import { inchesOf } from './desk-measures';
 import { NO_ADDRESS_DOMAIN, isStandInAddress } from '../mail/stand-in';
 import { classRulesOf, plantFactsOf, showContextOf } from './eligibility-input';
 import { exhibitorContextFor, withStandingHint } from './entries';
@@ -201,14 +201,18 @@ export async function enterAtDesk(
 	if (!variety) throw new DeskProblem('That variety is not in the society’s registry.');
 
 	const exhibitorId = await exhibitorFor(show, input, clerk.id, transaction);
-	const diameter = toInches(input.diameter, input.unit);
-	const pot = toInches(input.potSize, input.unit);
+	const { diameter, pot, leaf } = inchesOf(input);
 	const settings = await loadSocietySettings(show.societyId, { transaction });
 	const exhibitorIn = await exhibitorContextFor(show, exhibitorId, variety.id, { transaction });
 	const result = checkEligibility({
 		rules: classRulesOf(showClass),
 		plant: plantFactsOf(variety, input.acquiredOn, {
-			measured: { diameterIn: diameter, crowns: input.crowns, potIn: pot }
+			measured: {
+				diameterIn: diameter,
+				crowns: input.crowns,
+				potIn: pot,
+				...(leaf === null ? {} : { leafIn: leaf })
+			}
 		}),
 		show: showContextOf(show, todayIn(settings.timeZone), settings.lengthUnit),
 		exhibitor: exhibitorIn(showClass.id),
@@ -234,6 +238,7 @@ export async function enterAtDesk(
 			measuredDiameterIn: diameter.toFixed(2),
 			measuredCrowns: input.crowns,
 			potSizeIn: pot.toFixed(2),
+			measuredLeafIn: leaf === null ? null : leaf.toFixed(2),
 			checkedInAt: new Date(),
 			checkedInBy: clerk.id,
 			varietyId: variety.id,

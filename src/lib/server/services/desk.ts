@@ -9,9 +9,9 @@ import {
 	type PlantFacts
 } from '$lib/domain/eligibility';
 import { todayIn } from '$lib/domain/dates';
-import { toInches } from '$lib/domain/units';
 import type { CheckInInput } from '$lib/schemas/desk';
 import { DeskProblem } from './desk-problem';
+import { inchesOf } from './desk-measures';
 import { fixEntryNumbers, numberForNewEntry } from './entry-numbers';
 import { stageOfShow } from './show-stage';
 
@@ -105,6 +105,9 @@ export interface DeskEntry {
 	measuredDiameterIn: number | null;
 	measuredCrowns: number | null;
 	potSizeIn: number | null;
+	/** The longest leaf blade, and whether the plant's group sizes any of its plants by the leaf. */
+	measuredLeafIn: number | null;
+	sizedByLeaf: boolean;
 	checkedInAt: string | null;
 	deskNote: string | null;
 	verdict: DeskVerdict | null;
@@ -185,6 +188,14 @@ function groupWords(variety: Variety): { group: string; growthForm: string } {
 	};
 }
 
+/** Whether the variety's group has a size class measured by the longest leaf blade. */
+function sizedByLeaf(variety: Variety): boolean {
+	return (
+		isPlantGroup(variety.plantGroup) &&
+		plantGroupOf(variety.plantGroup).sizeClasses.some((s) => s.measure === 'leaf')
+	);
+}
+
 /** Loads an entry of a show by its number for the desk, or null. */
 export async function loadDeskEntry(show: Show, number: number): Promise<DeskEntry | null> {
 	const entry = await Entry.findOne({ where: { showId: show.id, number } });
@@ -220,6 +231,8 @@ export async function loadDeskEntry(show: Show, number: number): Promise<DeskEnt
 		measuredDiameterIn: entry.measuredDiameterIn === null ? null : Number(entry.measuredDiameterIn),
 		measuredCrowns: entry.measuredCrowns,
 		potSizeIn: entry.potSizeIn === null ? null : Number(entry.potSizeIn),
+		measuredLeafIn: entry.measuredLeafIn === null ? null : Number(entry.measuredLeafIn),
+		sizedByLeaf: variety ? sizedByLeaf(variety) : false,
 		checkedInAt: entry.checkedInAt ? entry.checkedInAt.toISOString() : null,
 		deskNote: entry.deskNote,
 		verdict: judged?.verdict ?? null,
@@ -274,15 +287,15 @@ export async function checkInEntry(
 		}
 		return entry.number;
 	}
-	const diameter = toInches(input.diameter, input.unit);
-	const pot = toInches(input.potSize, input.unit);
-	if (diameter >= 1000 || pot >= 100) throw new DeskProblem('Those measurements are too large.');
+	const { diameter, pot, leaf } = inchesOf(input);
 	await entry.update(
 		{
 			status: 'checked_in',
 			measuredDiameterIn: diameter.toFixed(2),
 			measuredCrowns: input.crowns,
 			potSizeIn: pot.toFixed(2),
+			// Measured again without a leaf length: the earlier one no longer stands.
+			measuredLeafIn: leaf === null ? null : leaf.toFixed(2),
 			checkedInAt: entry.checkedInAt ?? new Date(),
 			checkedInBy: entry.checkedInBy ?? clerkId
 		},

@@ -90,6 +90,8 @@ export interface StoredMeasurements {
 	measuredDiameterIn: string | number | null;
 	measuredCrowns: number | null;
 	potSizeIn: string | number | null;
+	/** The longest leaf blade (miniature Sinningia); absent or null while not measured. */
+	measuredLeafIn?: string | number | null;
 }
 
 /** The desk's measurements of an entry as the check reads them: only what was measured. */
@@ -98,6 +100,9 @@ export function measuredOf(entry: StoredMeasurements): NonNullable<PlantFacts['m
 	if (entry.measuredDiameterIn !== null) measured.diameterIn = Number(entry.measuredDiameterIn);
 	if (entry.measuredCrowns !== null) measured.crowns = entry.measuredCrowns;
 	if (entry.potSizeIn !== null) measured.potIn = Number(entry.potSizeIn);
+	if (entry.measuredLeafIn !== undefined && entry.measuredLeafIn !== null) {
+		measured.leafIn = Number(entry.measuredLeafIn);
+	}
 	return measured;
 }
 

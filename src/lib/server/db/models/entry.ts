@@ -27,6 +27,8 @@ export class Entry extends Model<InferAttributes<Entry>, InferCreationAttributes
 	declare measuredDiameterIn: string | null;
 	declare measuredCrowns: number | null;
 	declare potSizeIn: string | null;
+	/** The longest leaf blade, in inches (a miniature Sinningia is sized by it); null if not measured. */
+	declare measuredLeafIn: CreationOptional<string | null>;
 	declare checkedInAt: Date | null;
 	declare checkedInBy: string | null;
 	declare feeStatus: CreationOptional<EntryFeeStatus>;
@@ -55,6 +57,7 @@ export class Entry extends Model<InferAttributes<Entry>, InferCreationAttributes
 				measuredDiameterIn: { type: DataTypes.DECIMAL(5, 2) },
 				measuredCrowns: { type: DataTypes.INTEGER },
 				potSizeIn: { type: DataTypes.DECIMAL(4, 2) },
+				measuredLeafIn: { type: DataTypes.DECIMAL(4, 2) },
 				checkedInAt: { type: DataTypes.DATE },
 				checkedInBy: { type: DataTypes.UUID },
 				feeStatus: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'not_required' },

@@ -24,6 +24,7 @@ const FIELDS = [
 	'varietyId',
 	'acquiredOn',
 	'diameter',
+	'leaf',
 	'crowns',
 	'potSize',
 	'unit'

@@ -53,6 +53,7 @@ export const actions: Actions = {
 		const { show, user, entry } = await deskEntry(event);
 		const values = textFields(await event.request.formData(), [
 			'diameter',
+			'leaf',
 			'crowns',
 			'potSize',
 			'unit'
