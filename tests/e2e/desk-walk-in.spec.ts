@@ -216,7 +216,7 @@ test('the chair decides until when the desk takes new entries, and the desk says
 	await card.getByLabel('The desk takes no new entries').check();
 	await chair
 		.locator('form[action="?/deskEntries"]')
-		.getByRole('button', { name: 'Save this choice' })
+		.getByRole('button', { name: 'Save the desk’s choice' })
 		.click();
 	await expect(
 		chair.getByText('New entries at the desk: The desk takes no new entries.')
@@ -235,7 +235,7 @@ test('the chair decides until when the desk takes new entries, and the desk says
 	await card.getByLabel('Until the end of entry day').check();
 	await chair
 		.locator('form[action="?/deskEntries"]')
-		.getByRole('button', { name: 'Save this choice' })
+		.getByRole('button', { name: 'Save the desk’s choice' })
 		.click();
 	await expect(
 		chair.getByText('New entries at the desk: Until the end of entry day.')
