@@ -28,6 +28,7 @@ import {
 	moveEntry
 } from '../../src/lib/server/services/desk';
 import { queryEntriesTable } from '../../src/lib/server/services/entries-table';
+import { useConfig } from '../../src/lib/server/config';
 import { PhotoProblem, addEntryPhoto } from '../../src/lib/server/services/photos';
 import { isInGoodStanding } from '../../src/lib/server/services/standing';
 import { importVarietiesCsv } from '../../src/lib/server/services/varieties';
@@ -376,9 +377,11 @@ describe('entry photos', () => {
 	beforeAll(async () => {
 		dir = await mkdtemp(path.join(tmpdir(), 'cb-photos-'));
 		process.env.UPLOAD_DIR = dir;
+		useConfig(process.env);
 	});
 	afterAll(async () => {
 		delete process.env.UPLOAD_DIR;
+		useConfig(process.env);
 		await rm(dir, { recursive: true, force: true });
 	});
 

@@ -6,6 +6,7 @@ import { QueryTypes } from 'sequelize';
 import sharp from 'sharp';
 import { addCalendarDays, addCalendarMonths, todayIn } from '$lib/domain/dates';
 import { plantSchema } from '$lib/schemas/plants';
+import { useConfig } from '$lib/server/config';
 import { sequelize } from '$lib/server/db';
 import { PlantEntryRefused, createEntryFromPlant } from '$lib/server/services/plant-entries';
 import { addPlantPhoto, readPlantPhoto } from '$lib/server/services/plant-photos';
@@ -57,7 +58,9 @@ const tx = <T>(run: (transaction: import('sequelize').Transaction) => Promise<T>
 	sequelize.transaction(run);
 
 beforeAll(async () => {
+	// Settings are read once: the test's upload folder goes in as a setting, as a host sets it.
 	process.env.UPLOAD_DIR = await mkdtemp(path.join(os.tmpdir(), 'cb-uploads-'));
+	useConfig(process.env);
 	societyId = (await one<{ id: string }>(`SELECT id FROM societies WHERE slug = 'larkspur-valley'`))
 		.id;
 	// The demo spring show by its short name: other test files add shows to this society (the

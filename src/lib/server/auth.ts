@@ -6,6 +6,7 @@ import { buildSignInMessage } from './mail/sign-in-message';
 import { mailFrom, sendMail, smtpUrl } from './mail/transport';
 import { loadSessionUser } from './services/people';
 import { claimWalkIns } from './services/desk-entries';
+import { config } from '$lib/server/config';
 
 /** How long a sign-in link works. */
 export const SIGN_IN_LINK_MINUTES = 30;
@@ -40,7 +41,8 @@ export function findSessionUser(token: string) {
 let parsedAddress: { configured: string; origin: string; host: string } | null = null;
 
 function configuredAddress(): { origin: string; host: string } | undefined {
-	const configured = process.env.AUTH_URL || process.env.ORIGIN;
+	const settings = config();
+	const configured = settings.authUrl || settings.origin;
 	if (!configured) return undefined;
 	if (parsedAddress?.configured !== configured) {
 		const url = new URL(configured);
@@ -51,7 +53,7 @@ function configuredAddress(): { origin: string; host: string } | undefined {
 
 /** `AUTH_TRUST_HOST=true`: a proxy in front sets Host and X-Forwarded-Host, and Auth.js reads them. */
 function trustsProxyHost(): boolean {
-	return process.env.AUTH_TRUST_HOST === 'true';
+	return config().authTrustHost;
 }
 
 /** True when a Host header value is a plain host[:port] that a URL can be made of. */
@@ -111,9 +113,10 @@ export function isClosedAuthPath(method: string, path: string): boolean {
 }
 
 function authSecret(): string | undefined {
-	if (process.env.AUTH_SECRET) return process.env.AUTH_SECRET;
+	const settings = config();
+	if (settings.authSecret) return settings.authSecret;
 	// Development only: production refuses to start without AUTH_SECRET (Auth.js checks).
-	return process.env.NODE_ENV === 'production' ? undefined : 'crownbench-development-only-secret';
+	return settings.production ? undefined : 'crownbench-development-only-secret';
 }
 
 /** Auth.js set-up: e-mail link sign-in, sessions kept in PostgreSQL. */

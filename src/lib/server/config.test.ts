@@ -1,3 +1,5 @@
+import { readdirSync, readFileSync } from 'node:fs';
+import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { ConfigError, readConfig, societySignup } from './config';
 
@@ -47,6 +49,37 @@ describe('readConfig', () => {
 		});
 		// The older name of the worker switch still works.
 		expect(readConfig({ CB_OUTBOX_WORKER: 'off' }).worker).toBe(false);
+	});
+
+	it('gives the folders and the payment service settings the code reads, and nothing else does', () => {
+		const c = readConfig({});
+		expect(c.uploadDir).toBe(path.join(process.cwd(), '.data', 'uploads'));
+		expect(c.fontsDir).toBe(path.join(process.cwd(), 'fonts'));
+		expect(c.stripeApiPort).toBeUndefined();
+		expect(
+			readConfig({
+				UPLOAD_DIR: 'photos',
+				CB_FONTS_DIR: '/srv/fonts',
+				STRIPE_API_PORT: '12111',
+				STRIPE_API_PROTOCOL: 'http'
+			})
+		).toMatchObject({
+			uploadDir: path.resolve('photos'),
+			fontsDir: '/srv/fonts',
+			stripeApiPort: 12111,
+			stripeApiProtocol: 'http'
+		});
+		expect(() => readConfig({ STRIPE_API_PORT: 'http' })).toThrow(/STRIPE_API_PORT expects/);
+	});
+
+	it('is the only reader of process.env in the server code', () => {
+		const root = path.join(process.cwd(), 'src', 'lib', 'server');
+		const readers = readdirSync(root, { recursive: true, encoding: 'utf8' })
+			.filter((f) => f.endsWith('.ts') && !f.endsWith('.test.ts'))
+			.filter((f) => readFileSync(path.join(root, f), 'utf8').includes('process.env'))
+			.map((f) => f.split(path.sep).join('/'));
+		// config() itself, and the start-up checks, which are handed the environment to check.
+		expect(readers.sort()).toEqual(['config.ts', 'startup-checks.ts']);
 	});
 
 	it.each([

@@ -3,6 +3,7 @@
  * `$env/dynamic/private` (useConfig), scripts and tests read process.env on first use (config).
  * A wrong value stops the process with a message naming the variable and what it expects.
  */
+import path from 'node:path';
 import { z } from 'zod';
 
 type Env = Record<string, string | undefined>;
@@ -133,6 +134,14 @@ export interface Config {
 	reminders: boolean;
 	jobsPollSeconds: number;
 	stripeApiHost: string | undefined;
+	stripeSecretKey: string | undefined;
+	stripeWebhookSecret: string | undefined;
+	stripeApiPort: number | undefined;
+	stripeApiProtocol: 'http' | 'https' | undefined;
+	/** Where uploaded photos are kept: UPLOAD_DIR, default .data/uploads (git-ignored). */
+	uploadDir: string;
+	/** The TTF files PDFs are made with: CB_FONTS_DIR, default fonts/. */
+	fontsDir: string;
 	logLevel: (typeof LOG_LEVELS)[number];
 	/** The raw values, for the few readers that keep their own defaults. */
 	raw: Parsed;
@@ -218,6 +227,12 @@ export function readConfig(env: Env, checks: { production?: boolean } = {}): Con
 		reminders: c.CB_REMINDERS === 'on',
 		jobsPollSeconds: c.CB_JOBS_POLL_SECONDS,
 		stripeApiHost: c.STRIPE_API_HOST,
+		stripeSecretKey: c.STRIPE_SECRET_KEY,
+		stripeWebhookSecret: c.STRIPE_WEBHOOK_SECRET,
+		stripeApiPort: c.STRIPE_API_PORT,
+		stripeApiProtocol: c.STRIPE_API_PROTOCOL,
+		uploadDir: path.resolve(c.UPLOAD_DIR ?? path.join(process.cwd(), '.data', 'uploads')),
+		fontsDir: path.resolve(c.CB_FONTS_DIR ?? path.join(process.cwd(), 'fonts')),
 		logLevel: c.LOG_LEVEL,
 		raw: c
 	};

@@ -1,4 +1,5 @@
 import Stripe from 'stripe';
+import { config } from '$lib/server/config';
 
 /** The local payment fake (scripts/payment-fake.js) that development uses when nothing is set. */
 const DEV_SECRET_KEY = 'sk_test_crownbench_development_only';
@@ -13,15 +14,15 @@ let client: Stripe | null = null;
  */
 export function stripe(): Stripe {
 	if (client) return client;
-	const key = process.env.STRIPE_SECRET_KEY;
-	if (!key && process.env.NODE_ENV === 'production' && !process.env.STRIPE_API_HOST) {
+	const settings = config();
+	const key = settings.stripeSecretKey;
+	if (!key && settings.production && !settings.stripeApiHost) {
 		throw new Error('Payments are not set up: set STRIPE_SECRET_KEY.');
 	}
 	const fakeDefaults = !key;
-	const host = process.env.STRIPE_API_HOST || (fakeDefaults ? '127.0.0.1' : undefined);
-	const port = process.env.STRIPE_API_PORT || (fakeDefaults ? '12111' : undefined);
-	const protocol = (process.env.STRIPE_API_PROTOCOL || (fakeDefaults ? 'http' : undefined)) as
-		'http' | 'https' | undefined;
+	const host = settings.stripeApiHost || (fakeDefaults ? '127.0.0.1' : undefined);
+	const port = settings.stripeApiPort || (fakeDefaults ? 12111 : undefined);
+	const protocol = settings.stripeApiProtocol || (fakeDefaults ? 'http' : undefined);
 	client = new Stripe(key || DEV_SECRET_KEY, {
 		...(host ? { host } : {}),
 		...(port ? { port } : {}),
@@ -35,8 +36,9 @@ export function stripe(): Stripe {
 
 /** The secret that signs webhooks; null when payments are not set up in production. */
 export function webhookSecret(): string | null {
-	if (process.env.STRIPE_WEBHOOK_SECRET) return process.env.STRIPE_WEBHOOK_SECRET;
-	return process.env.NODE_ENV === 'production' ? null : DEV_WEBHOOK_SECRET;
+	const settings = config();
+	if (settings.stripeWebhookSecret) return settings.stripeWebhookSecret;
+	return settings.production ? null : DEV_WEBHOOK_SECRET;
 }
 
 /** Verifies a webhook's signature and returns the event; throws when it does not verify. */

@@ -2,6 +2,7 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import pdfmakeModule from 'pdfmake';
 import type { TDocumentDefinitions } from 'pdfmake/interfaces';
+import { config } from '$lib/server/config';
 
 /** The Source Sans 3 files shipped in fonts/ (TTF: pdfmake cannot read WOFF2). */
 const FONT_FILES = {
@@ -27,7 +28,7 @@ let ready = false;
 /** Loads the shipped fonts into pdfmake's virtual file system once; no file or URL is read later. */
 function prepare(): void {
 	if (ready) return;
-	const dir = process.env.CB_FONTS_DIR ?? path.join(process.cwd(), 'fonts');
+	const dir = config().fontsDir;
 	for (const file of Object.values(FONT_FILES)) {
 		pdfmake.virtualfs.writeFileSync(file, readFileSync(path.join(dir, file)));
 	}

@@ -8,6 +8,7 @@ import { recordAudit, type AuditActor } from '../audit';
 import { Entry, EntryPhoto, Show } from '../db';
 import { lockPhotosOf, PHOTO_LIMITS } from '../uploads';
 import { Refusal } from './refusal';
+import { config } from '$lib/server/config';
 
 /** Largest photo we accept, in bytes (PHOTO_LIMITS). */
 export const MAX_PHOTO_BYTES = PHOTO_LIMITS.maxBytes;
@@ -24,11 +25,6 @@ const ACCEPTED: Record<string, { ext: string; format: 'jpeg' | 'png' | 'webp' }>
 	'image/png': { ext: 'png', format: 'png' },
 	'image/webp': { ext: 'webp', format: 'webp' }
 };
-
-/** The folder for uploaded files: UPLOAD_DIR, or .data/uploads (git-ignored, outside static/). */
-export function uploadDir(): string {
-	return process.env.UPLOAD_DIR ?? path.join(process.cwd(), '.data', 'uploads');
-}
 
 /** A photo that is refused, in a plain sentence. */
 export class PhotoProblem extends Refusal {}
@@ -73,7 +69,7 @@ export async function addEntryPhoto(
 		throw new PhotoProblem('That photo cannot be read; it may be damaged.');
 	}
 	const fileName = `${randomUUID()}.${accepted.ext}`;
-	const dir = uploadDir();
+	const dir = config().uploadDir;
 	await mkdir(dir, { recursive: true });
 	const target = path.join(dir, fileName);
 	await writeFile(target, output.data, { flag: 'wx' });
@@ -112,7 +108,7 @@ export async function readEntryPhoto(
 	if (!photo || !/^[0-9a-f-]{36}\.(jpg|png|webp)$/.test(photo.fileName)) return null;
 	const entry = await Entry.findByPk(photo.entryId);
 	if (!entry) return null;
-	const data = await readFile(path.join(uploadDir(), photo.fileName)).catch(() => null);
+	const data = await readFile(path.join(config().uploadDir, photo.fileName)).catch(() => null);
 	return data ? { photo, entry, data } : null;
 }
 
@@ -140,5 +136,5 @@ export async function deleteEntryPhoto(
 		},
 		{ transaction }
 	);
-	await rm(path.join(uploadDir(), photo.fileName), { force: true });
+	await rm(path.join(config().uploadDir, photo.fileName), { force: true });
 }

@@ -8,6 +8,7 @@ import { recordAudit } from '../audit';
 import { Plant, PlantPhoto } from '../db';
 import { PlantInputError } from './plants';
 import { lockPhotosOf, PHOTO_LIMITS } from '../uploads';
+import { config } from '$lib/server/config';
 
 /** Largest photo accepted, before it is scaled down (PHOTO_LIMITS). */
 export const PHOTO_MAX_BYTES = PHOTO_LIMITS.maxBytes;
@@ -18,13 +19,8 @@ export const PHOTO_MAX_SIDE = 1600;
 /** The real file types accepted (read from the file's bytes, not its name). */
 export const PHOTO_TYPES = ['image/jpeg', 'image/png', 'image/webp'] as const;
 
-/** The folder photos are kept in: UPLOAD_DIR, default .data/uploads (outside static/, git-ignored). */
-export function uploadDir(): string {
-	return path.resolve(process.env.UPLOAD_DIR ?? path.join(process.cwd(), '.data', 'uploads'));
-}
-
 function photoPath(fileName: string): string {
-	return path.join(uploadDir(), 'plants', fileName);
+	return path.join(config().uploadDir, 'plants', fileName);
 }
 
 async function ownsPlant(ownerId: string, plantId: string, transaction?: Transaction) {

@@ -15,6 +15,7 @@ import { mailProgress, queueMail, resendMail, type MailProgress } from '../mail/
 import { buildResultsMessage } from '../mail/results-message';
 import { loadShowJudging, publishResults, type PublishOutcome } from './results';
 import { requestShowPdfs } from '../jobs/show-pdf';
+import { config } from '$lib/server/config';
 
 /** The outbox kind of placements e-mails. */
 export const RESULTS_MAIL_KIND = 'results';
@@ -234,7 +235,7 @@ export async function loadPublicResults(
 
 /** Where the links in placements e-mails lead. */
 function resultsLinks(origin: string, slug: string): { results: string; preferences: string } {
-	const base = (process.env.ORIGIN || origin).replace(/\/$/, '');
+	const base = (config().origin || origin).replace(/\/$/, '');
 	return { results: `${base}/shows/${slug}/results`, preferences: `${base}/my/mail` };
 }
 
