@@ -538,6 +538,32 @@ describe('reading the log', () => {
 		const other = await buildFixture();
 		expect((await listAuditLog({ societyId: other.societyId }, { page: 1 })).total).toBe(0);
 	});
+
+	it('filters by the society’s own days, not by UTC days', async () => {
+		const f = await buildFixture();
+		await sequelize.query(`UPDATE societies SET time_zone = 'America/New_York' WHERE id = :id`, {
+			replacements: { id: f.societyId }
+		});
+		// 03:00 UTC on 10 March 2026 is 23:00 on 9 March in New York: daylight time (UTC-4) starts
+		// on the second Sunday of March, 8 March 2026 (IANA time zone database, America/New_York).
+		await sequelize.query(
+			`INSERT INTO audit_events (society_id, action, actor_id, actor_label, target_kind, target_id, target_label, details, at)
+			 VALUES (:society, 'entry.scratch', :actor, 'chair', 'entry', '1', 'Entry 1', '{}', '2026-03-10T03:00:00Z')`,
+			{ replacements: { society: f.societyId, actor: chairOf(f).id } }
+		);
+		const on = (day: string) =>
+			listAuditLog({ societyId: f.societyId }, { page: 1, from: day, to: day });
+		expect((await on('2026-03-09')).total).toBe(1);
+		expect((await on('2026-03-10')).total).toBe(0);
+		const show = await showOf(f);
+		await sequelize.query(`UPDATE audit_events SET show_id = :show WHERE society_id = :society`, {
+			replacements: { show: show.id, society: f.societyId }
+		});
+		expect(
+			(await listAuditLog({ showId: show.id }, { page: 1, from: '2026-03-09', to: '2026-03-09' }))
+				.total
+		).toBe(1);
+	});
 });
 
 async function countWhere(

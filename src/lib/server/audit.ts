@@ -109,11 +109,18 @@ export async function listAuditLog(scope: AuditScope, filter: AuditQuery): Promi
 			  FROM score_audit s JOIN entries e ON e.id = s.entry_id
 			 WHERE ${bySociety ? 's.show_id IN (SELECT id FROM shows WHERE society_id = :scopeId)' : 's.show_id = :scopeId'}
 		)`;
+	// The days of the filter are the society's days, as the log shows its times: a day starts at
+	// midnight in the society's time zone, not in UTC.
+	const zone = bySociety
+		? '(SELECT time_zone FROM societies WHERE id = :scopeId)'
+		: '(SELECT so.time_zone FROM shows sh JOIN societies so ON so.id = sh.society_id WHERE sh.id = :scopeId)';
 	const where = `
 		 WHERE (CAST(:action AS text) IS NULL OR log.action = :action)
 		   AND (CAST(:personId AS uuid) IS NULL OR log.actor_id = CAST(:personId AS uuid))
-		   AND (CAST(:from AS date) IS NULL OR log.at >= CAST(:from AS date))
-		   AND (CAST(:to AS date) IS NULL OR log.at < CAST(:to AS date) + 1)`;
+		   AND (CAST(:from AS date) IS NULL
+		        OR log.at >= (CAST(:from AS date)::timestamp AT TIME ZONE ${zone}))
+		   AND (CAST(:to AS date) IS NULL
+		        OR log.at < ((CAST(:to AS date) + 1)::timestamp AT TIME ZONE ${zone}))`;
 	const [rows, counted, people] = await Promise.all([
 		sequelize.query<{
 			id: string;
