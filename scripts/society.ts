@@ -11,7 +11,7 @@ import { DEFAULT_SOCIETY_SETTINGS } from '../src/lib/domain/society-settings';
 import { startSocietySchema } from '../src/lib/schemas/society';
 import { DATABASE_DOWN_HINT, isDatabaseDown } from '../src/lib/server/db/connection';
 import { sequelize } from '../src/lib/server/db';
-import { SocietyError, startSociety } from '../src/lib/server/services/societies';
+import { SocietyError, startSociety } from '../src/lib/server/people/societies';
 
 const USAGE = `usage: npm run society -- create --name "Society name" --slug short-name --admin someone@example.org
        [--admin-name "Their name"] [--country US] [--unit in|cm] [--paper letter|a4]

@@ -10,7 +10,7 @@ import {
 	SESSION_COOKIES,
 	sessionTokenOf
 } from '$lib/server/auth';
-import { resultsPageCache } from '$lib/server/cache/results';
+import { resultsPageCache } from '$lib/server/results/cache';
 import { useConfig } from '$lib/server/config';
 import { sequelize } from '$lib/server/db';
 import { DATABASE_DOWN_MESSAGE, isDatabaseDown } from '$lib/server/db/connection';

@@ -3,25 +3,12 @@
  * peak memory (resident set, as the kernel counts it) are the PDF's alone. Prints one JSON line.
  *   node --import tsx scripts/bench/measure-pdf.ts <showId>
  */
+import { loadShowResults } from '../../src/lib/server/results/show-results';
+import { renderAwardSheets } from '../../src/lib/server/results/documents/award-sheets';
 const showId = process.argv[2];
 
 /** The award sheets as the chair downloads them: the published results, then the PDF. */
 async function buildAwardSheets(id: string): Promise<Buffer> {
-	// Loaded by name at run time: the award-sheet PDF comes with the results work (issue 5).
-	const services = '../../src/lib/server/services/show-results';
-	const pdfs = '../../src/lib/server/pdf/award-sheets';
-	let loadShowResults: (showId: string) => Promise<unknown>;
-	let renderAwardSheets: (results: unknown, paper: 'letter' | 'a4') => Promise<Buffer>;
-	try {
-		({ loadShowResults } = (await import(services)) as {
-			loadShowResults: typeof loadShowResults;
-		});
-		({ renderAwardSheets } = (await import(pdfs)) as {
-			renderAwardSheets: typeof renderAwardSheets;
-		});
-	} catch {
-		throw new Error('The award-sheet PDF is not built yet (issue 5): not yet measurable.');
-	}
 	const results = await loadShowResults(id);
 	if (!results) throw new Error('The show has no published results.');
 	return renderAwardSheets(results, 'letter');

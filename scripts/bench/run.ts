@@ -79,7 +79,7 @@ const round = (n: number, digits = 2) => Math.round(n * 10 ** digits) / 10 ** di
 
 /** Times the awards engine in this process: median of repeated runs on the show's judging. */
 async function timeAwards(show: BenchShow) {
-	const { loadShowJudging, awardsOf } = await import('../../src/lib/server/services/results');
+	const { loadShowJudging, awardsOf } = await import('../../src/lib/server/results/results');
 	const judging = await loadShowJudging(show.showId);
 	for (let i = 0; i < 5; i++) awardsOf(judging);
 	const engine: number[] = [];
@@ -107,7 +107,7 @@ async function timeAwards(show: BenchShow) {
 /** Publishes the show's results in one transaction, as the chair's publish button does. */
 async function publish(show: BenchShow): Promise<number> {
 	const { sequelize } = await import('../../src/lib/server/db');
-	const { publishResults } = await import('../../src/lib/server/services/results');
+	const { publishResults } = await import('../../src/lib/server/results/results');
 	const t = performance.now();
 	await sequelize.transaction((transaction) =>
 		publishResults({ id: show.chairId }, show.showId, { transaction })

@@ -1,4 +1,4 @@
-import { listPublicShows } from '$lib/server/services/shows';
+import { listPublicShows } from '$lib/server/shows/shows';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async () => ({ shows: await listPublicShows() });

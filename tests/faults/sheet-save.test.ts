@@ -2,7 +2,7 @@
  * Score sheet saves through the built app (`node build`: adapter-node's own server, SvelteKit's
  * hooks, the route `PUT /api/judging/sheets`). The save has one way in: the hooks read the session
  * (one statement; Auth.js only for a session due for its daily extension), the guard lets judges
- * and clerks through, and the route answers with `answerSheetChange` (src/lib/server/sheet-save.ts).
+ * and clerks through, and the route answers with `answerSheetChange` (src/lib/server/judging/sheet-save.ts).
  * These are the answers a judge's tablet relies on, with the security headers of every API answer,
  * and what the app answers to saves it must not take. Runs against the demo seed of the fault
  * tests' private cluster, in a show of its own.

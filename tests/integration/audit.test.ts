@@ -22,25 +22,25 @@ import {
 	checkInEntry,
 	moveEntry,
 	scratchEntry
-} from '../../src/lib/server/services/desk';
-import { removeDuesPeriod } from '../../src/lib/server/services/dues';
-import { enterPlant, withdrawEntry } from '../../src/lib/server/services/entries';
-import { changeMemberRoles } from '../../src/lib/server/services/members';
+} from '../../src/lib/server/entries/desk';
+import { removeDuesPeriod } from '../../src/lib/server/payments/dues';
+import { enterPlant, withdrawEntry } from '../../src/lib/server/entries/entries';
+import { changeMemberRoles } from '../../src/lib/server/people/members';
 import {
 	assignClass,
 	deletePanel,
 	removeJudge,
 	setClerk
-} from '../../src/lib/server/services/panels';
-import { deleteEntryPhoto } from '../../src/lib/server/services/photos';
-import { deletePlantPhoto } from '../../src/lib/server/services/plant-photos';
-import { deletePlantEvent, setPlantGone } from '../../src/lib/server/services/plants';
-import { publishResults } from '../../src/lib/server/services/results';
+} from '../../src/lib/server/judging/panels';
+import { deleteEntryPhoto } from '../../src/lib/server/entries/photos';
+import { deletePlantPhoto } from '../../src/lib/server/plants/plant-photos';
+import { deletePlantEvent, setPlantGone } from '../../src/lib/server/plants/plants';
+import { publishResults } from '../../src/lib/server/results/results';
 import {
 	deleteClass,
 	deleteDivision,
 	setSchedulePublished
-} from '../../src/lib/server/services/schedule';
+} from '../../src/lib/server/shows/schedule';
 import { buildFixture, removeFixtures, type Fixture } from './judging-fixture';
 
 /**

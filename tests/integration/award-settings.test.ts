@@ -2,10 +2,10 @@ import { QueryTypes } from 'sequelize';
 import { afterAll, describe, expect, it } from 'vitest';
 import { PDFParse } from 'pdf-parse';
 import { sequelize } from '../../src/lib/server/db';
-import { saveSheet } from '../../src/lib/server/services/judging';
-import { renderAwardSheets } from '../../src/lib/server/pdf/award-sheets';
-import { awardsOf, loadShowJudging, publishResults } from '../../src/lib/server/services/results';
-import { loadShowResults } from '../../src/lib/server/services/show-results';
+import { saveSheet } from '../../src/lib/server/judging/judging';
+import { renderAwardSheets } from '../../src/lib/server/results/documents/award-sheets';
+import { awardsOf, loadShowJudging, publishResults } from '../../src/lib/server/results/results';
+import { loadShowResults } from '../../src/lib/server/results/show-results';
 import { buildFixture, deductions, removeFixtures, sheetChange } from './judging-fixture';
 
 afterAll(removeFixtures);

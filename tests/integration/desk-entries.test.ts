@@ -17,9 +17,9 @@ import {
 	DeskEntryRefused,
 	claimWalkIns,
 	enterAtDesk
-} from '../../src/lib/server/services/desk-entries';
-import { checkInEntry, loadDeskEntry } from '../../src/lib/server/services/desk';
-import { DeskProblem } from '../../src/lib/server/services/desk-problem';
+} from '../../src/lib/server/entries/desk-entries';
+import { checkInEntry, loadDeskEntry } from '../../src/lib/server/entries/desk';
+import { DeskProblem } from '../../src/lib/server/entries/desk-problem';
 
 let spring: Show;
 let show: Show;

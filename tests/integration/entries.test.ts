@@ -20,18 +20,18 @@ import {
 	createEntry,
 	enterPlant,
 	previewEntry
-} from '../../src/lib/server/services/entries';
+} from '../../src/lib/server/entries/entries';
 import {
 	DeskProblem,
 	checkInEntry,
 	loadDeskEntry,
 	moveEntry
-} from '../../src/lib/server/services/desk';
-import { queryEntriesTable } from '../../src/lib/server/services/entries-table';
+} from '../../src/lib/server/entries/desk';
+import { queryEntriesTable } from '../../src/lib/server/entries/entries-table';
 import { useConfig } from '../../src/lib/server/config';
-import { PhotoProblem, addEntryPhoto } from '../../src/lib/server/services/photos';
-import { isInGoodStanding } from '../../src/lib/server/services/standing';
-import { importVarietiesCsv } from '../../src/lib/server/services/varieties';
+import { PhotoProblem, addEntryPhoto } from '../../src/lib/server/entries/photos';
+import { isInGoodStanding } from '../../src/lib/server/people/standing';
+import { importVarietiesCsv } from '../../src/lib/server/plants/varieties';
 import { entriesQuerySchema } from '../../src/lib/schemas/desk';
 
 let show: Show;

@@ -3,7 +3,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { QueryTypes } from 'sequelize';
 import { Variety, sequelize } from '../../src/lib/server/db';
 import { createMigrator, createSeeder } from '../../src/lib/server/db/migrator';
-import { exportVarietiesCsv, importVarietiesCsv } from '../../src/lib/server/services/varieties';
+import { exportVarietiesCsv, importVarietiesCsv } from '../../src/lib/server/plants/varieties';
 
 const MIGRATION = '20261215300100-varieties-of-every-gesneriad-group.cjs';
 const SEEDER = '20261215300500-demo-gesneriad-division.cjs';

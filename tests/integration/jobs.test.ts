@@ -7,7 +7,7 @@ import {
 	requestShowPdfs,
 	showPdfStates,
 	SHOW_DOCUMENTS
-} from '$lib/server/jobs/show-pdf';
+} from '$lib/server/results/documents/show-pdf';
 import { REMINDER_CRON, startJobWorker, workDueJobs } from '$lib/server/jobs/worker';
 import { jobsFor } from './jobs';
 

@@ -5,15 +5,15 @@ import {
 	listJudgingPagesToKeep,
 	loadJudgeClass,
 	saveSheet
-} from '../../src/lib/server/services/judging';
-import { addJudge, assignClass, setClerk } from '../../src/lib/server/services/panels';
-import { Refusal } from '../../src/lib/server/services/refusal';
+} from '../../src/lib/server/judging/judging';
+import { addJudge, assignClass, setClerk } from '../../src/lib/server/judging/panels';
+import { Refusal } from '../../src/lib/server/http/refusal';
 import {
 	awardsOf,
 	loadBoard,
 	loadShowJudging,
 	publishResults
-} from '../../src/lib/server/services/results';
+} from '../../src/lib/server/results/results';
 import {
 	buildFixture,
 	countFor,

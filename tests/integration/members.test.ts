@@ -7,7 +7,7 @@ import {
 	changeMemberRoles,
 	inviteMember,
 	listMembers
-} from '$lib/server/services/members';
+} from '$lib/server/people/members';
 
 const query = (q: Record<string, unknown> = {}) => memberQuerySchema.parse(q);
 const today = '2027-01-15';

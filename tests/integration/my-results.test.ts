@@ -1,14 +1,14 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { sequelize } from '../../src/lib/server/db';
-import { saveSheet } from '../../src/lib/server/services/judging';
+import { saveSheet } from '../../src/lib/server/judging/judging';
 import {
 	listMyEntries,
 	loadMyEntryResult,
 	loadMyRecord,
 	loadSocietyRecord,
 	setSharePointsLost
-} from '../../src/lib/server/services/my-results';
-import { publishResults } from '../../src/lib/server/services/results';
+} from '../../src/lib/server/results/my-results';
+import { publishResults } from '../../src/lib/server/results/results';
 import { buildFixture, deductions, removeFixtures, sheetChange } from './judging-fixture';
 
 afterAll(async () => {

@@ -14,10 +14,10 @@ import {
 	sequelize
 } from '$lib/server/db';
 import { stripe, webhookSecret } from '$lib/server/payments/stripe';
-import { startDuesCheckout, startEntryFeeCheckout } from '$lib/server/services/payments';
-import { withdrawEntry } from '$lib/server/services/entries';
-import { feeStatusForNewEntry } from '$lib/server/services/entry-fees';
-import { sendRefund, settleFeeOfWithdrawnEntry } from '$lib/server/services/refunds';
+import { startDuesCheckout, startEntryFeeCheckout } from '$lib/server/payments/payments';
+import { withdrawEntry } from '$lib/server/entries/entries';
+import { feeStatusForNewEntry } from '$lib/server/entries/entry-fees';
+import { sendRefund, settleFeeOfWithdrawnEntry } from '$lib/server/payments/refunds';
 import { workDueJobs } from '$lib/server/jobs/worker';
 import { jobsFor } from './jobs';
 import { POST } from '../../src/routes/api/payments/webhook/+server';

@@ -8,8 +8,8 @@ import { addCalendarDays, addCalendarMonths, todayIn } from '$lib/domain/dates';
 import { plantSchema } from '$lib/schemas/plants';
 import { useConfig } from '$lib/server/config';
 import { sequelize } from '$lib/server/db';
-import { PlantEntryRefused, createEntryFromPlant } from '$lib/server/services/plant-entries';
-import { addPlantPhoto, readPlantPhoto } from '$lib/server/services/plant-photos';
+import { PlantEntryRefused, createEntryFromPlant } from '$lib/server/plants/plant-entries';
+import { addPlantPhoto, readPlantPhoto } from '$lib/server/plants/plant-photos';
 import {
 	PlantInputError,
 	addPlantEvent,
@@ -19,14 +19,14 @@ import {
 	listPlants,
 	potUpSucker,
 	updatePlant
-} from '$lib/server/services/plants';
-import { setMailPreferences } from '$lib/server/services/mail-preferences';
-import { assessCollections, loadShowForReadiness } from '$lib/server/services/readiness';
+} from '$lib/server/plants/plants';
+import { setMailPreferences } from '$lib/server/people/mail-preferences';
+import { assessCollections, loadShowForReadiness } from '$lib/server/plants/readiness';
 import {
 	REMINDER_KIND,
 	queueDueReminders,
 	queueEntryReminders
-} from '$lib/server/services/reminders';
+} from '$lib/server/plants/reminders';
 
 const today = todayIn('UTC');
 let societyId: string;

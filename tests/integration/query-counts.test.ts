@@ -8,20 +8,20 @@ import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { entriesQuerySchema } from '../../src/lib/schemas/desk';
 import { sequelize } from '../../src/lib/server/db';
-import { entriesCsv, queryEntriesTable } from '../../src/lib/server/services/entries-table';
-import { loadPublicResults, loadShowResults } from '../../src/lib/server/services/show-results';
+import { entriesCsv, queryEntriesTable } from '../../src/lib/server/entries/entries-table';
+import { loadPublicResults, loadShowResults } from '../../src/lib/server/results/show-results';
 import {
 	listJudgeAssignments,
 	loadJudgeClass,
 	saveSheet
-} from '../../src/lib/server/services/judging';
+} from '../../src/lib/server/judging/judging';
 import {
 	awardsOf,
 	loadBoard,
 	loadPublishedAwards,
 	loadShowJudging,
 	publishResults
-} from '../../src/lib/server/services/results';
+} from '../../src/lib/server/results/results';
 import { buildFixture, deductions, removeFixtures, type Fixture } from './judging-fixture';
 
 /** Runs `work` and returns how many SQL statements it sent. */

@@ -3,7 +3,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 // The limits are read when the module loads: set small ones for this file.
 process.env.CB_SIGNIN_LIMIT_PER_ADDRESS = '3';
 process.env.CB_SIGNIN_LIMIT_PER_IP = '5';
-const { takeSignInAttempt } = await import('$lib/server/rate-limit');
+const { takeSignInAttempt } = await import('$lib/server/http/rate-limit');
 const { sequelize } = await import('$lib/server/db');
 
 afterAll(() => sequelize.close());

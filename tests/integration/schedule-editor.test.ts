@@ -7,15 +7,15 @@ import { scaleSchema } from '../../src/lib/schemas/scale';
 import { classSchema, scheduleTextSchema, type ClassInput } from '../../src/lib/schemas/show';
 import { Scale, Show, ShowClass, sequelize } from '../../src/lib/server/db';
 import { renderPdf } from '../../src/lib/server/pdf/render';
-import { scheduleDocument } from '../../src/lib/server/pdf/schedule';
-import { EntryRefused, enterPlant, previewEntry } from '../../src/lib/server/services/entries';
+import { scheduleDocument } from '../../src/lib/server/shows/schedule-pdf';
+import { EntryRefused, enterPlant, previewEntry } from '../../src/lib/server/entries/entries';
 import {
 	ScaleProblem,
 	copyScale,
 	createScale,
 	listSocietyScales,
 	updateScale
-} from '../../src/lib/server/services/scales';
+} from '../../src/lib/server/shows/scales';
 import {
 	ScheduleProblem,
 	loadSchedule,
@@ -25,7 +25,7 @@ import {
 	saveDivision,
 	saveScheduleText,
 	settingsOf
-} from '../../src/lib/server/services/schedule';
+} from '../../src/lib/server/shows/schedule';
 
 const tag = randomUUID().slice(0, 8);
 const made = { societies: [] as string[], users: [] as string[] };

@@ -1,11 +1,11 @@
 import { isHttpError, isRedirect } from '@sveltejs/kit';
 import { afterAll, describe, expect, it } from 'vitest';
 import { sequelize, Show } from '../../src/lib/server/db';
-import { cachedSchedulePdf } from '../../src/lib/server/cache/schedule-pdf';
-import { loadPublicSchedule } from '../../src/lib/server/services/public-schedule';
+import { cachedSchedulePdf } from '../../src/lib/server/shows/schedule-pdf-cache';
+import { loadPublicSchedule } from '../../src/lib/server/shows/public-schedule';
 import { GET as schedulePdf } from '../../src/routes/shows/[slug]/schedule.pdf/+server';
 import { areaOf } from '../../src/lib/server/policies';
-import { loadSignedInUser } from '../../src/lib/server/services/people';
+import { loadSignedInUser } from '../../src/lib/server/people/people';
 import { productionSettingProblems } from '../../src/lib/server/startup-checks';
 import { GET as openTag } from '../../src/routes/e/[slug]/[number]/+server';
 import { buildFixture, removeFixtures } from './judging-fixture';

@@ -4,7 +4,7 @@ import { PDFParse } from 'pdf-parse';
 import { sequelize } from '$lib/server/db';
 import { workDueJobs } from '$lib/server/jobs/worker';
 import { makeJobsDue } from './jobs';
-import { renderAwardSheets } from '$lib/server/pdf/award-sheets';
+import { renderAwardSheets } from '$lib/server/results/documents/award-sheets';
 import { eachEntry } from '$lib/results/assemble';
 import { awardLine } from '$lib/results/labels';
 import {
@@ -13,7 +13,7 @@ import {
 	loadShowResults,
 	publishResultsAndTell,
 	resendResultsMail
-} from '$lib/server/services/show-results';
+} from '$lib/server/results/show-results';
 import { mailFor } from '../e2e/support/mail';
 
 // The judged autumn show of the demo seed (seeders/20261206000500-demo-judged-autumn-show.cjs):
@@ -204,7 +204,7 @@ describe('publishing results with placements e-mails', () => {
 
 	it('a second queueing sends nothing twice; the chair can resend one message of this show only', async () => {
 		const again = await sequelize.transaction(async (transaction) => {
-			const { queueResultsMail } = await import('$lib/server/services/show-results');
+			const { queueResultsMail } = await import('$lib/server/results/show-results');
 			return queueResultsMail(showId, { transaction, origin: 'http://127.0.0.1' });
 		});
 		expect(again).toBe(0);

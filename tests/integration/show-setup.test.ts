@@ -12,10 +12,10 @@ import {
 	User,
 	sequelize
 } from '../../src/lib/server/db';
-import { setShowFee } from '../../src/lib/server/services/dues';
-import { addJudge, assignClass, createPanel, setClerk } from '../../src/lib/server/services/panels';
-import { isRefusal } from '../../src/lib/server/services/refusal';
-import { saveAwardRules } from '../../src/lib/server/services/results';
+import { setShowFee } from '../../src/lib/server/payments/dues';
+import { addJudge, assignClass, createPanel, setClerk } from '../../src/lib/server/judging/panels';
+import { isRefusal } from '../../src/lib/server/http/refusal';
+import { saveAwardRules } from '../../src/lib/server/results/results';
 import {
 	ScheduleProblem,
 	awardRulesOf,
@@ -24,8 +24,8 @@ import {
 	saveClass,
 	saveDivision,
 	setSchedulePublished
-} from '../../src/lib/server/services/schedule';
-import { copyShow, createShow, type SetupActor } from '../../src/lib/server/services/show-setup';
+} from '../../src/lib/server/shows/schedule';
+import { copyShow, createShow, type SetupActor } from '../../src/lib/server/shows/show-setup';
 import type { ClassInput } from '../../src/lib/schemas/show';
 import { PUBLISHED_CRITERIA } from './judging-fixture';
 

@@ -11,7 +11,7 @@ import {
 	SocietyError,
 	startSociety,
 	updateSocietySettings
-} from '$lib/server/services/societies';
+} from '$lib/server/people/societies';
 
 import { actions, load } from '../../src/routes/societies/new/+page.server';
 import { useConfig } from '$lib/server/config';

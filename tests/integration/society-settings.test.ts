@@ -2,11 +2,11 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Division, Show, ShowClass, Society, sequelize } from '$lib/server/db';
 import { renderPdf } from '$lib/server/pdf/render';
 import { A4_POINTS, LETTER_POINTS, readPdf } from '$lib/server/pdf/read-pdf';
-import { scheduleDocument } from '$lib/server/pdf/schedule';
-import { loadPublicSchedule } from '$lib/server/services/public-schedule';
-import { listShowsTakingEntries } from '$lib/server/services/shows';
-import { loadSocietySettings } from '$lib/server/services/society-settings';
-import { societyToday } from '$lib/server/services/society-today';
+import { scheduleDocument } from '$lib/server/shows/schedule-pdf';
+import { loadPublicSchedule } from '$lib/server/shows/public-schedule';
+import { listShowsTakingEntries } from '$lib/server/shows/shows';
+import { loadSocietySettings } from '$lib/server/people/society-settings';
+import { societyToday } from '$lib/server/people/society-today';
 
 // A society of its own, set up the way a British society would be: cm, A4, Europe/London, GBP.
 // Its twin keeps the defaults (in, Letter, America/New_York, USD). Neither touches the demo rows.

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { entryNumberFromScan } from './scan';
 
-// The tag's QR code holds the tag address the tags PDF prints (src/lib/server/pdf/tags.ts).
+// The tag's QR code holds the tag address the tags PDF prints (src/lib/server/entries/tags-pdf.ts).
 describe('entryNumberFromScan', () => {
 	it.each<[string, number | null]>([
 		['https://shows.example.org/e/spring-show/417', 417],

@@ -4,8 +4,8 @@ import Nodemailer from '@auth/sveltekit/providers/nodemailer';
 import { Account, Session, User, VerificationToken, sequelize } from './db';
 import { buildSignInMessage } from './mail/sign-in-message';
 import { mailFrom, sendMail, smtpUrl } from './mail/transport';
-import { loadSessionUser } from './services/people';
-import { claimWalkIns } from './services/desk-entries';
+import { loadSessionUser } from './people/people';
+import { claimWalkIns } from './entries/desk-entries';
 import { config } from '$lib/server/config';
 
 /** How long a sign-in link works. */

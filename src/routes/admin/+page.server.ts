@@ -1,7 +1,7 @@
 import { requireRole } from '$lib/server/policies';
-import { listDuesPeriods } from '$lib/server/services/dues';
-import { listMembers } from '$lib/server/services/members';
-import { chooseSociety } from '$lib/server/society-choice';
+import { listDuesPeriods } from '$lib/server/payments/dues';
+import { listMembers } from '$lib/server/people/members';
+import { chooseSociety } from '$lib/server/people/society-choice';
 import { memberQuerySchema } from '$lib/schemas/members';
 import type { PageServerLoad } from './$types';
 

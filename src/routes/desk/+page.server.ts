@@ -1,5 +1,5 @@
 import { requireRole, societiesWithRole } from '$lib/server/policies';
-import { listShowsOfSocieties } from '$lib/server/services/shows';
+import { listShowsOfSocieties } from '$lib/server/shows/shows';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

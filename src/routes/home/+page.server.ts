@@ -2,7 +2,7 @@ import { redirect } from '@sveltejs/kit';
 import { ROLE_HOMES, ROLE_LABELS, ROLES } from '$lib/roles';
 import { societySignup } from '$lib/server/config';
 import { requireUser } from '$lib/server/policies';
-import { listOwnEntries } from '$lib/server/services/desk-entries';
+import { listOwnEntries } from '$lib/server/entries/desk-entries';
 import type { PageServerLoad } from './$types';
 
 /** After sign-in: one role goes straight to its page; several get a choice; none get an explanation. */

@@ -1,5 +1,5 @@
 import { requireRole } from '$lib/server/policies';
-import { listJudgingPagesToKeep } from '$lib/server/services/judging';
+import { listJudgingPagesToKeep } from '$lib/server/judging/judging';
 import { PERSON_HEADER } from '$lib/judging/tablet-names';
 import type { LayoutServerLoad } from './$types';
 

@@ -1,5 +1,5 @@
 import { requireRole } from '$lib/server/policies';
-import { listJudgeAssignments } from '$lib/server/services/judging';
+import { listJudgeAssignments } from '$lib/server/judging/judging';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

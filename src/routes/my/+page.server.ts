@@ -1,6 +1,6 @@
 import { requireRole, societiesWithRole } from '$lib/server/policies';
-import { groupByShow, listMyEntries } from '$lib/server/services/my-results';
-import { listShowsTakingEntries } from '$lib/server/services/shows';
+import { groupByShow, listMyEntries } from '$lib/server/results/my-results';
+import { listShowsTakingEntries } from '$lib/server/shows/shows';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

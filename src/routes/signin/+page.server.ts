@@ -1,6 +1,6 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { signIn } from '$lib/server/auth';
-import { takeSignInAttempt } from '$lib/server/rate-limit';
+import { takeSignInAttempt } from '$lib/server/http/rate-limit';
 import { safeNextPath, signInSchema } from '$lib/schemas/sign-in';
 import type { Actions, PageServerLoad } from './$types';
 

@@ -1,10 +1,10 @@
 /**
- * The two ways a refused rule (a `Refusal`, services/refusal.ts) becomes an answer: a form
+ * The two ways a refused rule (a `Refusal`, http/refusal.ts) becomes an answer: a form
  * action's failure and an API's JSON answer. Anything that is not a Refusal is thrown on, so an
  * unexpected error still reaches handleError.
  */
 import { fail, type ActionFailure } from '@sveltejs/kit';
-import { isRefusal, type Refusal } from '../services/refusal';
+import { isRefusal, type Refusal } from './refusal';
 
 /** What a form page reads from a refusal: the message and the field it concerns. */
 export interface RefusedForm {

@@ -11,11 +11,11 @@ import { config } from '../config';
 import { sequelize } from '../db';
 import { errorFields, logger } from '../log';
 import { deliverMessage } from '../mail/outbox';
-import { sendRefund } from '../services/refunds';
-import { queueDueReminders } from '../services/reminders';
+import { sendRefund } from '../payments/refunds';
+import { queueDueReminders } from '../plants/reminders';
 import { forgetJobBoss, JOB_SCHEMA, jobBoss } from './boss';
 import { BadJobPayload, checkJobPayload, type JobName } from './queues';
-import { buildShowPdfJob } from './show-pdf';
+import { buildShowPdfJob } from '../results/documents/show-pdf';
 
 /** The reminders' schedule: minute 7 of every hour (cron, UTC); one job per slot for all workers. */
 export const REMINDER_CRON = '7 * * * *';

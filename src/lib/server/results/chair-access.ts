@@ -1,6 +1,6 @@
 import { error, type RequestEvent } from '@sveltejs/kit';
 import { requireRole } from '../policies';
-import { findResultsShow, type ResultsShow } from '../services/show-results';
+import { findResultsShow, type ResultsShow } from './show-results';
 
 /** The show at this address, for a chair of its society: 404 unknown, 401/403 otherwise. */
 export async function requireChairShow(

@@ -1,8 +1,8 @@
 import { requireRole } from '$lib/server/policies';
 import { listAuditLog } from '$lib/server/audit';
 import { readAuditQuery } from '$lib/schemas/audit';
-import { chooseSociety } from '$lib/server/society-choice';
-import { loadSocietySettings } from '$lib/server/services/society-settings';
+import { chooseSociety } from '$lib/server/people/society-choice';
+import { loadSocietySettings } from '$lib/server/people/society-settings';
 import type { PageServerLoad } from './$types';
 
 /** The society's audit log: every destructive action and score change, newest first. */

@@ -4,10 +4,10 @@ import { CURRENCIES } from '$lib/domain/money';
 import { ENTRY_FEE_REFUND_LABELS, ENTRY_FEE_REFUNDS } from '$lib/domain/dues';
 import { currencySchema, duesPeriodSchema, showFeeSchema } from '$lib/schemas/payments';
 import { Society, sequelize } from '$lib/server/db';
-import { requireConfirmation } from '$lib/server/confirm';
+import { requireConfirmation } from '$lib/server/http/confirm';
 import { requireRole } from '$lib/server/policies';
-import * as dues from '$lib/server/services/dues';
-import { chooseSociety } from '$lib/server/society-choice';
+import * as dues from '$lib/server/payments/dues';
+import { chooseSociety } from '$lib/server/people/society-choice';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

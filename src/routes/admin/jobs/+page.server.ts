@@ -3,8 +3,8 @@ import { z } from 'zod';
 import { sequelize } from '$lib/server/db';
 import { listFailedJobs, retryFailedJob } from '$lib/server/jobs/failed';
 import { requireRole } from '$lib/server/policies';
-import { loadSocietySettings } from '$lib/server/services/society-settings';
-import { chooseSociety } from '$lib/server/society-choice';
+import { loadSocietySettings } from '$lib/server/people/society-settings';
+import { chooseSociety } from '$lib/server/people/society-choice';
 import type { Actions, PageServerLoad } from './$types';
 
 /** The society's background jobs that failed for good (e-mails, refunds, documents), newest first. */

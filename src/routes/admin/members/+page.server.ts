@@ -14,8 +14,8 @@ import {
 	changeMemberRoles,
 	inviteMember,
 	listMembers
-} from '$lib/server/services/members';
-import { chooseSociety } from '$lib/server/society-choice';
+} from '$lib/server/people/members';
+import { chooseSociety } from '$lib/server/people/society-choice';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

@@ -3,8 +3,8 @@ import { z } from 'zod';
 import { editSocietySchema, societyFormOptions, societyFormValues } from '$lib/schemas/society';
 import { sequelize } from '$lib/server/db';
 import { requireRole } from '$lib/server/policies';
-import { loadSocietyFields, updateSocietySettings } from '$lib/server/services/societies';
-import { chooseSociety } from '$lib/server/society-choice';
+import { loadSocietyFields, updateSocietySettings } from '$lib/server/people/societies';
+import { chooseSociety } from '$lib/server/people/society-choice';
 import type { Actions, PageServerLoad } from './$types';
 import { refusedForm } from '$lib/server/http/refusals';
 

@@ -2,7 +2,7 @@ import { error, json } from '@sveltejs/kit';
 import { text } from '$lib/schemas/text';
 import { z } from 'zod';
 import { requireUser } from '$lib/server/policies';
-import { searchVarieties } from '$lib/server/services/varieties';
+import { searchVarieties } from '$lib/server/plants/varieties';
 import type { RequestHandler } from './$types';
 
 const query = z.object({

@@ -2,15 +2,10 @@ import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { scaleFormValues, scaleSchema } from '$lib/schemas/scale';
 import { sequelize } from '$lib/server/db';
-import { fieldErrors } from '$lib/server/forms';
+import { fieldErrors } from '$lib/server/http/forms';
 import { requireRole } from '$lib/server/policies';
-import { chooseSociety } from '$lib/server/society-choice';
-import {
-	copyScale,
-	createScale,
-	listSocietyScales,
-	updateScale
-} from '$lib/server/services/scales';
+import { chooseSociety } from '$lib/server/people/society-choice';
+import { copyScale, createScale, listSocietyScales, updateScale } from '$lib/server/shows/scales';
 import type { Actions, PageServerLoad } from './$types';
 import { refusedForm } from '$lib/server/http/refusals';
 

@@ -3,9 +3,9 @@ import { z } from 'zod';
 import { PLANT_GROUPS } from '$lib/domain/plant-groups';
 import { varietySchema } from '$lib/schemas/variety';
 import { sequelize } from '$lib/server/db';
-import { fieldErrors, textFields } from '$lib/server/forms';
+import { fieldErrors, textFields } from '$lib/server/http/forms';
 import { requireRole } from '$lib/server/policies';
-import { chooseSociety } from '$lib/server/society-choice';
+import { chooseSociety } from '$lib/server/people/society-choice';
 import {
 	MAX_IMPORT_CHARS,
 	VarietyProblem,
@@ -13,7 +13,7 @@ import {
 	importVarietiesCsv,
 	saveVariety,
 	toVarietyRow
-} from '$lib/server/services/varieties';
+} from '$lib/server/plants/varieties';
 import type { Actions, PageServerLoad } from './$types';
 
 const FIELDS = [

@@ -1,11 +1,11 @@
 import { fail } from '@sveltejs/kit';
 import { Show, sequelize } from '$lib/server/db';
-import { requireConfirmation } from '$lib/server/confirm';
-import { requireShowRole } from '$lib/server/policies/show';
-import { findDeskEntries } from '$lib/server/services/desk';
-import { deskWindowOf } from '$lib/server/services/desk-entries';
-import { DeskProblem } from '$lib/server/services/desk-problem';
-import { fixEntryNumbers } from '$lib/server/services/entry-numbers';
+import { requireConfirmation } from '$lib/server/http/confirm';
+import { requireShowRole } from '$lib/server/shows/policies';
+import { findDeskEntries } from '$lib/server/entries/desk';
+import { deskWindowOf } from '$lib/server/entries/desk-entries';
+import { DeskProblem } from '$lib/server/entries/desk-problem';
+import { fixEntryNumbers } from '$lib/server/entries/entry-numbers';
 import type { Actions, PageServerLoad } from './$types';
 
 const ROLES = ['clerk', 'chair'] as const;

@@ -2,7 +2,7 @@ import { fail } from '@sveltejs/kit';
 import { mailPreferencesSchema } from '$lib/schemas/plants';
 import { sequelize } from '$lib/server/db';
 import { requireRole } from '$lib/server/policies';
-import { getMailPreferences, setMailPreferences } from '$lib/server/services/mail-preferences';
+import { getMailPreferences, setMailPreferences } from '$lib/server/people/mail-preferences';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

@@ -8,7 +8,7 @@ import {
 	paymentForSession,
 	paymentsOfMember,
 	startDuesCheckout
-} from '$lib/server/services/payments';
+} from '$lib/server/payments/payments';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

@@ -9,7 +9,7 @@ import {
 	paymentForSession,
 	paymentsOfMember,
 	startEntryFeeCheckout
-} from '$lib/server/services/payments';
+} from '$lib/server/payments/payments';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

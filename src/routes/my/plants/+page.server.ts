@@ -1,6 +1,6 @@
-import { memberAndId } from '$lib/server/plant-route';
-import { listPlants } from '$lib/server/services/plants';
-import { loadMemberSettings } from '$lib/server/services/society-today';
+import { memberAndId } from '$lib/server/plants/plant-route';
+import { listPlants } from '$lib/server/plants/plants';
+import { loadMemberSettings } from '$lib/server/people/society-today';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

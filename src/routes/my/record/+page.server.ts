@@ -1,6 +1,6 @@
 import { bestScores, levelsIn, recordByVariety, recordByYear } from '$lib/domain/record';
 import { requireRole } from '$lib/server/policies';
-import { loadMyRecord } from '$lib/server/services/my-results';
+import { loadMyRecord } from '$lib/server/results/my-results';
 import type { PageServerLoad } from './$types';
 
 /** The exhibitor's results across every published show they entered. */

@@ -1,4 +1,4 @@
-import { societyRecordFor } from '$lib/server/society-record';
+import { societyRecordFor } from '$lib/server/results/society-record';
 import type { PageServerLoad } from './$types';
 
 /** The society's own record of varieties across its published shows, for its members. */

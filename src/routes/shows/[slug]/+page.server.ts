@@ -1,7 +1,7 @@
 import { hasRole } from '$lib/server/policies';
-import { loadPublicSchedule } from '$lib/server/services/public-schedule';
+import { loadPublicSchedule } from '$lib/server/shows/public-schedule';
 import { todayIn } from '$lib/domain/dates';
-import { entriesStillOpen } from '$lib/server/services/entries';
+import { entriesStillOpen } from '$lib/server/entries/entries';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async ({ params, locals }) => {

@@ -5,7 +5,7 @@ import { societyFormOptions, societyFormValues, startSocietySchema } from '$lib/
 import { societySignup } from '$lib/server/config';
 import { sequelize } from '$lib/server/db';
 import { requireUser } from '$lib/server/policies';
-import { SIGNUP_CLOSED_MESSAGE, startSociety } from '$lib/server/services/societies';
+import { SIGNUP_CLOSED_MESSAGE, startSociety } from '$lib/server/people/societies';
 import type { Actions, PageServerLoad } from './$types';
 import { refusedForm } from '$lib/server/http/refusals';
 

@@ -2,8 +2,8 @@ import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import { parseMemberQuery } from '$lib/schemas/members';
 import { requireRole } from '$lib/server/policies';
-import { listMembers } from '$lib/server/services/members';
-import { chooseSociety } from '$lib/server/society-choice';
+import { listMembers } from '$lib/server/people/members';
+import { chooseSociety } from '$lib/server/people/society-choice';
 import type { RequestHandler } from './$types';
 
 /**

@@ -1,6 +1,6 @@
 import { error, json } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/policies';
-import { answerSheetChange, SHEET_SAVERS } from '$lib/server/sheet-save';
+import { answerSheetChange, SHEET_SAVERS } from '$lib/server/judging/sheet-save';
 import type { RequestHandler } from './$types';
 
 /**

@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
-import { readEntryRequest } from '$lib/server/entry-api';
-import { EntryInputProblem, EntryRefused, enterPlant } from '$lib/server/services/entries';
+import { readEntryRequest } from '$lib/server/entries/entry-api';
+import { EntryInputProblem, EntryRefused, enterPlant } from '$lib/server/entries/entries';
 import type { RequestHandler } from './$types';
 
 /** Enters a plant; 422 with every failed rule when the rules refuse it (nothing is written). */

@@ -1,5 +1,5 @@
 import { json } from '@sveltejs/kit';
-import { receiveWebhook } from '$lib/server/services/payment-events';
+import { receiveWebhook } from '$lib/server/payments/payment-events';
 import type { RequestHandler } from './$types';
 
 /**

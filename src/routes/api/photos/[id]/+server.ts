@@ -2,7 +2,7 @@ import { error } from '@sveltejs/kit';
 import { z } from 'zod';
 import { Show } from '$lib/server/db';
 import { hasRole, requireUser } from '$lib/server/policies';
-import { readEntryPhoto } from '$lib/server/services/photos';
+import { readEntryPhoto } from '$lib/server/entries/photos';
 import type { RequestHandler } from './$types';
 
 /** A photo of an entry, only for its exhibitor and the officers of the show's society. */

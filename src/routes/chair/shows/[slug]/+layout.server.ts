@@ -1,5 +1,5 @@
-import { requireShowRole } from '$lib/server/policies/show';
-import { loadStageView } from '$lib/server/services/show-stage';
+import { requireShowRole } from '$lib/server/shows/policies';
+import { loadStageView } from '$lib/server/shows/show-stage';
 import type { LayoutServerLoad } from './$types';
 
 /** The show's stage, shown above every page of the show. */

@@ -1,21 +1,17 @@
 import { fail } from '@sveltejs/kit';
 import { showSettingsSchema } from '$lib/schemas/show';
 import { sequelize } from '$lib/server/db';
-import { requireConfirmation } from '$lib/server/confirm';
-import { fieldErrors, textFields } from '$lib/server/forms';
-import { requireShowRole } from '$lib/server/policies/show';
-import {
-	setSchedulePublished,
-	settingsOf,
-	updateShowSettings
-} from '$lib/server/services/schedule';
-import { setSharePointsLost } from '$lib/server/services/my-results';
-import { setDeskEntriesUntil } from '$lib/server/services/desk-entries';
+import { requireConfirmation } from '$lib/server/http/confirm';
+import { fieldErrors, textFields } from '$lib/server/http/forms';
+import { requireShowRole } from '$lib/server/shows/policies';
+import { setSchedulePublished, settingsOf, updateShowSettings } from '$lib/server/shows/schedule';
+import { setSharePointsLost } from '$lib/server/results/my-results';
+import { setDeskEntriesUntil } from '$lib/server/entries/desk-entries';
 import { deskEntriesUntilSchema } from '$lib/schemas/desk';
 import { DESK_ENTRIES_UNTIL, DESK_ENTRIES_UNTIL_WORDS } from '$lib/domain/desk-window';
 import type { Actions, PageServerLoad } from './$types';
 import { refusedForm } from '$lib/server/http/refusals';
-import type { Refusal } from '$lib/server/services/refusal';
+import type { Refusal } from '$lib/server/http/refusal';
 
 const FIELDS = [
 	'name',

@@ -2,7 +2,7 @@ import { fail, redirect } from '@sveltejs/kit';
 import type { z } from 'zod';
 import { copyShowSchema, newShowSchema } from '$lib/schemas/show-setup';
 import { sequelize } from '$lib/server/db';
-import { textFields } from '$lib/server/forms';
+import { textFields } from '$lib/server/http/forms';
 import { requireRole } from '$lib/server/policies';
 import {
 	chairSocieties,
@@ -10,7 +10,7 @@ import {
 	createShow,
 	listCopySources,
 	type SetupActor
-} from '$lib/server/services/show-setup';
+} from '$lib/server/shows/show-setup';
 import type { Actions, PageServerLoad } from './$types';
 import { refusedForm } from '$lib/server/http/refusals';
 

@@ -1,8 +1,8 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import { requireRole } from '$lib/server/policies';
-import { chooseSociety } from '$lib/server/society-choice';
-import { exportVarietiesCsv } from '$lib/server/services/varieties';
+import { chooseSociety } from '$lib/server/people/society-choice';
+import { exportVarietiesCsv } from '$lib/server/plants/varieties';
 import type { RequestHandler } from './$types';
 
 const query = z.object({

@@ -1,17 +1,17 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { deskEntrySchema } from '$lib/schemas/desk';
 import { sequelize } from '$lib/server/db';
-import { fieldErrors, textFields } from '$lib/server/forms';
-import { requireShowRole } from '$lib/server/policies/show';
+import { fieldErrors, textFields } from '$lib/server/http/forms';
+import { requireShowRole } from '$lib/server/shows/policies';
 import {
 	DeskEntryRefused,
 	deskWindowOf,
 	enterAtDesk,
 	findDeskExhibitors,
 	listDeskClasses
-} from '$lib/server/services/desk-entries';
-import { DeskProblem } from '$lib/server/services/desk-problem';
-import { loadSocietySettings } from '$lib/server/services/society-settings';
+} from '$lib/server/entries/desk-entries';
+import { DeskProblem } from '$lib/server/entries/desk-problem';
+import { loadSocietySettings } from '$lib/server/people/society-settings';
 import type { Actions, PageServerLoad } from './$types';
 
 const ROLES = ['clerk', 'chair'] as const;

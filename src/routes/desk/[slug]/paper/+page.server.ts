@@ -1,5 +1,5 @@
-import { requireShowRole } from '$lib/server/policies/show';
-import { loadPaperClasses, loadPaperPanels } from '$lib/server/services/paper-sheets';
+import { requireShowRole } from '$lib/server/shows/policies';
+import { loadPaperClasses, loadPaperPanels } from '$lib/server/judging/paper-sheets';
 import type { PageServerLoad } from './$types';
 
 /** The paper fallback: judging sheets per class, class lists per panel, typing a sheet in. */

@@ -1,6 +1,6 @@
-import { requireShowRole } from '$lib/server/policies/show';
-import { loadSchedule } from '$lib/server/services/schedule';
-import { loadSocietySettings } from '$lib/server/services/society-settings';
+import { requireShowRole } from '$lib/server/shows/policies';
+import { loadSchedule } from '$lib/server/shows/schedule';
+import { loadSocietySettings } from '$lib/server/people/society-settings';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

@@ -1,9 +1,9 @@
 import { json } from '@sveltejs/kit';
-import { requireShowRole } from '$lib/server/policies/show';
+import { requireShowRole } from '$lib/server/shows/policies';
 import { pdfResponse, renderPdf } from '$lib/server/pdf/render';
-import { entryTagsDocument } from '$lib/server/pdf/tags';
-import { listTagEntries } from '$lib/server/services/desk';
-import { loadSocietySettings } from '$lib/server/services/society-settings';
+import { entryTagsDocument } from '$lib/server/entries/tags-pdf';
+import { listTagEntries } from '$lib/server/entries/desk';
+import { loadSocietySettings } from '$lib/server/people/society-settings';
 import type { RequestHandler } from './$types';
 
 /** Entry tags as a PDF: ?numbers=3,17 for some entries, or every active entry of the show. */

@@ -1,9 +1,9 @@
 import { error, redirect } from '@sveltejs/kit';
 import { Entry } from '$lib/server/db';
 import { hasRole, requireUser } from '$lib/server/policies';
-import { findShowOr404 } from '$lib/server/policies/show';
-import { classOfEntry } from '$lib/server/services/judging';
-import { isRefusal } from '$lib/server/services/refusal';
+import { findShowOr404 } from '$lib/server/shows/policies';
+import { classOfEntry } from '$lib/server/judging/judging';
+import { isRefusal } from '$lib/server/http/refusal';
 import type { RequestHandler } from './$types';
 
 /**

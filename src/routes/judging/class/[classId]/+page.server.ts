@@ -1,8 +1,8 @@
 import { error } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/policies';
-import { loadJudgeClass } from '$lib/server/services/judging';
-import { isRefusal } from '$lib/server/services/refusal';
-import { loadStageViewOfShow } from '$lib/server/services/show-stage';
+import { loadJudgeClass } from '$lib/server/judging/judging';
+import { isRefusal } from '$lib/server/http/refusal';
+import { loadStageViewOfShow } from '$lib/server/shows/show-stage';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

@@ -1,8 +1,8 @@
 import { error } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/policies';
-import { classOfEntry, loadJudgeClass } from '$lib/server/services/judging';
-import { isRefusal } from '$lib/server/services/refusal';
-import { loadStageViewOfShow } from '$lib/server/services/show-stage';
+import { classOfEntry, loadJudgeClass } from '$lib/server/judging/judging';
+import { isRefusal } from '$lib/server/http/refusal';
+import { loadStageViewOfShow } from '$lib/server/shows/show-stage';
 import type { PageServerLoad } from './$types';
 
 /** The scoresheet of one entry, with its whole class so the judge can go on scoring offline. */

@@ -1,7 +1,7 @@
 import { error, fail, type RequestEvent } from '@sveltejs/kit';
 import { z } from 'zod';
 import { Entry, EntryPhoto, Show, ShowClass, Variety, sequelize } from '$lib/server/db';
-import { requireConfirmation } from '$lib/server/confirm';
+import { requireConfirmation } from '$lib/server/http/confirm';
 import { requireRole } from '$lib/server/policies';
 import {
 	MAX_PHOTO_BYTES,
@@ -10,9 +10,9 @@ import {
 	addEntryPhoto,
 	deleteEntryPhoto,
 	listEntryPhotos
-} from '$lib/server/services/photos';
-import { loadMyEntryResult } from '$lib/server/services/my-results';
-import { readOnePhoto } from '$lib/server/uploads';
+} from '$lib/server/entries/photos';
+import { loadMyEntryResult } from '$lib/server/results/my-results';
+import { readOnePhoto } from '$lib/server/http/uploads';
 import type { Actions, PageServerLoad } from './$types';
 
 /** The signed-in member's own entry, or 404 (another person's entry is never shown). */

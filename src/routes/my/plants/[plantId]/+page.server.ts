@@ -3,10 +3,10 @@ import type { Transaction } from 'sequelize';
 import { z } from 'zod';
 import { addCalendarDays, compareIsoDates, isIsoDate, todayIn } from '$lib/domain/dates';
 import { lengthField, photoSchema, plantEventSchema, potSuckerSchema } from '$lib/schemas/plants';
-import { requireConfirmation } from '$lib/server/confirm';
+import { requireConfirmation } from '$lib/server/http/confirm';
 import { sequelize } from '$lib/server/db';
-import { fieldErrors, memberAndId } from '$lib/server/plant-route';
-import { addPlantPhoto, deletePlantPhoto } from '$lib/server/services/plant-photos';
+import { fieldErrors, memberAndId } from '$lib/server/plants/plant-route';
+import { addPlantPhoto, deletePlantPhoto } from '$lib/server/plants/plant-photos';
 import {
 	PlantInputError,
 	addPlantEvent,
@@ -14,10 +14,10 @@ import {
 	getPlant,
 	potUpSucker,
 	setPlantGone
-} from '$lib/server/services/plants';
-import { loadPlantHistory } from '$lib/server/services/my-results';
-import { loadMemberSettings } from '$lib/server/services/society-today';
-import { readOnePhoto } from '$lib/server/uploads';
+} from '$lib/server/plants/plants';
+import { loadPlantHistory } from '$lib/server/results/my-results';
+import { loadMemberSettings } from '$lib/server/people/society-today';
+import { readOnePhoto } from '$lib/server/http/uploads';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

@@ -1,7 +1,7 @@
 import { addCalendarDays, compareIsoDates, todayIn } from '$lib/domain/dates';
-import { memberAndId } from '$lib/server/plant-route';
-import { listPlants, plantName } from '$lib/server/services/plants';
-import { loadMemberSettings } from '$lib/server/services/society-today';
+import { memberAndId } from '$lib/server/plants/plant-route';
+import { listPlants, plantName } from '$lib/server/plants/plants';
+import { loadMemberSettings } from '$lib/server/people/society-today';
 import type { PageServerLoad } from './$types';
 
 /** Plants got or potted this many days ago or later are ticked for labels. */

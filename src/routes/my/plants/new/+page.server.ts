@@ -1,16 +1,16 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { todayIn } from '$lib/domain/dates';
 import { sequelize } from '$lib/server/db';
-import { readPlantForm } from '$lib/server/plant-forms';
-import { memberAndId } from '$lib/server/plant-route';
-import { loadMemberSettings } from '$lib/server/services/society-today';
+import { readPlantForm } from '$lib/server/plants/plant-forms';
+import { memberAndId } from '$lib/server/plants/plant-route';
+import { loadMemberSettings } from '$lib/server/people/society-today';
 import {
 	PlantInputError,
 	createPlant,
 	listPlants,
 	listVarietyChoices,
 	plantName
-} from '$lib/server/services/plants';
+} from '$lib/server/plants/plants';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

@@ -2,15 +2,15 @@ import { error, fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { todayIn } from '$lib/domain/dates';
 import { sequelize } from '$lib/server/db';
-import { memberAndId } from '$lib/server/plant-route';
-import { PlantEntryRefused, createEntryFromPlant } from '$lib/server/services/plant-entries';
+import { memberAndId } from '$lib/server/plants/plant-route';
+import { PlantEntryRefused, createEntryFromPlant } from '$lib/server/plants/plant-entries';
 import {
 	assessCollections,
 	listUpcomingShows,
 	loadShowForReadiness
-} from '$lib/server/services/readiness';
-import { loadLastTimes } from '$lib/server/services/my-results';
-import { loadMemberSettings, societyToday } from '$lib/server/services/society-today';
+} from '$lib/server/plants/readiness';
+import { loadLastTimes } from '$lib/server/results/my-results';
+import { loadMemberSettings, societyToday } from '$lib/server/people/society-today';
 import type { Actions, PageServerLoad } from './$types';
 
 const ORDER = { ready: 0, needs_work: 1, cannot_enter: 2, no_class: 3 } as const;

@@ -2,9 +2,9 @@ import { error, fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { entryRequestSchema } from '$lib/schemas/entry';
 import { sequelize } from '$lib/server/db';
-import { requireConfirmation } from '$lib/server/confirm';
-import { fieldErrors, textFields } from '$lib/server/forms';
-import { requireShowRole } from '$lib/server/policies/show';
+import { requireConfirmation } from '$lib/server/http/confirm';
+import { fieldErrors, textFields } from '$lib/server/http/forms';
+import { requireShowRole } from '$lib/server/shows/policies';
 import {
 	EntryInputProblem,
 	EntryRefused,
@@ -12,9 +12,9 @@ import {
 	entriesStillOpen,
 	listMyEntriesInShow,
 	withdrawEntry
-} from '$lib/server/services/entries';
-import { loadSchedule } from '$lib/server/services/schedule';
-import { societyToday } from '$lib/server/services/society-today';
+} from '$lib/server/entries/entries';
+import { loadSchedule } from '$lib/server/shows/schedule';
+import { societyToday } from '$lib/server/people/society-today';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

@@ -1,7 +1,7 @@
 import { error } from '@sveltejs/kit';
 import { buildRecordCsv } from '$lib/server/results/record-csv';
 import { csvResponse } from '$lib/server/results/csv';
-import { societyRecordFor } from '$lib/server/society-record';
+import { societyRecordFor } from '$lib/server/results/society-record';
 import type { RequestHandler } from './$types';
 
 /** The society's record of varieties as CSV, for its members (?society=slug picks one). */

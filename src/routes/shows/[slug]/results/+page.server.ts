@@ -1,5 +1,5 @@
 import { error } from '@sveltejs/kit';
-import { loadPublicResults } from '$lib/server/services/show-results';
+import { loadPublicResults } from '$lib/server/results/show-results';
 import type { PageServerLoad } from './$types';
 
 /** Public results: only once the chair has published them; before that, nothing about scores. */

@@ -1,7 +1,7 @@
-import { cachedSchedulePdf } from '$lib/server/cache/schedule-pdf';
+import { cachedSchedulePdf } from '$lib/server/shows/schedule-pdf-cache';
 import { pdfResponse, renderPdf } from '$lib/server/pdf/render';
-import { scheduleDocument } from '$lib/server/pdf/schedule';
-import { loadPublicSchedule } from '$lib/server/services/public-schedule';
+import { scheduleDocument } from '$lib/server/shows/schedule-pdf';
+import { loadPublicSchedule } from '$lib/server/shows/public-schedule';
 import type { RequestHandler } from './$types';
 
 /**

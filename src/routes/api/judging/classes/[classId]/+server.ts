@@ -1,7 +1,7 @@
 import { error, json } from '@sveltejs/kit';
 import { requireRole } from '$lib/server/policies';
-import { loadJudgeClass } from '$lib/server/services/judging';
-import { isRefusal } from '$lib/server/services/refusal';
+import { loadJudgeClass } from '$lib/server/judging/judging';
+import { isRefusal } from '$lib/server/http/refusal';
 import type { RequestHandler } from './$types';
 
 /** A class as a judge's tablet holds it: entries by number, the scale and the person's sheets. */

@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
-import { readEntryRequest } from '$lib/server/entry-api';
-import { EntryInputProblem, previewEntry } from '$lib/server/services/entries';
+import { readEntryRequest } from '$lib/server/entries/entry-api';
+import { EntryInputProblem, previewEntry } from '$lib/server/entries/entries';
 import type { RequestHandler } from './$types';
 
 /** Whether an entry would fit its class, and every reason why not; writes nothing. */

@@ -1,7 +1,7 @@
 import { listAuditLog } from '$lib/server/audit';
 import { readAuditQuery } from '$lib/schemas/audit';
-import { requireShowRole } from '$lib/server/policies/show';
-import { loadSocietySettings } from '$lib/server/services/society-settings';
+import { requireShowRole } from '$lib/server/shows/policies';
+import { loadSocietySettings } from '$lib/server/people/society-settings';
 import type { PageServerLoad } from './$types';
 
 /** The show's audit log for its chair: score changes and every destructive action. */

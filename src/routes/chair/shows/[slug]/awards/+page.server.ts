@@ -1,14 +1,14 @@
-import { requireConfirmation } from '$lib/server/confirm';
+import { requireConfirmation } from '$lib/server/http/confirm';
 import { sequelize } from '$lib/server/db';
 import {
 	awardsOf,
 	describeAwards,
 	loadPublishedAwards,
 	loadShowJudging
-} from '$lib/server/services/results';
-import { publishResultsAndTell } from '$lib/server/services/show-results';
-import { requireShowRole } from '$lib/server/policies/show';
-import { loadSocietySettings } from '$lib/server/services/society-settings';
+} from '$lib/server/results/results';
+import { publishResultsAndTell } from '$lib/server/results/show-results';
+import { requireShowRole } from '$lib/server/shows/policies';
+import { loadSocietySettings } from '$lib/server/people/society-settings';
 import { formatDateTime } from '$lib/format';
 import type { Actions, PageServerLoad } from './$types';
 import { refusedForm } from '$lib/server/http/refusals';

@@ -1,5 +1,5 @@
-import { loadBoard } from '$lib/server/services/results';
-import { requireShowRole } from '$lib/server/policies/show';
+import { loadBoard } from '$lib/server/results/results';
+import { requireShowRole } from '$lib/server/shows/policies';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

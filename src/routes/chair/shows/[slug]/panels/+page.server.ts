@@ -7,8 +7,8 @@ import {
 import { z } from 'zod';
 import type { Transaction } from 'sequelize';
 import { Panel, PanelClass, sequelize } from '$lib/server/db';
-import { requireConfirmation } from '$lib/server/confirm';
-import { runFormAction } from '$lib/server/services/form-actions';
+import { requireConfirmation } from '$lib/server/http/confirm';
+import { runFormAction } from '$lib/server/http/form-actions';
 import {
 	addJudge,
 	assignClass,
@@ -17,8 +17,8 @@ import {
 	loadPanelsPage,
 	removeJudge,
 	setClerk
-} from '$lib/server/services/panels';
-import { requireShowRole } from '$lib/server/policies/show';
+} from '$lib/server/judging/panels';
+import { requireShowRole } from '$lib/server/shows/policies';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

@@ -1,13 +1,17 @@
 import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { sequelize } from '$lib/server/db';
-import { requestShowPdfs, SHOW_DOCUMENTS, showPdfStates } from '$lib/server/jobs/show-pdf';
+import {
+	requestShowPdfs,
+	SHOW_DOCUMENTS,
+	showPdfStates
+} from '$lib/server/results/documents/show-pdf';
 import { requireChairShow } from '$lib/server/results/chair-access';
 import {
 	loadResultsMail,
 	loadShowResults,
 	resendResultsMail
-} from '$lib/server/services/show-results';
+} from '$lib/server/results/show-results';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

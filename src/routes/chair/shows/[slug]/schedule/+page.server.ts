@@ -2,9 +2,9 @@ import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { classSchema, divisionSchema, moveSchema, scheduleTextSchema } from '$lib/schemas/show';
 import { sequelize } from '$lib/server/db';
-import { requireConfirmation } from '$lib/server/confirm';
-import { fieldErrors, textFields } from '$lib/server/forms';
-import { requireShowRole } from '$lib/server/policies/show';
+import { requireConfirmation } from '$lib/server/http/confirm';
+import { fieldErrors, textFields } from '$lib/server/http/forms';
+import { requireShowRole } from '$lib/server/shows/policies';
 import {
 	deleteClass,
 	deleteDivision,
@@ -15,8 +15,8 @@ import {
 	saveClass,
 	saveDivision,
 	saveScheduleText
-} from '$lib/server/services/schedule';
-import { loadSocietySettings } from '$lib/server/services/society-settings';
+} from '$lib/server/shows/schedule';
+import { loadSocietySettings } from '$lib/server/people/society-settings';
 import type { Actions, PageServerLoad } from './$types';
 import { refusedForm } from '$lib/server/http/refusals';
 

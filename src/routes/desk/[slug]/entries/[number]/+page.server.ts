@@ -1,17 +1,17 @@
 import { error, fail, redirect } from '@sveltejs/kit';
 import { checkInSchema, moveSchema, scratchSchema } from '$lib/schemas/desk';
 import { sequelize } from '$lib/server/db';
-import { requireConfirmation } from '$lib/server/confirm';
-import { fieldErrors, textFields } from '$lib/server/forms';
-import { requireShowRole } from '$lib/server/policies/show';
+import { requireConfirmation } from '$lib/server/http/confirm';
+import { fieldErrors, textFields } from '$lib/server/http/forms';
+import { requireShowRole } from '$lib/server/shows/policies';
 import {
 	DeskProblem,
 	checkInEntry,
 	loadDeskEntry,
 	moveEntry,
 	scratchEntry
-} from '$lib/server/services/desk';
-import { loadSocietySettings } from '$lib/server/services/society-settings';
+} from '$lib/server/entries/desk';
+import { loadSocietySettings } from '$lib/server/people/society-settings';
 import type { Actions, PageServerLoad } from './$types';
 
 const ROLES = ['clerk', 'chair'] as const;

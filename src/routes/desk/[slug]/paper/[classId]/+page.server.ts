@@ -1,8 +1,8 @@
 import { error, fail } from '@sveltejs/kit';
-import { requireShowRole } from '$lib/server/policies/show';
-import { isUuid, loadJudgeClass } from '$lib/server/services/judging';
-import { isRefusal } from '$lib/server/services/refusal';
-import { typePaperSheets } from '$lib/server/services/paper-sheets';
+import { requireShowRole } from '$lib/server/shows/policies';
+import { isUuid, loadJudgeClass } from '$lib/server/judging/judging';
+import { isRefusal } from '$lib/server/http/refusal';
+import { typePaperSheets } from '$lib/server/judging/paper-sheets';
 import type { Actions, PageServerLoad } from './$types';
 
 const ROLES = ['clerk', 'chair'] as const;

@@ -1,10 +1,10 @@
 import { json } from '@sveltejs/kit';
-import { requireShowRole } from '$lib/server/policies/show';
-import { panelClassListDocument } from '$lib/server/pdf/paper-sheets';
+import { requireShowRole } from '$lib/server/shows/policies';
+import { panelClassListDocument } from '$lib/server/judging/paper-sheets-pdf';
 import { pdfResponse, renderPdf } from '$lib/server/pdf/render';
-import { isUuid } from '$lib/server/services/judging';
-import { loadPaperPanels } from '$lib/server/services/paper-sheets';
-import { loadSocietySettings } from '$lib/server/services/society-settings';
+import { isUuid } from '$lib/server/judging/judging';
+import { loadPaperPanels } from '$lib/server/judging/paper-sheets';
+import { loadSocietySettings } from '$lib/server/people/society-settings';
 import type { RequestHandler } from './$types';
 
 /** Class lists per panel as a PDF: every panel of the show, or ?panel=<id> for one. */

@@ -1,7 +1,7 @@
 import { error, fail, redirect } from '@sveltejs/kit';
 import { sequelize } from '$lib/server/db';
-import { readPlantForm } from '$lib/server/plant-forms';
-import { memberAndId } from '$lib/server/plant-route';
+import { readPlantForm } from '$lib/server/plants/plant-forms';
+import { memberAndId } from '$lib/server/plants/plant-route';
 import {
 	PlantInputError,
 	getPlant,
@@ -9,9 +9,9 @@ import {
 	listVarietyChoices,
 	plantName,
 	updatePlant
-} from '$lib/server/services/plants';
+} from '$lib/server/plants/plants';
 import { lengthInUnit } from '$lib/domain/units';
-import { loadMemberSettings } from '$lib/server/services/society-today';
+import { loadMemberSettings } from '$lib/server/people/society-today';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

@@ -1,6 +1,6 @@
 import { error } from '@sveltejs/kit';
-import { memberAndId } from '$lib/server/plant-route';
-import { getLineage } from '$lib/server/services/plants';
+import { memberAndId } from '$lib/server/plants/plant-route';
+import { getLineage } from '$lib/server/plants/plants';
 import type { PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {

@@ -1,10 +1,10 @@
 import { error } from '@sveltejs/kit';
 import { z } from 'zod';
-import { memberAndId } from '$lib/server/plant-route';
-import { potLabelsDocument } from '$lib/server/pdf/pot-labels';
+import { memberAndId } from '$lib/server/plants/plant-route';
+import { potLabelsDocument } from '$lib/server/plants/pot-labels-pdf';
 import { pdfResponse, renderPdf } from '$lib/server/pdf/render';
-import { listPlants } from '$lib/server/services/plants';
-import { loadMemberSettings } from '$lib/server/services/society-today';
+import { listPlants } from '$lib/server/plants/plants';
+import { loadMemberSettings } from '$lib/server/people/society-today';
 import type { RequestHandler } from './$types';
 
 const idsSchema = z.array(z.uuid()).min(1).max(500);

@@ -1,6 +1,6 @@
 import { error } from '@sveltejs/kit';
 import { buildResultsCsv, csvResponse } from '$lib/server/results/csv';
-import { loadPublicResults } from '$lib/server/services/show-results';
+import { loadPublicResults } from '$lib/server/results/show-results';
 import type { RequestHandler } from './$types';
 
 /** Every published result as CSV (no judges' comments: those go to each exhibitor). */

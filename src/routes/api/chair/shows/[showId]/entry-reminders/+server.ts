@@ -2,8 +2,8 @@ import { error, json } from '@sveltejs/kit';
 import { z } from 'zod';
 import { Show, sequelize } from '$lib/server/db';
 import { requireRole } from '$lib/server/policies';
-import { queueEntryReminders } from '$lib/server/services/reminders';
-import { societyToday } from '$lib/server/services/society-today';
+import { queueEntryReminders } from '$lib/server/plants/reminders';
+import { societyToday } from '$lib/server/people/society-today';
 import type { RequestHandler } from './$types';
 
 /**

@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
-import { loadBoard } from '$lib/server/services/results';
-import { requireShowRole } from '$lib/server/policies/show';
+import { loadBoard } from '$lib/server/results/results';
+import { requireShowRole } from '$lib/server/shows/policies';
 import type { RequestHandler } from './$types';
 
 /** The progress board as JSON, polled by the chair's board page while judges work. */

@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import { requireChairShow } from '$lib/server/results/chair-access';
 import { mailProgress } from '$lib/server/mail/outbox';
-import { RESULTS_MAIL_KIND } from '$lib/server/services/show-results';
+import { RESULTS_MAIL_KIND } from '$lib/server/results/show-results';
 import type { RequestHandler } from './$types';
 
 /** Sending progress of the placements e-mails, polled by the chair's results page. */

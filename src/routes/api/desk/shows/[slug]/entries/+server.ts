@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import { entriesQuerySchema } from '$lib/schemas/desk';
-import { requireShowRole } from '$lib/server/policies/show';
-import { entriesCsv, queryEntriesTable } from '$lib/server/services/entries-table';
+import { requireShowRole } from '$lib/server/shows/policies';
+import { entriesCsv, queryEntriesTable } from '$lib/server/entries/entries-table';
 import type { RequestHandler } from './$types';
 
 /**

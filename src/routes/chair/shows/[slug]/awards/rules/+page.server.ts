@@ -1,7 +1,7 @@
 import { fail } from '@sveltejs/kit';
 import { sequelize } from '$lib/server/db';
-import { loadAwardRulesPage, saveAwardRules } from '$lib/server/services/results';
-import { requireShowRole } from '$lib/server/policies/show';
+import { loadAwardRulesPage, saveAwardRules } from '$lib/server/results/results';
+import { requireShowRole } from '$lib/server/shows/policies';
 import { readRulesForm } from './form';
 import type { Actions, PageServerLoad } from './$types';
 import { refusedForm } from '$lib/server/http/refusals';

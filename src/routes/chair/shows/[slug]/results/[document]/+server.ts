@@ -1,14 +1,14 @@
 import { error } from '@sveltejs/kit';
-import { isShowDocument, keptShowPdf } from '$lib/server/jobs/show-pdf';
+import { isShowDocument, keptShowPdf } from '$lib/server/results/documents/show-pdf';
 import { pdfResponse } from '$lib/server/pdf/render';
 import { requireChairShow } from '$lib/server/results/chair-access';
 import { buildResultsCsv, csvResponse } from '$lib/server/results/csv';
-import { loadShowResults } from '$lib/server/services/show-results';
+import { loadShowResults } from '$lib/server/results/show-results';
 import type { RequestHandler } from './$types';
 
 /**
  * The chair's printable documents and the full CSV (with comments). The PDFs are the ones kept
- * for this publication and paper (built by the worker, see jobs/show-pdf.ts): served unchanged,
+ * for this publication and paper (built by the worker, see results/documents/show-pdf.ts): served unchanged,
  * or 503 with Retry-After while one is being built.
  */
 export const GET: RequestHandler = async (event) => {

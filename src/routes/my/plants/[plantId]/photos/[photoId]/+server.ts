@@ -1,7 +1,7 @@
 import { error } from '@sveltejs/kit';
 import { z } from 'zod';
-import { memberAndId } from '$lib/server/plant-route';
-import { readPlantPhoto } from '$lib/server/services/plant-photos';
+import { memberAndId } from '$lib/server/plants/plant-route';
+import { readPlantPhoto } from '$lib/server/plants/plant-photos';
 import type { RequestHandler } from './$types';
 
 /** A plant photo, only for the plant's owner; anyone else gets 404 (not even a hint it exists). */

@@ -1,4 +1,0 @@
-import { Refusal } from './refusal';
-
-/** A desk action that cannot be done, in a plain sentence. */
-export class DeskProblem extends Refusal {}
