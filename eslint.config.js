@@ -52,6 +52,40 @@ export default ts.config(
 		}
 	},
 	{
+		// Routes only call services: the database is the services' (a route may open the
+		// transaction that its services' writes share, and name a model's type).
+		files: ['src/routes/**/*.ts'],
+		rules: {
+			'@typescript-eslint/no-restricted-imports': [
+				'error',
+				{
+					paths: [
+						{
+							name: '$lib/server/db',
+							allowImportNames: ['sequelize'],
+							allowTypeImports: true,
+							message: 'Routes call services; put the read or write in a service of src/lib/server.'
+						}
+					],
+					patterns: [
+						{
+							group: ['$lib/server/db/*'],
+							allowTypeImports: true,
+							message: 'Routes call services; put the read or write in a service of src/lib/server.'
+						}
+					]
+				}
+			],
+			'no-restricted-syntax': [
+				'error',
+				{
+					selector: "MemberExpression[object.name='sequelize'][property.name!='transaction']",
+					message: 'Routes only open transactions; queries belong in a service.'
+				}
+			]
+		}
+	},
+	{
 		files: ['**/*.svelte'],
 		rules: {
 			// Links inside the app are plain paths; SvelteKit resolves them.

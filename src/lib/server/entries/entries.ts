@@ -292,3 +292,42 @@ export async function withdrawEntry(
 	);
 	return null;
 }
+
+/** The id of the show's entry with this number, or null. */
+export async function entryIdByNumber(showId: string, number: number): Promise<string | null> {
+	const entry = await Entry.findOne({ where: { showId, number }, attributes: ['id'] });
+	return entry?.id ?? null;
+}
+
+/** A member's own entry by its id; another person's entry is never found. */
+export async function findOwnEntry(userId: string, entryId: string): Promise<Entry | null> {
+	return Entry.findOne({ where: { id: entryId, exhibitorId: userId } });
+}
+
+/** What the member's page of an entry shows of it: its number, state, plant, class and show. */
+export interface OwnEntryView {
+	id: string;
+	number: number | null;
+	status: Entry['status'];
+	plant: string;
+	classLabel: string;
+	showName: string;
+	showSlug: string;
+}
+
+export async function describeOwnEntry(entry: Entry): Promise<OwnEntryView> {
+	const [show, showClass, variety] = await Promise.all([
+		Show.findByPk(entry.showId, { attributes: ['name', 'slug'] }),
+		ShowClass.findByPk(entry.classId, { attributes: ['code', 'name'] }),
+		entry.varietyId ? Variety.findByPk(entry.varietyId, { attributes: ['name'] }) : null
+	]);
+	return {
+		id: entry.id,
+		number: entry.number,
+		status: entry.status,
+		plant: variety?.name ?? entry.title ?? '',
+		classLabel: showClass ? `${showClass.code} ${showClass.name}` : '',
+		showName: show?.name ?? '',
+		showSlug: show?.slug ?? ''
+	};
+}

@@ -129,3 +129,12 @@ export async function numberForNewEntry(
 	}
 	return number;
 }
+
+/** Fixes a show's entry numbers now, in one transaction holding the show's row lock. */
+export async function fixEntryNumbersNow(showId: string, actor: AuditActor): Promise<boolean> {
+	return sequelize.transaction(async (transaction) => {
+		const show = await Show.findByPk(showId, { transaction, lock: transaction.LOCK.UPDATE });
+		if (!show) throw new DeskProblem('This show does not exist.');
+		return fixEntryNumbers(show, { transaction, actor });
+	});
+}

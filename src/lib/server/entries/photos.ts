@@ -138,3 +138,11 @@ export async function deleteEntryPhoto(
 	);
 	await rm(path.join(config().uploadDir, photo.fileName), { force: true });
 }
+
+/** A photo of this entry by its id (null when the photo belongs to no such entry). */
+export async function findPhotoOfEntry(
+	entryId: string,
+	photoId: string
+): Promise<EntryPhoto | null> {
+	return EntryPhoto.findOne({ where: { id: photoId, entryId } });
+}

@@ -411,3 +411,17 @@ export async function assignClass(
 		);
 	}
 }
+
+/** The clerk a panel of this show has now (null: no clerk, or no such panel). */
+export async function clerkOfPanel(showId: string, panelId: string): Promise<string | null> {
+	const panel = await Panel.findOne({ where: { id: panelId, showId }, attributes: ['clerkId'] });
+	return panel?.clerkId ?? null;
+}
+
+/** The panel of this show a class is assigned to now (null: none). */
+export async function panelOfClass(showId: string, classId: string): Promise<string | null> {
+	const current = await PanelClass.findOne({ where: { classId }, attributes: ['panelId'] });
+	if (!current) return null;
+	const ofShow = await Panel.count({ where: { id: current.panelId, showId } });
+	return ofShow ? current.panelId : null;
+}

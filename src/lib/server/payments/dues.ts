@@ -161,3 +161,9 @@ export async function recentPayments(societyId: string, limit = 30): Promise<Pay
 		return { ...toPaymentRow(p, zone), payerName: user.name, payerEmail: user.email };
 	});
 }
+
+/** The currency the society's dues and fees are in (US dollars until the admin sets one). */
+export async function societyCurrency(societyId: string): Promise<string> {
+	const society = await Society.findByPk(societyId, { attributes: ['currency'] });
+	return society?.currency ?? 'USD';
+}

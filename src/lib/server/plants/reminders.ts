@@ -11,6 +11,7 @@ import { config } from '../config';
 import { sequelize } from '../db';
 import { escapeHtml } from '../mail/escape';
 import { queueMail, type QueuedMail } from '../mail/outbox';
+import { societyToday } from '../people/society-today';
 import {
 	assessCollections,
 	loadShowForReadiness,
@@ -168,4 +169,14 @@ export async function queueDueReminders(todayOf: (timeZone: string) => IsoDate):
 		);
 	}
 	return queued;
+}
+
+/** The chair's "send the reminders now": this show's reminders as of the society's today. */
+export async function sendEntryRemindersNow(showId: string, societyId: string): Promise<number> {
+	return sequelize.transaction(async (transaction) =>
+		queueEntryReminders(showId, {
+			transaction,
+			today: await societyToday(societyId, { transaction })
+		})
+	);
 }

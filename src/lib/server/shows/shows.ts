@@ -71,3 +71,9 @@ export async function listShowsTakingEntries(
 		.filter((s) => s.entriesClose >= todayIn((s.get('society') as Society).timeZone, now))
 		.map((s) => toSummary(s));
 }
+
+/** The society a show belongs to, by the show's id; null when there is no such show. */
+export async function societyOfShow(showId: string): Promise<string | null> {
+	const show = await Show.findByPk(showId, { attributes: ['societyId'] });
+	return show?.societyId ?? null;
+}

@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { CURRENCIES } from '$lib/domain/money';
 import { ENTRY_FEE_REFUND_LABELS, ENTRY_FEE_REFUNDS } from '$lib/domain/dues';
 import { currencySchema, duesPeriodSchema, showFeeSchema } from '$lib/schemas/payments';
-import { Society, sequelize } from '$lib/server/db';
+import { sequelize } from '$lib/server/db';
 import { requireConfirmation } from '$lib/server/http/confirm';
 import { requireRole } from '$lib/server/policies';
 import * as dues from '$lib/server/payments/dues';
@@ -13,15 +13,15 @@ import type { Actions, PageServerLoad } from './$types';
 export const load: PageServerLoad = async (event) => {
 	const user = requireRole(event, ['admin']);
 	const society = chooseSociety(user, ['admin'], event.url.searchParams.get('society'));
-	const [record, periods, shows, payments] = await Promise.all([
-		Society.findByPk(society.societyId),
+	const [currency, periods, shows, payments] = await Promise.all([
+		dues.societyCurrency(society.societyId),
 		dues.listDuesPeriods(society.societyId),
 		dues.listShowFees(society.societyId),
 		dues.recentPayments(society.societyId)
 	]);
 	return {
 		society,
-		currency: record?.currency ?? 'USD',
+		currency,
 		currencies: CURRENCIES.map((c) => ({ value: c, label: c })),
 		refundOptions: ENTRY_FEE_REFUNDS.map((r) => ({ value: r, label: ENTRY_FEE_REFUND_LABELS[r] })),
 		periods,

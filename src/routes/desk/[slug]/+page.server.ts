@@ -1,11 +1,10 @@
 import { fail } from '@sveltejs/kit';
-import { Show, sequelize } from '$lib/server/db';
 import { requireConfirmation } from '$lib/server/http/confirm';
 import { requireShowRole } from '$lib/server/shows/policies';
 import { findDeskEntries } from '$lib/server/entries/desk';
 import { deskWindowOf } from '$lib/server/entries/desk-entries';
 import { DeskProblem } from '$lib/server/entries/desk-problem';
-import { fixEntryNumbers } from '$lib/server/entries/entry-numbers';
+import { fixEntryNumbersNow } from '$lib/server/entries/entry-numbers';
 import type { Actions, PageServerLoad } from './$types';
 
 const ROLES = ['clerk', 'chair'] as const;
@@ -35,10 +34,7 @@ export const actions: Actions = {
 		const unconfirmed = requireConfirmation(event, form, 'Fix the entry numbers now?');
 		if (unconfirmed) return unconfirmed;
 		try {
-			const fixed = await sequelize.transaction(async (transaction) => {
-				const locked = await Show.findByPk(show.id, { transaction, lock: transaction.LOCK.UPDATE });
-				return fixEntryNumbers(locked!, { transaction, actor: user });
-			});
+			const fixed = await fixEntryNumbersNow(show.id, user);
 			return {
 				saved: fixed
 					? 'The entry numbers are fixed in shuffled order. Print the tags now.'

@@ -1,7 +1,6 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { ENTRY_FEE_REFUND_LABELS, type EntryFeeRefund } from '$lib/domain/dues';
 import { payFeesSchema } from '$lib/schemas/payments';
-import { Show } from '$lib/server/db';
 import { requireRole } from '$lib/server/policies';
 import {
 	PaymentStartError,
@@ -10,6 +9,7 @@ import {
 	paymentsOfMember,
 	startEntryFeeCheckout
 } from '$lib/server/payments/payments';
+import { societyOfShow } from '$lib/server/shows/shows';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load: PageServerLoad = async (event) => {
@@ -36,9 +36,9 @@ export const actions: Actions = {
 		const form = await event.request.formData();
 		const parsed = payFeesSchema.safeParse({ showId: form.get('showId') });
 		if (!parsed.success) return fail(400, { message: 'Choose a show from the list.' });
-		const show = await Show.findByPk(parsed.data.showId, { attributes: ['societyId'] });
-		if (!show) return fail(400, { message: 'Choose a show from the list.' });
-		const user = requireRole(event, ['member'], show.societyId);
+		const societyId = await societyOfShow(parsed.data.showId);
+		if (!societyId) return fail(400, { message: 'Choose a show from the list.' });
+		const user = requireRole(event, ['member'], societyId);
 		let url: string;
 		try {
 			({ url } = await startEntryFeeCheckout(user, parsed.data, { origin: event.url.origin }));

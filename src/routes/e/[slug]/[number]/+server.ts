@@ -1,7 +1,7 @@
 import { error, redirect } from '@sveltejs/kit';
-import { Entry } from '$lib/server/db';
 import { hasRole, requireUser } from '$lib/server/policies';
 import { findShowOr404 } from '$lib/server/shows/policies';
+import { entryIdByNumber } from '$lib/server/entries/entries';
 import { classOfEntry } from '$lib/server/judging/judging';
 import { isRefusal } from '$lib/server/http/refusal';
 import type { RequestHandler } from './$types';
@@ -27,12 +27,12 @@ export const GET: RequestHandler = async (event) => {
 		redirect(303, `/desk/${show.slug}/entries/${number}`);
 	}
 	if (hasRole(user, ['judge'], show.societyId)) {
-		const entry = await Entry.findOne({ where: { showId: show.id, number }, attributes: ['id'] });
+		const entryId = await entryIdByNumber(show.id, number);
 		// An entry outside the judge's classes answers as one that does not exist.
 		const open =
-			entry && (await classOfEntry(user.id, entry.id).then(() => true, refusedAs(false)));
-		if (!entry || !open) error(404, `There is no entry ${event.params.number} in this show.`);
-		redirect(303, `/judging/entry/${entry.id}`);
+			entryId && (await classOfEntry(user.id, entryId).then(() => true, refusedAs(false)));
+		if (!entryId || !open) error(404, `There is no entry ${event.params.number} in this show.`);
+		redirect(303, `/judging/entry/${entryId}`);
 	}
 	error(403, 'Only the show’s clerks, chair and judges can open an entry from its tag.');
 };

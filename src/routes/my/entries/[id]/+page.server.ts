@@ -1,6 +1,7 @@
 import { error, fail, type RequestEvent } from '@sveltejs/kit';
 import { z } from 'zod';
-import { Entry, EntryPhoto, Show, ShowClass, Variety, sequelize } from '$lib/server/db';
+import { sequelize, type Entry } from '$lib/server/db';
+import { describeOwnEntry, findOwnEntry } from '$lib/server/entries/entries';
 import { requireConfirmation } from '$lib/server/http/confirm';
 import { requireRole } from '$lib/server/policies';
 import {
@@ -9,6 +10,7 @@ import {
 	PhotoProblem,
 	addEntryPhoto,
 	deleteEntryPhoto,
+	findPhotoOfEntry,
 	listEntryPhotos
 } from '$lib/server/entries/photos';
 import { loadMyEntryResult } from '$lib/server/results/my-results';
@@ -18,32 +20,20 @@ import type { Actions, PageServerLoad } from './$types';
 /** The signed-in member's own entry, or 404 (another person's entry is never shown). */
 async function ownEntry(event: Pick<RequestEvent, 'url' | 'locals'>, id: string): Promise<Entry> {
 	const user = requireRole(event, ['member']);
-	const entry = z.uuid().safeParse(id).success
-		? await Entry.findOne({ where: { id, exhibitorId: user.id } })
-		: null;
+	const entry = z.uuid().safeParse(id).success ? await findOwnEntry(user.id, id) : null;
 	if (!entry) error(404, 'You have no entry at this address.');
 	return entry;
 }
 
 export const load: PageServerLoad = async (event) => {
 	const entry = await ownEntry(event, event.params.id);
-	const [show, showClass, variety, photos, result] = await Promise.all([
-		Show.findByPk(entry.showId, { attributes: ['name', 'slug'] }),
-		ShowClass.findByPk(entry.classId, { attributes: ['code', 'name'] }),
-		entry.varietyId ? Variety.findByPk(entry.varietyId, { attributes: ['name'] }) : null,
+	const [view, photos, result] = await Promise.all([
+		describeOwnEntry(entry),
 		listEntryPhotos(entry.id),
 		loadMyEntryResult(entry.exhibitorId, entry.id)
 	]);
 	return {
-		entry: {
-			id: entry.id,
-			number: entry.number,
-			status: entry.status,
-			plant: variety?.name ?? entry.title ?? '',
-			classLabel: showClass ? `${showClass.code} ${showClass.name}` : '',
-			showName: show?.name ?? '',
-			showSlug: show?.slug ?? ''
-		},
+		entry: view,
 		result,
 		photos,
 		limits: { maxBytes: MAX_PHOTO_BYTES, maxPhotos: MAX_PHOTOS_PER_ENTRY }
@@ -71,9 +61,7 @@ export const actions: Actions = {
 		const user = requireRole(event, ['member']);
 		const form = await event.request.formData();
 		const id = z.uuid().safeParse(form.get('photoId'));
-		const photo = id.success
-			? await EntryPhoto.findOne({ where: { id: id.data, entryId: entry.id } })
-			: null;
+		const photo = id.success ? await findPhotoOfEntry(entry.id, id.data) : null;
 		if (!photo) return fail(400, { message: 'That photo is not part of this entry.' });
 		const unconfirmed = requireConfirmation(event, form, 'Remove this photo from the entry?');
 		if (unconfirmed) return unconfirmed;

@@ -6,15 +6,17 @@ import {
 } from '$lib/schemas/judging';
 import { z } from 'zod';
 import type { Transaction } from 'sequelize';
-import { Panel, PanelClass, sequelize } from '$lib/server/db';
+import { sequelize } from '$lib/server/db';
 import { requireConfirmation } from '$lib/server/http/confirm';
 import { runFormAction } from '$lib/server/http/form-actions';
 import {
 	addJudge,
 	assignClass,
+	clerkOfPanel,
 	createPanel,
 	deletePanel,
 	loadPanelsPage,
+	panelOfClass,
 	removeJudge,
 	setClerk
 } from '$lib/server/judging/panels';
@@ -90,8 +92,8 @@ export const actions: Actions = {
 			return input.userId ? 'Clerk set.' : 'Clerk removed.';
 		},
 		async (show, input) => {
-			const panel = await Panel.findOne({ where: { id: input.panelId, showId: show.id } });
-			return panel?.clerkId && panel.clerkId !== (input.userId || null)
+			const clerkId = await clerkOfPanel(show.id, input.panelId);
+			return clerkId && clerkId !== (input.userId || null)
 				? 'Replace or remove the clerk of this panel?'
 				: null;
 		}
@@ -103,11 +105,8 @@ export const actions: Actions = {
 			return input.panelId ? 'Class assigned.' : 'Class taken off its panel.';
 		},
 		async (show, input) => {
-			const current = await PanelClass.findOne({ where: { classId: input.classId } });
-			const ofShow = current
-				? await Panel.count({ where: { id: current.panelId, showId: show.id } })
-				: 0;
-			return ofShow && current!.panelId !== (input.panelId || null)
+			const panelId = await panelOfClass(show.id, input.classId);
+			return panelId && panelId !== (input.panelId || null)
 				? 'Take this class off its panel?'
 				: null;
 		}

@@ -1,9 +1,8 @@
 import { error, json } from '@sveltejs/kit';
 import { z } from 'zod';
-import { Show, sequelize } from '$lib/server/db';
 import { requireRole } from '$lib/server/policies';
-import { queueEntryReminders } from '$lib/server/plants/reminders';
-import { societyToday } from '$lib/server/people/society-today';
+import { sendEntryRemindersNow } from '$lib/server/plants/reminders';
+import { societyOfShow } from '$lib/server/shows/shows';
 import type { RequestHandler } from './$types';
 
 /**
@@ -13,14 +12,8 @@ import type { RequestHandler } from './$types';
 export const POST: RequestHandler = async (event) => {
 	requireRole(event, ['chair']);
 	if (!z.uuid().safeParse(event.params.showId).success) error(404, 'This show does not exist.');
-	const show = await Show.findByPk(event.params.showId, { attributes: ['id', 'societyId'] });
-	if (!show) error(404, 'This show does not exist.');
-	requireRole(event, ['chair'], show.societyId);
-	const queued = await sequelize.transaction(async (transaction) =>
-		queueEntryReminders(show.id, {
-			transaction,
-			today: await societyToday(show.societyId, { transaction })
-		})
-	);
-	return json({ queued });
+	const societyId = await societyOfShow(event.params.showId);
+	if (!societyId) error(404, 'This show does not exist.');
+	requireRole(event, ['chair'], societyId);
+	return json({ queued: await sendEntryRemindersNow(event.params.showId, societyId) });
 };
