@@ -38,6 +38,14 @@ export const GROWTH_FORM_LABELS: Readonly<Record<string, string>> = {
 	trailing: 'trailing'
 };
 
+/** The growth forms as a form's choices name them: sentence case, "unifoliate" explained. */
+export const GROWTH_FORM_CHOICES: Readonly<Record<string, string>> = Object.fromEntries(
+	Object.entries(GROWTH_FORM_LABELS).map(([form, words]) => [
+		form,
+		capitalized(words) + (form === 'unifoliate' ? ' (one leaf)' : '')
+	])
+);
+
 /** What a size class is measured by: the span of the rosette, or the longest leaf blade. */
 export type SizeMeasure = 'diameter' | 'leaf';
 

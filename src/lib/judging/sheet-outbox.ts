@@ -131,11 +131,6 @@ export async function setAside(change: QueuedChange): Promise<void> {
 	await drop({ changeId: change.changeId });
 }
 
-/** Changes the server refused for good, oldest first. */
-export async function readSetAside(): Promise<QueuedChange[]> {
-	return (await get<QueuedChange[]>(SET_ASIDE_KEY, db())) ?? [];
-}
-
 /** Answers that may go away on their own: timed out, too many requests. */
 const TRY_AGAIN_LATER = new Set([408, 429]);
 
