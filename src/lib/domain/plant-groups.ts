@@ -169,13 +169,6 @@ export function groupSizeClass(group: PlantGroup, sizeClass: string): GroupSizeC
 	return group.sizeClasses.find((s) => s.key === sizeClass) ?? null;
 }
 
-/** The size class a variety of the group gets when none is given. */
-export function defaultSizeClass(group: PlantGroup): SizeClass {
-	return group.sizeClasses.some((s) => s.key === 'standard')
-		? 'standard'
-		: group.sizeClasses[0].key;
-}
-
 /**
  * The old single-crown/trailer habit that matches a growth form, for code that knows only
  * violets: a violet's habit is its growth form; any other trailing plant counts as a trailer.
