@@ -9,15 +9,6 @@
 /** How a show's entry numbers look. */
 export type EntryNumberForm = 'show_sequence' | 'class_prefix';
 
-export const ENTRY_NUMBER_FORMS: readonly EntryNumberForm[] = ['show_sequence', 'class_prefix'];
-
-/** Plain words for each form, for the chair's choice and the desk. */
-export const ENTRY_NUMBER_FORM_WORDS: Record<EntryNumberForm, string> = {
-	show_sequence: 'One shuffled sequence for the whole show (like 417)',
-	class_prefix:
-		'The class number, then a shuffled sequence within the class (like 12-07 printed as 1207)'
-};
-
 /** An entry to number: its id, and the class number when the form uses it. */
 export interface EntryToNumber {
 	id: string;

@@ -11,6 +11,7 @@ import {
 } from './eligibility';
 import {
 	AFRICAN_VIOLET,
+	GROWTH_FORM_CHOICES,
 	PLANT_GROUPS,
 	checkVarietyGroup,
 	describeGroupSize,
@@ -314,5 +315,18 @@ describe('checkEligibility: the size of a gesneriad at the desk', () => {
 		expect(() => codes(rules(), sinningia({ measured: { leafIn: -1 } }), 'desk')).toThrow(
 			RangeError
 		);
+	});
+});
+
+describe('growth forms as choices', () => {
+	it.each([
+		// Common practice: African violets are shown as single crowns or trailers.
+		['single_crown', 'Single crown'],
+		['trailer', 'Trailer'],
+		// Common practice: a unifoliate Streptocarpus grows a single leaf.
+		['unifoliate', 'Unifoliate (one leaf)'],
+		['rosette', 'Rosette']
+	])('%s reads "%s"', (form, words) => {
+		expect(GROWTH_FORM_CHOICES[form]).toBe(words);
 	});
 });

@@ -38,6 +38,14 @@ export const GROWTH_FORM_LABELS: Readonly<Record<string, string>> = {
 	trailing: 'trailing'
 };
 
+/** The growth forms as a form's choices name them: sentence case, "unifoliate" explained. */
+export const GROWTH_FORM_CHOICES: Readonly<Record<string, string>> = Object.fromEntries(
+	Object.entries(GROWTH_FORM_LABELS).map(([form, words]) => [
+		form,
+		capitalized(words) + (form === 'unifoliate' ? ' (one leaf)' : '')
+	])
+);
+
 /** What a size class is measured by: the span of the rosette, or the longest leaf blade. */
 export type SizeMeasure = 'diameter' | 'leaf';
 
@@ -159,13 +167,6 @@ export function findPlantGroup(typed: string): PlantGroup | null {
 /** The size class of a group by key, or null when the group has no such size class. */
 export function groupSizeClass(group: PlantGroup, sizeClass: string): GroupSizeClass | null {
 	return group.sizeClasses.find((s) => s.key === sizeClass) ?? null;
-}
-
-/** The size class a variety of the group gets when none is given. */
-export function defaultSizeClass(group: PlantGroup): SizeClass {
-	return group.sizeClasses.some((s) => s.key === 'standard')
-		? 'standard'
-		: group.sizeClasses[0].key;
 }
 
 /**

@@ -4,7 +4,7 @@
  * one at a time; each carries a change id, so a change sent twice (a reply lost on the way back)
  * is applied once. Everything is kept per person (tablet-names.ts): `useTabletOf` picks whose.
  */
-import { clear, createStore, del, get, set, update, type UseStore } from 'idb-keyval';
+import { clear, createStore, get, set, update, type UseStore } from 'idb-keyval';
 import { LEGACY_DB, LEGACY_STORE, TABLET_KEYS, TABLET_STORE, tabletDbOf } from './tablet-names';
 import type { QueuedChange, SendOutcome, TabletSheet } from './types';
 
@@ -72,11 +72,6 @@ export async function readLastReached(): Promise<number | null> {
 	return (await get<number>(TABLET_KEYS.lastReached, db())) ?? null;
 }
 
-/** Forgets the kept sheets (not the waiting changes); used in tests and by the service worker. */
-export async function forgetKeptSheets(): Promise<void> {
-	await del(TABLET_KEYS.sheets, db());
-}
-
 /** Every change still waiting, oldest first. */
 export async function readQueue(): Promise<QueuedChange[]> {
 	return (await get<QueuedChange[]>(KEY, db())) ?? [];
@@ -129,11 +124,6 @@ export async function drop(match: { changeId?: string; entryId?: string }): Prom
 export async function setAside(change: QueuedChange): Promise<void> {
 	await update<QueuedChange[]>(SET_ASIDE_KEY, (list) => [...(list ?? []), change], db());
 	await drop({ changeId: change.changeId });
-}
-
-/** Changes the server refused for good, oldest first. */
-export async function readSetAside(): Promise<QueuedChange[]> {
-	return (await get<QueuedChange[]>(SET_ASIDE_KEY, db())) ?? [];
 }
 
 /** Answers that may go away on their own: timed out, too many requests. */

@@ -105,9 +105,9 @@ export async function findDeskExhibitors(show: Show, text: string): Promise<Desk
 }
 
 /** An entry the desk refused, with every failed rule and what to do about it. */
-export class DeskEntryRefused extends Error {
+export class DeskEntryRefused extends Refusal {
 	constructor(readonly failures: DeskFailure[]) {
-		super(failures.map((f) => f.message).join(' '));
+		super(failures.map((f) => f.message).join(' '), 400, undefined, failures);
 	}
 }
 

@@ -34,3 +34,8 @@ export function refusalAnswer(
 	if (!isRefusal(err)) throw err;
 	return { status: err.status, body: { message: err.message, ...extra?.(err) } };
 }
+
+/** The refusal's message under the field it concerns, as the form pages show field errors. */
+export function fieldErrorOf(refusal: Refusal): Record<string, string> {
+	return refusal.field ? { [refusal.field]: refusal.message } : {};
+}

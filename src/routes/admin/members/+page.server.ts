@@ -9,14 +9,10 @@ import {
 } from '$lib/schemas/members';
 import { sequelize } from '$lib/server/db';
 import { requireRole } from '$lib/server/policies';
-import {
-	MemberChangeError,
-	changeMemberRoles,
-	inviteMember,
-	listMembers
-} from '$lib/server/people/members';
+import { changeMemberRoles, inviteMember, listMembers } from '$lib/server/people/members';
 import { chooseSociety } from '$lib/server/people/society-choice';
 import type { Actions, PageServerLoad } from './$types';
+import { refusedForm } from '$lib/server/http/refusals';
 
 export const load: PageServerLoad = async (event) => {
 	const user = requireRole(event, ['admin']);
@@ -55,10 +51,9 @@ export const actions: Actions = {
 			);
 			return { invite: { saved: `Invitation sent to ${invited.email}.` } };
 		} catch (err) {
-			if (!(err instanceof MemberChangeError)) throw err;
-			return fail(400, {
-				invite: { message: err.message, errors: { email: [err.message] }, email }
-			});
+			return refusedForm(err, (r) => ({
+				invite: { message: r.message, errors: { email: [r.message] }, email }
+			}));
 		}
 	},
 
@@ -87,8 +82,7 @@ export const actions: Actions = {
 				roles.map((r) => ROLE_LABELS[r]).join(', ') || 'no role';
 			return { roles: { saved: `Roles saved: ${label(result.roles)}.`, message: null } };
 		} catch (err) {
-			if (!(err instanceof MemberChangeError)) throw err;
-			return fail(400, { roles: { message: err.message, saved: null } });
+			return refusedForm(err, (r) => ({ roles: { message: r.message, saved: null } }));
 		}
 	}
 };

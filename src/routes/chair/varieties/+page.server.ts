@@ -8,13 +8,13 @@ import { requireRole } from '$lib/server/policies';
 import { chooseSociety } from '$lib/server/people/society-choice';
 import {
 	MAX_IMPORT_CHARS,
-	VarietyProblem,
 	findVariety,
 	importVarietiesCsv,
 	saveVariety,
 	toVarietyRow
 } from '$lib/server/plants/varieties';
 import type { Actions, PageServerLoad } from './$types';
+import { fieldErrorOf, refusedForm } from '$lib/server/http/refusals';
 
 const FIELDS = [
 	'name',
@@ -66,8 +66,7 @@ export const actions: Actions = {
 			);
 			return { saved: `“${saved.name}” is saved in the registry.` };
 		} catch (e) {
-			if (!(e instanceof VarietyProblem)) throw e;
-			return fail(400, { message: e.message, errors: { [e.field]: e.message }, values });
+			return refusedForm(e, (r) => ({ errors: fieldErrorOf(r), values }));
 		}
 	},
 	import: async (event) => {

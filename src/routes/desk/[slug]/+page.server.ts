@@ -1,11 +1,10 @@
-import { fail } from '@sveltejs/kit';
 import { requireConfirmation } from '$lib/server/http/confirm';
 import { requireShowRole } from '$lib/server/shows/policies';
 import { findDeskEntries } from '$lib/server/entries/desk';
 import { deskWindowOf } from '$lib/server/entries/desk-entries';
-import { DeskProblem } from '$lib/server/entries/desk-problem';
 import { fixEntryNumbersNow } from '$lib/server/entries/entry-numbers';
 import type { Actions, PageServerLoad } from './$types';
+import { refusedForm } from '$lib/server/http/refusals';
 
 const ROLES = ['clerk', 'chair'] as const;
 
@@ -41,8 +40,7 @@ export const actions: Actions = {
 					: 'The entry numbers were fixed already.'
 			};
 		} catch (e) {
-			if (e instanceof DeskProblem) return fail(400, { message: e.message });
-			throw e;
+			return refusedForm(e);
 		}
 	}
 };

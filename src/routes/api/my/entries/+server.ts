@@ -1,7 +1,8 @@
 import { json } from '@sveltejs/kit';
 import { readEntryRequest } from '$lib/server/entries/entry-api';
-import { EntryInputProblem, EntryRefused, enterPlant } from '$lib/server/entries/entries';
+import { EntryRefused, enterPlant } from '$lib/server/entries/entries';
 import type { RequestHandler } from './$types';
+import { fieldErrorOf, refusalAnswer } from '$lib/server/http/refusals';
 
 /** Enters a plant; 422 with every failed rule when the rules refuse it (nothing is written). */
 export const POST: RequestHandler = async (event) => {
@@ -17,9 +18,7 @@ export const POST: RequestHandler = async (event) => {
 				{ status: 422 }
 			);
 		}
-		if (e instanceof EntryInputProblem) {
-			return json({ message: e.message, errors: { [e.field]: e.message } }, { status: 400 });
-		}
-		throw e;
+		const { status, body } = refusalAnswer(e, (r) => ({ errors: fieldErrorOf(r) }));
+		return json(body, { status });
 	}
 };

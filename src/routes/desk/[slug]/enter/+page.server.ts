@@ -10,9 +10,9 @@ import {
 	findDeskExhibitors,
 	listDeskClasses
 } from '$lib/server/entries/desk-entries';
-import { DeskProblem } from '$lib/server/entries/desk-problem';
 import { loadSocietySettings } from '$lib/server/people/society-settings';
 import type { Actions, PageServerLoad } from './$types';
+import { refusedForm } from '$lib/server/http/refusals';
 
 const ROLES = ['clerk', 'chair'] as const;
 const FIELDS = [
@@ -69,15 +69,15 @@ export const actions: Actions = {
 				enterAtDesk(show.id, user, parsed.data, { transaction })
 			);
 		} catch (e) {
-			if (e instanceof DeskEntryRefused) {
-				return fail(400, {
-					message: 'The plant does not fit the class; nothing was entered.',
-					failures: e.failures,
-					values
-				});
-			}
-			if (e instanceof DeskProblem) return fail(400, { message: e.message, values });
-			throw e;
+			return refusedForm(e, (r) =>
+				r instanceof DeskEntryRefused
+					? {
+							message: 'The plant does not fit the class; nothing was entered.',
+							failures: r.failures,
+							values
+						}
+					: { values }
+			);
 		}
 		redirect(303, `/desk/${show.slug}/entries/${entered.number}?entered=1`);
 	}

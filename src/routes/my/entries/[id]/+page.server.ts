@@ -7,7 +7,6 @@ import { requireRole } from '$lib/server/policies';
 import {
 	MAX_PHOTO_BYTES,
 	MAX_PHOTOS_PER_ENTRY,
-	PhotoProblem,
 	addEntryPhoto,
 	deleteEntryPhoto,
 	findPhotoOfEntry,
@@ -16,6 +15,7 @@ import {
 import { loadMyEntryResult } from '$lib/server/results/my-results';
 import { readOnePhoto } from '$lib/server/http/uploads';
 import type { Actions, PageServerLoad } from './$types';
+import { refusedForm } from '$lib/server/http/refusals';
 
 /** The signed-in member's own entry, or 404 (another person's entry is never shown). */
 async function ownEntry(event: Pick<RequestEvent, 'url' | 'locals'>, id: string): Promise<Entry> {
@@ -51,8 +51,7 @@ export const actions: Actions = {
 				addEntryPhoto(entry, user.id, upload.file, { transaction })
 			);
 		} catch (e) {
-			if (e instanceof PhotoProblem) return fail(400, { message: e.message });
-			throw e;
+			return refusedForm(e);
 		}
 		return { saved: 'The photo is added.' };
 	},

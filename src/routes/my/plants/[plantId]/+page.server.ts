@@ -19,6 +19,8 @@ import { loadPlantHistory } from '$lib/server/results/my-results';
 import { loadMemberSettings } from '$lib/server/people/society-today';
 import { readOnePhoto } from '$lib/server/http/uploads';
 import type { Actions, PageServerLoad } from './$types';
+import { fieldErrorOf, refusedForm } from '$lib/server/http/refusals';
+import { isRefusal } from '$lib/server/http/refusal';
 
 export const load: PageServerLoad = async (event) => {
 	const { user, id } = memberAndId(event, event.params.plantId);
@@ -40,9 +42,8 @@ async function write(event: RequestEvent, action: string, run: Write) {
 		const done = await sequelize.transaction((transaction) => run(user.id, id, transaction));
 		return { action, done };
 	} catch (err) {
-		if (!(err instanceof PlantInputError)) throw err;
-		if (err.field === 'plant') error(404, err.message);
-		return fail(400, { action, message: err.message, errors: { [err.field]: err.message } });
+		if (isRefusal(err) && err.field === 'plant') error(404, err.message);
+		return refusedForm(err, (r) => ({ action, errors: fieldErrorOf(r) }));
 	}
 }
 

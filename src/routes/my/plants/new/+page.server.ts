@@ -4,14 +4,9 @@ import { sequelize } from '$lib/server/db';
 import { readPlantForm } from '$lib/server/plants/plant-forms';
 import { memberAndId } from '$lib/server/plants/plant-route';
 import { loadMemberSettings } from '$lib/server/people/society-today';
-import {
-	PlantInputError,
-	createPlant,
-	listPlants,
-	listVarietyChoices,
-	plantName
-} from '$lib/server/plants/plants';
+import { createPlant, listPlants, listVarietyChoices, plantName } from '$lib/server/plants/plants';
 import type { Actions, PageServerLoad } from './$types';
+import { refusedForm } from '$lib/server/http/refusals';
 
 export const load: PageServerLoad = async (event) => {
 	const { user, societyIds } = memberAndId(event);
@@ -47,13 +42,10 @@ export const actions: Actions = {
 			);
 			id = plant.id;
 		} catch (error) {
-			if (!(error instanceof PlantInputError)) throw error;
-			const field = error.field === 'plant' ? 'parentId' : error.field;
-			return fail(400, {
-				message: error.message,
-				errors: { [field]: error.message },
+			return refusedForm(error, (r) => ({
+				errors: { [r.field === 'plant' ? 'parentId' : (r.field ?? 'form')]: r.message },
 				values: Object.fromEntries([...form.entries()].map(([k, v]) => [k, String(v)]))
-			});
+			}));
 		}
 		redirect(303, `/my/plants/${id}`);
 	}

@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { todayIn } from '$lib/domain/dates';
 import { sequelize } from '$lib/server/db';
 import { memberAndId } from '$lib/server/plants/plant-route';
-import { PlantEntryRefused, createEntryFromPlant } from '$lib/server/plants/plant-entries';
+import { createEntryFromPlant } from '$lib/server/plants/plant-entries';
 import {
 	assessCollections,
 	listUpcomingShows,
@@ -12,6 +12,7 @@ import {
 import { loadLastTimes } from '$lib/server/results/my-results';
 import { loadMemberSettings, societyToday } from '$lib/server/people/society-today';
 import type { Actions, PageServerLoad } from './$types';
+import { refusedForm } from '$lib/server/http/refusals';
 
 const ORDER = { ready: 0, needs_work: 1, cannot_enter: 2, no_class: 3 } as const;
 
@@ -63,8 +64,7 @@ export const actions: Actions = {
 			);
 			return { entered: entry.number, plantId: parsed.data.plantId };
 		} catch (err) {
-			if (!(err instanceof PlantEntryRefused)) throw err;
-			return fail(400, { message: err.message, plantId: parsed.data.plantId });
+			return refusedForm(err, () => ({ plantId: parsed.data.plantId }));
 		}
 	}
 };

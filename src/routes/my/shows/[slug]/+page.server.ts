@@ -6,7 +6,6 @@ import { requireConfirmation } from '$lib/server/http/confirm';
 import { fieldErrors, textFields } from '$lib/server/http/forms';
 import { requireShowRole } from '$lib/server/shows/policies';
 import {
-	EntryInputProblem,
 	EntryRefused,
 	enterPlant,
 	entriesStillOpen,
@@ -16,6 +15,7 @@ import {
 import { loadSchedule } from '$lib/server/shows/schedule';
 import { societyToday } from '$lib/server/people/society-today';
 import type { Actions, PageServerLoad } from './$types';
+import { fieldErrorOf, refusedForm } from '$lib/server/http/refusals';
 
 export const load: PageServerLoad = async (event) => {
 	const { show, user } = await requireShowRole(event, event.params.slug, ['member']);
@@ -64,17 +64,15 @@ export const actions: Actions = {
 			const entry = await enterPlant(show.id, user.id, parsed.data);
 			return { entered: `Entered as number ${entry.number}.`, number: entry.number };
 		} catch (e) {
-			if (e instanceof EntryRefused) {
-				return fail(400, {
-					message: 'This entry was refused; nothing was entered.',
-					failures: e.failures,
-					values
-				});
-			}
-			if (e instanceof EntryInputProblem) {
-				return fail(400, { message: e.message, errors: { [e.field]: e.message }, values });
-			}
-			throw e;
+			return refusedForm(e, (r) =>
+				r instanceof EntryRefused
+					? {
+							message: 'This entry was refused; nothing was entered.',
+							failures: r.failures,
+							values
+						}
+					: { errors: fieldErrorOf(r), values }
+			);
 		}
 	},
 	withdraw: async (event) => {

@@ -1,7 +1,8 @@
 import { json } from '@sveltejs/kit';
 import { readEntryRequest } from '$lib/server/entries/entry-api';
-import { EntryInputProblem, previewEntry } from '$lib/server/entries/entries';
+import { previewEntry } from '$lib/server/entries/entries';
 import type { RequestHandler } from './$types';
+import { fieldErrorOf, refusalAnswer } from '$lib/server/http/refusals';
 
 /** Whether an entry would fit its class, and every reason why not; writes nothing. */
 export const POST: RequestHandler = async (event) => {
@@ -10,7 +11,7 @@ export const POST: RequestHandler = async (event) => {
 	try {
 		return json(await previewEntry(read.show, read.user.id, read.input));
 	} catch (e) {
-		if (!(e instanceof EntryInputProblem)) throw e;
-		return json({ message: e.message, errors: { [e.field]: e.message } }, { status: 400 });
+		const { status, body } = refusalAnswer(e, (r) => ({ errors: fieldErrorOf(r) }));
+		return json(body, { status });
 	}
 };

@@ -4,15 +4,10 @@ import { sequelize } from '$lib/server/db';
 import { requireConfirmation } from '$lib/server/http/confirm';
 import { fieldErrors, textFields } from '$lib/server/http/forms';
 import { requireShowRole } from '$lib/server/shows/policies';
-import {
-	DeskProblem,
-	checkInEntry,
-	loadDeskEntry,
-	moveEntry,
-	scratchEntry
-} from '$lib/server/entries/desk';
+import { checkInEntry, loadDeskEntry, moveEntry, scratchEntry } from '$lib/server/entries/desk';
 import { loadSocietySettings } from '$lib/server/people/society-settings';
 import type { Actions, PageServerLoad } from './$types';
+import { refusedForm } from '$lib/server/http/refusals';
 
 const ROLES = ['clerk', 'chair'] as const;
 
@@ -30,7 +25,7 @@ async function attempt(change: (t: import('sequelize').Transaction) => Promise<u
 		await sequelize.transaction(change);
 		return null;
 	} catch (e) {
-		if (e instanceof DeskProblem) return fail(400, { message: e.message });
+		return refusedForm(e);
 		throw e;
 	}
 }

@@ -3,7 +3,6 @@ import { sequelize } from '$lib/server/db';
 import { readPlantForm } from '$lib/server/plants/plant-forms';
 import { memberAndId } from '$lib/server/plants/plant-route';
 import {
-	PlantInputError,
 	getPlant,
 	listPlants,
 	listVarietyChoices,
@@ -13,6 +12,8 @@ import {
 import { lengthInUnit } from '$lib/domain/units';
 import { loadMemberSettings } from '$lib/server/people/society-today';
 import type { Actions, PageServerLoad } from './$types';
+import { refusedForm } from '$lib/server/http/refusals';
+import { isRefusal } from '$lib/server/http/refusal';
 
 export const load: PageServerLoad = async (event) => {
 	const { user, societyIds, id } = memberAndId(event, event.params.plantId);
@@ -61,14 +62,11 @@ export const actions: Actions = {
 				updatePlant(user.id, societyIds, id, read.data, { transaction })
 			);
 		} catch (err) {
-			if (!(err instanceof PlantInputError)) throw err;
-			if (err.field === 'plant' && !read.data.parentId) error(404, err.message);
-			const field = err.field === 'plant' ? 'parentId' : err.field;
-			return fail(400, {
-				message: err.message,
-				errors: { [field]: err.message },
+			if (isRefusal(err) && err.field === 'plant' && !read.data.parentId) error(404, err.message);
+			return refusedForm(err, (r) => ({
+				errors: { [r.field === 'plant' ? 'parentId' : (r.field ?? 'form')]: r.message },
 				values: Object.fromEntries([...form.entries()].map(([k, v]) => [k, String(v)]))
-			});
+			}));
 		}
 		redirect(303, `/my/plants/${id}`);
 	}
