@@ -29,9 +29,15 @@ import {
 	savesSpread,
 	settle,
 	type LoadFigures,
-	type PacedFigures
+	type PacedFigures,
+	type SpreadFigures
 } from './loads';
-import { busySaturday, type SaturdayFigures } from './saturday';
+import {
+	busySaturdayTurn,
+	saturdayFigures,
+	type SaturdayFigures,
+	type SaturdayTurn
+} from './saturday';
 
 const dbUrl = process.env.CB_BENCH_DB_URL ?? 'postgres://postgres@127.0.0.1:54329/crownbench_bench';
 const appPort = Number(process.env.CB_BENCH_APP_PORT ?? 4890);
@@ -217,10 +223,11 @@ const savesMet = (f: SaturdayFigures) =>
 	f.saves.latencyMs.p95 < 50;
 
 /**
- * The busy Saturday (see saturday.ts): publishes the show the public reads, then runs the load
- * against the app, then the bare baseline (each after 5 s of warm-up, not counted), then starts a
- * second instance of the app on the same database and runs it against both, and last the saves
- * at saturation against one instance and against two, for the throughput ratio two/one.
+ * The busy Saturday (see saturday.ts): publishes the show the public reads, starts a second
+ * instance of the app on the same database, then runs the load in `rounds` turns against the app,
+ * the bare baseline and the two instances of the app (each first 5 s of warm-up, not counted),
+ * and last the saves at saturation in turns against one instance and against two, for the
+ * throughput ratio two/one.
  */
 async function saturdayReport(
 	saturday: BenchSaturday,
@@ -229,75 +236,90 @@ async function saturdayReport(
 ): Promise<Record<string, unknown>> {
 	const publishMs = await publish(saturday.published);
 	const [appTarget, baseTarget] = targets;
-	const run = (on: { url: string; pid?: number }[], seconds = saturdaySettings.seconds) =>
-		busySaturday({
-			targets: on,
-			saturday,
-			dbUrl,
-			dbDir,
-			settings: { ...saturdaySettings, seconds }
-		});
-	const figures: Record<string, SaturdayFigures> = {};
-	for (const t of [appTarget, baseTarget]) {
-		log(`busy Saturday against the ${t.name}: 5 s of warm-up, then ${saturdaySettings.seconds} s`);
-		await run([t], 5);
-		await settle();
-		figures[t.name] = await run([t]);
-		await settle();
-		log(`  saves p95 ${figures[t.name].saves.latencyMs.p95} ms, load ${loadAverage().join(' ')}`);
-	}
-	const { app: a, baseline: b } = figures;
-	const r = (x: number, y: number) => ratio(x, y);
-
 	log('a second instance of the app on the same database');
 	const second = await startSecond();
-	const both = [appTarget, { url: second.url, pid: second.pid }];
-	let two: Record<string, unknown>;
 	try {
-		log(
-			`busy Saturday split over two instances: 5 s of warm-up, then ${saturdaySettings.seconds} s`
-		);
-		await run(both, 5);
-		await settle();
-		const split = await run(both);
-		await settle();
+		const servers = [
+			{ name: 'app', on: [appTarget] },
+			{ name: 'baseline', on: [baseTarget] },
+			{ name: 'twoInstances', on: [appTarget, { url: second.url, pid: second.pid }] }
+		];
+		const turn = (on: { url: string; pid?: number }[], seconds: number) =>
+			busySaturdayTurn({
+				targets: on,
+				saturday,
+				dbUrl,
+				dbDir,
+				settings: { ...saturdaySettings, seconds }
+			});
+		log('busy Saturday: 5 s of warm-up each for the app, the baseline and the two instances');
+		for (const s of servers) {
+			await turn(s.on, 5);
+			await settle();
+		}
+		const turns = new Map(servers.map((s) => [s.name, [] as SaturdayTurn[]]));
+		for (let i = 0; i < rounds; i++) {
+			for (const s of servers) {
+				log(`busy Saturday, turn ${i + 1} of ${rounds}: ${s.name}`);
+				const t = await turn(s.on, saturdaySettings.seconds / rounds);
+				turns.get(s.name)!.push(t);
+				await settle();
+				log(`  saves p95 ${saturdayFigures([t]).saves.latencyMs.p95} ms, load ${loadAverage()[0]}`);
+			}
+		}
+		const [a, b, two] = servers.map((s) => saturdayFigures(turns.get(s.name)!));
+
 		const judges = { judges: saturday.shows.flatMap((s) => s.judges) };
-		log(`saves at saturation, ${connections} connections, ${seconds} s: one instance, then two`);
-		const one = await savesSpread({ targets: [appTarget], judges, dbUrl, connections, seconds });
-		const twoSpread = await savesSpread({ targets: both, judges, dbUrl, connections, seconds });
-		two = {
-			busySaturday: { ...split, met: savesMet(split) },
-			savesAtSaturation: {
-				one,
-				two: twoSpread,
-				throughputRatio: r(twoSpread.requestsPerSecond, one.requestsPerSecond),
-				loadAverage: loadAverage()
+		const spread: Record<'one' | 'two', SpreadFigures[]> = { one: [], two: [] };
+		for (let i = 0; i < rounds; i++) {
+			for (const [name, on] of [
+				['one', servers[0].on],
+				['two', servers[2].on]
+			] as const) {
+				log(`saves at saturation, turn ${i + 1} of ${rounds}: ${name} instance(s)`);
+				spread[name].push(
+					await savesSpread({ targets: on, judges, dbUrl, connections, seconds: seconds / rounds })
+				);
+			}
+		}
+		const perSecond = (list: SpreadFigures[]) =>
+			round(list.reduce((n, f) => n + f.requestsPerSecond, 0) / list.length, 1);
+		const r = (x: number, y: number) => ratio(x, y);
+		return {
+			settings: { ...saturdaySettings, rounds, secondAppPort },
+			seeded: saturday.counts,
+			publishedShow: { slug: saturday.published.slug, publishMs },
+			app: a,
+			baseline: b,
+			ratio: {
+				savesP50: r(a.saves.latencyMs.p50, b.saves.latencyMs.p50),
+				savesP95: r(a.saves.latencyMs.p95, b.saves.latencyMs.p95),
+				boardsP95: r(a.boards.latencyMs.p95, b.boards.latencyMs.p95),
+				publicReadsP95: r(a.publicReads.latencyMs.p95, b.publicReads.latencyMs.p95),
+				cpuPerRequest:
+					a.cpuMsPerRequest !== null && b.cpuMsPerRequest !== null
+						? r(a.cpuMsPerRequest, b.cpuMsPerRequest)
+						: null
 			},
-			cores: cpus().length
+			target: { savesP95Ms: 50 },
+			met: savesMet(a),
+			twoInstances: {
+				busySaturday: { ...two, met: savesMet(two) },
+				savesAtSaturation: {
+					connections,
+					one: spread.one,
+					two: spread.two,
+					oneRequestsPerSecond: perSecond(spread.one),
+					twoRequestsPerSecond: perSecond(spread.two),
+					throughputRatio: r(perSecond(spread.two), perSecond(spread.one)),
+					loadAverage: loadAverage()
+				},
+				cores: cpus().length
+			}
 		};
 	} finally {
 		await second.stop();
 	}
-	return {
-		settings: { ...saturdaySettings, secondAppPort },
-		seeded: saturday.counts,
-		publishedShow: { slug: saturday.published.slug, publishMs },
-		app: a,
-		baseline: b,
-		ratio: {
-			savesP50: r(a.saves.latencyMs.p50, b.saves.latencyMs.p50),
-			savesP95: r(a.saves.latencyMs.p95, b.saves.latencyMs.p95),
-			boardsP95: r(a.boards.latencyMs.p95, b.boards.latencyMs.p95),
-			publicReadsP95: r(a.publicReads.latencyMs.p95, b.publicReads.latencyMs.p95),
-			cpuPerRequest:
-				a.cpuMsPerRequest !== null && b.cpuMsPerRequest !== null
-					? r(a.cpuMsPerRequest, b.cpuMsPerRequest)
-					: null
-		},
-		target: { savesP95Ms: 50 },
-		met: savesMet(a),
-		twoInstances: two
-	};
 }
 
 async function main(): Promise<void> {

@@ -10,6 +10,8 @@
  * Each client starts at a random moment of its first interval and waits for its answer before the
  * next (a slow answer makes it ask later, as a tablet or browser does). Times run from sending to
  * the answer's last byte; the CPU time is the servers' processes' (and PostgreSQL's) over the run.
+ * A run is taken in turns (busySaturdayTurn), so that the servers compared meet a busy machine
+ * alike; saturdayFigures adds the turns of one server up.
  */
 import { readFileSync, readdirSync } from 'node:fs';
 import http from 'node:http';
@@ -28,10 +30,12 @@ export interface KindFigures {
 	errors: number;
 }
 
-/** What the servers did under the busy Saturday. */
+/** What the servers did under the busy Saturday, across its turns. */
 export interface SaturdayFigures {
 	instances: number;
 	seconds: number;
+	/** Each turn's save p95 and the machine's load average (1 min) at its end. */
+	turns: { savesP95Ms: number; loadAverage1m: number }[];
 	saves: KindFigures & { saved: number };
 	boards: KindFigures;
 	publicReads: KindFigures;
@@ -41,8 +45,6 @@ export interface SaturdayFigures {
 	cpuMsPerRequest: number | null;
 	/** PostgreSQL's CPU time (every process of our cluster) per answered request. */
 	postgresCpuMsPerRequest: number | null;
-	/** The machine's load average (1, 5, 15 min) at the end of the run. */
-	loadAverage: number[];
 }
 
 export interface SaturdaySettings {
@@ -75,47 +77,107 @@ export function postgresCpuMs(dataDir: string): number | null {
 	}
 }
 
-class Tally {
-	times: number[] = [];
-	non2xx = 0;
-	errors = 0;
-	constructor(
-		readonly clients: number,
-		readonly intervalMs: number
-	) {}
+/** The answers of one kind of request in one turn. */
+interface Tally {
+	clients: number;
+	intervalMs: number;
+	times: number[];
+	non2xx: number;
+	errors: number;
+}
 
-	figures(seconds: number): KindFigures {
-		const sorted = [...this.times].sort((a, b) => a - b);
-		const ms = (v: number) => Math.round(v * 10) / 10;
-		return {
-			clients: this.clients,
-			intervalMs: this.intervalMs,
-			requests: sorted.length,
-			requestsPerSecond: Math.round((sorted.length / seconds) * 10) / 10,
-			latencyMs: {
-				p50: ms(percentile(sorted, 50)),
-				p95: ms(percentile(sorted, 95)),
-				p99: ms(percentile(sorted, 99)),
-				max: ms(sorted.at(-1) ?? 0)
-			},
-			non2xx: this.non2xx,
-			errors: this.errors
-		};
-	}
+const tallyOf = (clients: number, intervalMs: number): Tally => ({
+	clients,
+	intervalMs,
+	times: [],
+	non2xx: 0,
+	errors: 0
+});
+
+/** One turn of the busy Saturday against one server (one or several instances). */
+export interface SaturdayTurn {
+	instances: number;
+	seconds: number;
+	saves: Tally;
+	boards: Tally;
+	publicReads: Tally;
+	saved: number;
+	cpuMs: number | null;
+	postgresCpuMs: number | null;
+	loadAverage1m: number;
+}
+
+function figuresOf(tallies: Tally[], seconds: number): KindFigures {
+	const sorted = tallies.flatMap((t) => t.times).sort((a, b) => a - b);
+	const ms = (v: number) => Math.round(v * 10) / 10;
+	return {
+		clients: tallies[0].clients,
+		intervalMs: tallies[0].intervalMs,
+		requests: sorted.length,
+		requestsPerSecond: Math.round((sorted.length / seconds) * 10) / 10,
+		latencyMs: {
+			p50: ms(percentile(sorted, 50)),
+			p95: ms(percentile(sorted, 95)),
+			p99: ms(percentile(sorted, 99)),
+			max: ms(sorted.at(-1) ?? 0)
+		},
+		non2xx: tallies.reduce((n, t) => n + t.non2xx, 0),
+		errors: tallies.reduce((n, t) => n + t.errors, 0)
+	};
+}
+
+const addUp = (values: (number | null)[]): number | null =>
+	values.reduce<number | null>((n, v) => (n !== null && v !== null ? n + v : null), 0);
+
+/** The figures of one server from its turns: times across every turn, CPU time per request. */
+export function saturdayFigures(turns: SaturdayTurn[]): SaturdayFigures {
+	const seconds = turns.reduce((n, t) => n + t.seconds, 0);
+	const figures = {
+		saves: {
+			...figuresOf(
+				turns.map((t) => t.saves),
+				seconds
+			),
+			saved: turns.reduce((n, t) => n + t.saved, 0)
+		},
+		boards: figuresOf(
+			turns.map((t) => t.boards),
+			seconds
+		),
+		publicReads: figuresOf(
+			turns.map((t) => t.publicReads),
+			seconds
+		)
+	};
+	const requests = figures.saves.requests + figures.boards.requests + figures.publicReads.requests;
+	const perRequest = (ms: number | null) =>
+		ms !== null && requests > 0 ? Math.round((ms / requests) * 100) / 100 : null;
+	return {
+		instances: turns[0].instances,
+		seconds,
+		turns: turns.map((t) => ({
+			savesP95Ms: figuresOf([t.saves], t.seconds).latencyMs.p95,
+			loadAverage1m: t.loadAverage1m
+		})),
+		...figures,
+		requests,
+		requestsPerSecond: Math.round((requests / seconds) * 10) / 10,
+		cpuMsPerRequest: perRequest(addUp(turns.map((t) => t.cpuMs))),
+		postgresCpuMsPerRequest: perRequest(addUp(turns.map((t) => t.postgresCpuMs)))
+	};
 }
 
 /**
- * Runs the busy Saturday for `seconds` against the instances in `targets` (one, or several of the
- * same server sharing the database). Returns the times per kind, the answered and failed
- * requests, and the CPU time per request.
+ * One turn of the busy Saturday for `settings.seconds` against the instances in `targets` (one,
+ * or several of the same server sharing the database; each client keeps to one of them).
  */
-export async function busySaturday(input: {
+export async function busySaturdayTurn(input: {
 	targets: { url: string; pid?: number }[];
 	saturday: BenchSaturday;
 	dbUrl: string;
 	dbDir: string;
 	settings: SaturdaySettings;
-}): Promise<SaturdayFigures> {
+}): Promise<SaturdayTurn> {
 	const { targets, saturday, dbUrl, dbDir, settings } = input;
 	const { seconds } = settings;
 	const judges = saturday.shows.flatMap((s) => s.judges);
@@ -123,9 +185,9 @@ export async function busySaturday(input: {
 	const saves = await saveMaker({ judges }, dbUrl, counter);
 	const agents = targets.map(() => new http.Agent({ keepAlive: true }));
 	const tally = {
-		saves: new Tally(judges.length, settings.saveIntervalMs),
-		boards: new Tally(saturday.shows.length, settings.boardIntervalMs),
-		publicReads: new Tally(settings.readers, settings.readerIntervalMs)
+		saves: tallyOf(judges.length, settings.saveIntervalMs),
+		boards: tallyOf(saturday.shows.length, settings.boardIntervalMs),
+		publicReads: tallyOf(settings.readers, settings.readerIntervalMs)
 	};
 	const cpuBefore = targets.map((t) => cpuMs(t.pid));
 	const pgBefore = postgresCpuMs(dbDir);
@@ -207,31 +269,19 @@ export async function busySaturday(input: {
 	const cpuAfter = targets.map((t) => cpuMs(t.pid));
 	const pgAfter = postgresCpuMs(dbDir);
 	for (const a of agents) a.destroy();
-
-	let cpu: number | null = 0;
-	targets.forEach((_, i) => {
-		const b = cpuBefore[i];
-		const a = cpuAfter[i];
-		cpu = cpu !== null && a !== null && b !== null ? cpu + a - b : null;
-	});
-	const figures = {
-		saves: { ...tally.saves.figures(seconds), saved: counter.saved },
-		boards: tally.boards.figures(seconds),
-		publicReads: tally.publicReads.figures(seconds)
-	};
-	const requests = figures.saves.requests + figures.boards.requests + figures.publicReads.requests;
-	const perRequest = (ms: number | null) =>
-		ms !== null && requests > 0 ? Math.round((ms / requests) * 100) / 100 : null;
 	return {
 		instances: targets.length,
 		seconds,
-		...figures,
-		requests,
-		requestsPerSecond: Math.round((requests / seconds) * 10) / 10,
-		cpuMsPerRequest: perRequest(cpu),
-		postgresCpuMsPerRequest: perRequest(
-			pgBefore !== null && pgAfter !== null ? pgAfter - pgBefore : null
+		...tally,
+		saved: counter.saved,
+		cpuMs: addUp(
+			targets.map((_, i) => {
+				const b = cpuBefore[i];
+				const a = cpuAfter[i];
+				return a !== null && b !== null ? a - b : null;
+			})
 		),
-		loadAverage: loadavg().map((l) => Math.round(l * 100) / 100)
+		postgresCpuMs: pgBefore !== null && pgAfter !== null ? pgAfter - pgBefore : null,
+		loadAverage1m: Math.round(loadavg()[0] * 100) / 100
 	};
 }
