@@ -55,23 +55,32 @@ export interface SaturdaySettings {
 	seconds: number;
 }
 
-/** CPU time (ms) of every process of our PostgreSQL cluster: the postmaster and its children. */
+/** The fields of /proc/<pid>/stat after the command name (state is the first, the parent second). */
+function statFields(pid: number | string): string[] {
+	const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
+	return stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+}
+
+/**
+ * CPU time (ms) of our PostgreSQL cluster so far: the postmaster's own, that of its backends that
+ * have ended (its children's time, once reaped), and that of its live backends. Null without /proc.
+ */
 export function postgresCpuMs(dataDir: string): number | null {
 	try {
 		const postmaster = Number(readFileSync(`${dataDir}/postmaster.pid`, 'utf8').split('\n')[0]);
-		let total = cpuMs(postmaster) ?? 0;
+		// utime, stime, cutime and cstime, in clock ticks of 1/100 s.
+		const own = statFields(postmaster).slice(11, 15);
+		let ticks = own.reduce((n, v) => n + Number(v), 0);
 		for (const name of readdirSync('/proc')) {
 			if (!/^\d+$/.test(name)) continue;
 			try {
-				const stat = readFileSync(`/proc/${name}/stat`, 'utf8');
-				const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
-				// The parent's pid is the 2nd field after the command name.
-				if (Number(fields[1]) === postmaster) total += cpuMs(Number(name)) ?? 0;
+				const fields = statFields(name);
+				if (Number(fields[1]) === postmaster) ticks += Number(fields[11]) + Number(fields[12]);
 			} catch {
 				// The process ended meanwhile.
 			}
 		}
-		return total;
+		return ticks * 10;
 	} catch {
 		return null;
 	}
