@@ -482,6 +482,8 @@ export interface SpreadFigures {
 	requestsPerSecond: number;
 	latencyMs: { p50: number; p95: number; p99: number; max: number };
 	cpuMsPerRequest: number | null;
+	/** PostgreSQL's CPU time per request, when the caller can read it (postgresCpuMs). */
+	postgresCpuMsPerRequest: number | null;
 	non2xx: number;
 	errors: number;
 	timeouts: number;
@@ -500,6 +502,8 @@ export async function savesSpread(input: {
 	dbUrl: string;
 	connections: number;
 	seconds: number;
+	/** The CPU time PostgreSQL has used so far, in ms (or null). */
+	postgresCpuMs?: () => number | null;
 }): Promise<SpreadFigures> {
 	const { targets, judges, dbUrl, seconds } = input;
 	const each = Math.max(1, Math.floor(input.connections / targets.length));
@@ -521,9 +525,12 @@ export async function savesSpread(input: {
 	await run(2, { saved: 0 });
 	await settle();
 	const counter = { saved: 0 };
+	const pgCpu = input.postgresCpuMs ?? (() => null);
 	const before = targets.map((t) => cpuMs(t.pid));
+	const pgBefore = pgCpu();
 	const results = await run(seconds, counter);
 	const after = targets.map((t) => cpuMs(t.pid));
+	const pgAfter = pgCpu();
 	await settle();
 	let cpu: number | null = 0;
 	for (let i = 0; i < targets.length; i++) {
@@ -548,6 +555,10 @@ export async function savesSpread(input: {
 			max: h.maxValue
 		},
 		cpuMsPerRequest: cpu !== null && requests > 0 ? Math.round((cpu / requests) * 100) / 100 : null,
+		postgresCpuMsPerRequest:
+			pgBefore !== null && pgAfter !== null && requests > 0
+				? Math.round(((pgAfter - pgBefore) / requests) * 100) / 100
+				: null,
 		non2xx: results.reduce((n, r) => n + r.non2xx, 0),
 		errors: results.reduce((n, r) => n + r.errors, 0),
 		timeouts: results.reduce((n, r) => n + r.timeouts, 0),

@@ -34,6 +34,7 @@ import {
 } from './loads';
 import {
 	busySaturdayTurn,
+	postgresCpuMs,
 	saturdayFigures,
 	type SaturdayFigures,
 	type SaturdayTurn
@@ -278,7 +279,14 @@ async function saturdayReport(
 			] as const) {
 				log(`saves at saturation, turn ${i + 1} of ${rounds}: ${name} instance(s)`);
 				spread[name].push(
-					await savesSpread({ targets: on, judges, dbUrl, connections, seconds: seconds / rounds })
+					await savesSpread({
+						targets: on,
+						judges,
+						dbUrl,
+						connections,
+						seconds: seconds / rounds,
+						postgresCpuMs: () => postgresCpuMs(dbDir)
+					})
 				);
 			}
 		}
