@@ -7,6 +7,9 @@
  * - results: visitors reading the public results page of the published show.
  * - paced saves (pacedSaves): the show's judges at a show's own pace, each saving one sheet every
  *   few seconds, for the times a judge meets at a realistic rate rather than at saturation.
+ * - saves spread (savesSpread): saves at saturation against one or several instances of the app
+ *   at once, for the throughput of two instances against one.
+ * The busy Saturday's load, of many shows at once, is in saturday.ts.
  */
 import { randomUUID } from 'node:crypto';
 import { readFileSync } from 'node:fs';
@@ -493,8 +496,8 @@ export interface SpreadFigures {
 /**
  * Saves at saturation spread over several instances of one server at once (the connections dealt
  * out evenly, each instance its own autocannon run at the same time): 2 s of warm-up, then
- * `seconds` measured. The judges' saves come from one maker, so the instances never send the same
- * version of a sheet twice. CPU per request adds the instances' CPU times.
+ * `seconds` measured. The judges' saves come from one maker, so the instances share what they
+ * learn of each sheet's version. CPU per request adds the instances' CPU times.
  */
 export async function savesSpread(input: {
 	targets: { url: string; pid?: number }[];
