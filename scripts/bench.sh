@@ -1,8 +1,9 @@
 #!/usr/bin/env bash
 # The benchmark (npm run bench): installs what is missing, starts PostgreSQL if it is not running,
 # builds the app, starts the SMTP fake, runs scripts/bench/run.ts (which seeds its own database,
-# starts the app and the bare baseline on loopback and measures), prints one JSON document on
-# stdout and stops what it started. Progress goes to stderr. Takes a few minutes.
+# starts the app and the bare baseline on loopback and measures, the convention show and then the
+# busy Saturday), prints one JSON document on stdout and stops what it started. Progress goes to
+# stderr. Takes about six minutes; CB_BENCH_ONLY=saturday runs the busy Saturday alone.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 source scripts/lib.sh

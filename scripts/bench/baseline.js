@@ -7,6 +7,9 @@
  *                                    access; the stored answer and the sheet; one statement writing
  *                                    the sheet, its audit row and the applied change)
  *   GET /shows/<slug>/results        the public results of a published show (the app's queries)
+ *   GET /api/chair/shows/<slug>/board  the chair's progress board: session, the show by address
+ *                                    and the chair's role in its society, then the app's board
+ *                                    queries (show, classes, judges, entries, sheets) one by one
  * DATABASE_URL, PORT (4891) and DB_POOL_MAX (10, as the app) set it up; it listens on 127.0.0.1.
  */
 import http from 'node:http';
@@ -74,7 +77,15 @@ async function signedInUser(/** @type {http.IncomingMessage} */ req) {
 		values: [token]
 	});
 	if (rows.length === 0) return null;
-	return { id: rows[0].id, email: rows[0].email, roles: rows.flatMap((r) => r.roles ?? []) };
+	return {
+		id: rows[0].id,
+		email: rows[0].email,
+		roles: rows.flatMap((r) => r.roles ?? []),
+		/** @type {{ societyId: string, roles: string[] }[]} */
+		memberships: rows
+			.filter((r) => r.society_id !== null)
+			.map((r) => ({ societyId: r.society_id, roles: r.roles ?? [] }))
+	};
 }
 
 function scaleOf(/** @type {unknown} */ criteria) {
@@ -387,15 +398,138 @@ routes.set('GET /shows/:slug/results', async (_req, res, match) => {
 	});
 });
 
+/**
+ * The chair's progress board: the queries the app's board runs (the show by address, then its
+ * show, classes, judges, entries and sheets one after the other), each entry's panel result as
+ * the app combines a mean panel's sheets, summed per class.
+ */
+routes.set('GET /api/chair/shows/:slug/board', async (req, res, match) => {
+	const user = await signedInUser(req);
+	if (!user) return send(res, 401, { message: 'Sign in first.' });
+	if (!user.roles.includes('chair')) return send(res, 403, { message: 'Chairs only.' });
+	const { rows: found } = await pool.query('SELECT * FROM shows WHERE slug = $1 LIMIT 1', [
+		match[1]
+	]);
+	const found0 = found[0];
+	if (!found0) return send(res, 404, { message: 'There is no show at this address.' });
+	const chairs = user.memberships.some(
+		(m) => m.societyId === found0.society_id && m.roles.includes('chair')
+	);
+	if (!chairs) return send(res, 403, { message: 'Chairs of the society only.' });
+	const q = (/** @type {string} */ sql) => pool.query(sql, [found0.id]).then((r) => r.rows);
+	const [show] = await q(
+		`SELECT id, name, slug, panel_score_method AS method, award_rules, results_published_at AS published
+		   FROM shows WHERE id = $1`
+	);
+	const classes = await q(
+		`SELECT c.id, c.code, c.name, d.id AS division_id, d.code || ' ' || d.name AS division,
+		        p.id AS panel_id, p.name AS panel_name, sc.id AS scale_id, sc.name AS scale_name, sc.criteria
+		   FROM classes c JOIN divisions d ON d.id = c.division_id
+		   LEFT JOIN panel_classes pc ON pc.class_id = c.id
+		   LEFT JOIN panels p ON p.id = pc.panel_id
+		   LEFT JOIN scales sc ON sc.id = c.scale_id
+		  WHERE c.show_id = $1 ORDER BY d.position, c.position`
+	);
+	const judges = await q(
+		`SELECT pj.panel_id, pj.user_id FROM panel_judges pj JOIN panels p ON p.id = pj.panel_id
+		  WHERE p.show_id = $1`
+	);
+	const entries = await q(
+		`SELECT e.id, e.number, e.class_id, e.exhibitor_id, coalesce(u.name, u.email) AS exhibitor
+		   FROM entries e JOIN users u ON u.id = e.exhibitor_id
+		  WHERE e.show_id = $1 AND ${ACTIVE} ORDER BY e.number`
+	);
+	const sheets = await q(
+		`SELECT entry_id, judge_id, deductions, not_judged_reason, judges_choice_rank
+		   FROM score_sheets WHERE show_id = $1`
+	);
+	/** @type {Map<string, string[]>} */
+	const judgesOf = new Map();
+	for (const j of judges)
+		judgesOf.set(j.panel_id, [...(judgesOf.get(j.panel_id) ?? []), j.user_id]);
+	/** @type {Map<string, any[]>} */
+	const sheetsOf = new Map();
+	for (const s of sheets) sheetsOf.set(s.entry_id, [...(sheetsOf.get(s.entry_id) ?? []), s]);
+	/** A mean panel's result for one entry: its state and the sheets still missing. */
+	const resultOf = (/** @type {any} */ c, /** @type {any} */ e) => {
+		const panel = c.panel_id ? (judgesOf.get(c.panel_id) ?? []) : [];
+		const criteria = c.scale_id && Array.isArray(c.criteria) ? c.criteria : DEFAULT_CRITERIA;
+		const mine = sheetsOf.get(e.id) ?? [];
+		const counted = [...panel]
+			.sort()
+			.map((id) => mine.find((s) => s.judge_id === id))
+			.filter(Boolean);
+		if (counted.some((s) => s.not_judged_reason !== null))
+			return { state: 'not_judged', missing: 0 };
+		const complete = counted.filter((s) =>
+			criteria.every((/** @type {any} */ k) => typeof s.deductions?.[k.key] === 'number')
+		);
+		const missing = panel.length - complete.length;
+		if (panel.length === 0 || missing > 0) {
+			return { state: counted.length > 0 ? 'in_progress' : 'waiting', missing };
+		}
+		return { state: 'scored', missing: 0 };
+	};
+	/** @type {Map<string, any[]>} */
+	const entriesOf = new Map();
+	for (const e of entries) entriesOf.set(e.class_id, [...(entriesOf.get(e.class_id) ?? []), e]);
+	const board = classes.map((c) => {
+		const results = (entriesOf.get(c.id) ?? []).map((e) => resultOf(c, e));
+		const scored = results.filter((r) => r.state === 'scored').length;
+		const notJudged = results.filter((r) => r.state === 'not_judged').length;
+		const left = results.length - scored - notJudged;
+		const started = results.some((r) => r.state !== 'waiting');
+		return {
+			id: c.id,
+			code: c.code,
+			name: c.name,
+			division: c.division,
+			panel: c.panel_name,
+			entries: results.length,
+			scored,
+			notJudged,
+			left,
+			missingSheets: results.reduce((n, r) => n + r.missing, 0),
+			state:
+				results.length === 0
+					? 'no_entries'
+					: c.panel_name === null
+						? 'no_panel'
+						: left === 0
+							? 'judged'
+							: started
+								? 'in_progress'
+								: 'waiting'
+		};
+	});
+	const withEntries = board.filter((c) => c.entries > 0);
+	send(res, 200, {
+		published: show.published !== null,
+		method: show.method,
+		classesJudged: withEntries.filter((c) => c.state === 'judged').length,
+		classesWithEntries: withEntries.length,
+		entriesLeft: withEntries.reduce((n, c) => n + c.left, 0),
+		sheetsMissing: withEntries.reduce((n, c) => n + c.missingSheets, 0),
+		classes: board,
+		checkedAt: new Date().toISOString()
+	});
+});
+
 const server = http.createServer((req, res) => {
 	const url = new URL(req.url ?? '/', 'http://127.0.0.1');
 	const results = /^\/shows\/([a-z0-9-]+)\/results$/.exec(url.pathname);
-	const key = results ? `${req.method} /shows/:slug/results` : `${req.method} ${url.pathname}`;
+	const board = /^\/api\/chair\/shows\/([a-z0-9-]+)\/board$/.exec(url.pathname);
+	const key = results
+		? `${req.method} /shows/:slug/results`
+		: board
+			? `${req.method} /api/chair/shows/:slug/board`
+			: `${req.method} ${url.pathname}`;
 	const route = routes.get(key);
 	/** @type {Promise<void>} */
 	let done;
-	if (route) done = route(req, res, results ?? /** @type {RegExpExecArray} */ (/./.exec('.')));
-	else if (req.method === 'GET' && url.pathname === '/health') {
+	if (route) {
+		done = route(req, res, results ?? board ?? /** @type {RegExpExecArray} */ (/./.exec('.')));
+	} else if (req.method === 'GET' && url.pathname === '/health') {
 		done = Promise.resolve(send(res, 200, { ok: true }));
 	} else done = Promise.resolve(send(res, 404, { message: 'Not found' }));
 	done.catch((err) => {

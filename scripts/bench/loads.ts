@@ -7,6 +7,9 @@
  * - results: visitors reading the public results page of the published show.
  * - paced saves (pacedSaves): the show's judges at a show's own pace, each saving one sheet every
  *   few seconds, for the times a judge meets at a realistic rate rather than at saturation.
+ * - saves spread (savesSpread): saves at saturation against one or several instances of the app
+ *   at once, for the throughput of two instances against one.
+ * The busy Saturday's load, of many shows at once, is in saturday.ts.
  */
 import { randomUUID } from 'node:crypto';
 import { readFileSync } from 'node:fs';
@@ -14,7 +17,7 @@ import http from 'node:http';
 import { createRequire } from 'node:module';
 import { gzipSync } from 'node:zlib';
 import pg from 'pg';
-import { CRITERIA, type BenchShow } from './generate';
+import { CRITERIA, type BenchJudge, type BenchShow } from './generate';
 
 /** The parts of autocannon (CommonJS, no types shipped) the benchmark uses. */
 interface Request {
@@ -78,7 +81,11 @@ async function requestsFor(
 	counter: { saved: number }
 ): Promise<Request[]> {
 	if (kind === 'results') return [{ method: 'GET', path: `/shows/${show.slug}/results` }];
-	const saves = await saveMaker(show, dbUrl, counter);
+	return saveRequests(show, await saveMaker(show, dbUrl, counter));
+}
+
+/** autocannon's requests of a save load, each a fresh save of one of the judges. */
+function saveRequests(show: SavingJudges, saves: SaveMaker): Request[] {
 	return [
 		{
 			method: 'PUT',
@@ -96,17 +103,22 @@ async function requestsFor(
 }
 
 /** One save as a judge's tablet sends it: the sheet's key (judge:entry), headers and body. */
-interface Save {
+export interface Save {
 	key: string;
 	headers: Record<string, string>;
 	body: string;
 }
 
+/** The judges whose sheets a save load changes (of one show, or of several). */
+export type SavingJudges = { judges: BenchJudge[] };
+
+export type SaveMaker = Awaited<ReturnType<typeof saveMaker>>;
+
 /**
  * Makes fresh saves of the show's judges (each a new change id on the sheet's current version,
  * other deductions and comment, so every save is real) and learns the new versions from answers.
  */
-async function saveMaker(show: BenchShow, dbUrl: string, counter: { saved: number }) {
+export async function saveMaker(show: SavingJudges, dbUrl: string, counter: { saved: number }) {
 	const versions = await sheetVersions(dbUrl);
 	const position = show.judges.map(() => 0);
 	return {
@@ -171,7 +183,7 @@ export interface LoadFigures {
 }
 
 /** CPU time (user + system) a process has used so far, in ms; null where /proc is not there. */
-function cpuMs(pid: number | undefined): number | null {
+export function cpuMs(pid: number | undefined): number | null {
 	if (!pid) return null;
 	try {
 		const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
@@ -346,14 +358,25 @@ function sendSave(
 	url: string,
 	save: Save
 ): Promise<{ status: number; body: string; ms: number }> {
+	return timedRequest(agent, `${url}/api/judging/sheets`, 'PUT', save.headers, save.body);
+}
+
+/** One request on a keep-alive connection: its status, body and time from send to last byte. */
+export function timedRequest(
+	agent: http.Agent,
+	url: string,
+	method: 'GET' | 'PUT',
+	headers: Record<string, string>,
+	body = ''
+): Promise<{ status: number; body: string; ms: number }> {
 	return new Promise((resolve, reject) => {
 		const startedAt = performance.now();
 		const req = http.request(
-			`${url}/api/judging/sheets`,
+			url,
 			{
-				method: 'PUT',
+				method,
 				agent,
-				headers: { ...save.headers, 'content-length': String(Buffer.byteLength(save.body)) }
+				headers: body ? { ...headers, 'content-length': String(Buffer.byteLength(body)) } : headers
 			},
 			(res) => {
 				const chunks: Buffer[] = [];
@@ -369,11 +392,12 @@ function sendSave(
 		);
 		req.setTimeout(10_000, () => req.destroy(new Error('timeout')));
 		req.on('error', reject);
-		req.end(save.body);
+		req.end(body || undefined);
 	});
 }
 
-function percentile(sorted: number[], p: number): number {
+/** The value at percentile p of values sorted from the smallest. */
+export function percentile(sorted: number[], p: number): number {
 	if (sorted.length === 0) return 0;
 	return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
 }
@@ -449,6 +473,98 @@ export async function pacedSaves(input: {
 		},
 		non2xx,
 		errors,
+		saved: counter.saved
+	};
+}
+
+/** What one or more instances of a server did together under one saturation save load. */
+export interface SpreadFigures {
+	instances: number;
+	connections: number;
+	requests: number;
+	requestsPerSecond: number;
+	latencyMs: { p50: number; p95: number; p99: number; max: number };
+	cpuMsPerRequest: number | null;
+	/** PostgreSQL's CPU time per request, when the caller can read it (postgresCpuMs). */
+	postgresCpuMsPerRequest: number | null;
+	non2xx: number;
+	errors: number;
+	timeouts: number;
+	saved: number;
+}
+
+/**
+ * Saves at saturation spread over several instances of one server at once (the connections dealt
+ * out evenly, each instance its own autocannon run at the same time): 2 s of warm-up, then
+ * `seconds` measured. The judges' saves come from one maker, so the instances share what they
+ * learn of each sheet's version. CPU per request adds the instances' CPU times.
+ */
+export async function savesSpread(input: {
+	targets: { url: string; pid?: number }[];
+	judges: SavingJudges;
+	dbUrl: string;
+	connections: number;
+	seconds: number;
+	/** The CPU time PostgreSQL has used so far, in ms (or null). */
+	postgresCpuMs?: () => number | null;
+}): Promise<SpreadFigures> {
+	const { targets, judges, dbUrl, seconds } = input;
+	const each = Math.max(1, Math.floor(input.connections / targets.length));
+	const run = async (duration: number, counter: { saved: number }) => {
+		const saves = await saveMaker(judges, dbUrl, counter);
+		return Promise.all(
+			targets.map((t) =>
+				once({
+					url: t.url,
+					connections: each,
+					pipelining: 1,
+					timeout: 10,
+					duration,
+					requests: saveRequests(judges, saves)
+				})
+			)
+		);
+	};
+	await run(2, { saved: 0 });
+	await settle();
+	const counter = { saved: 0 };
+	const pgCpu = input.postgresCpuMs ?? (() => null);
+	const before = targets.map((t) => cpuMs(t.pid));
+	const pgBefore = pgCpu();
+	const results = await run(seconds, counter);
+	const after = targets.map((t) => cpuMs(t.pid));
+	const pgAfter = pgCpu();
+	await settle();
+	let cpu: number | null = 0;
+	for (let i = 0; i < targets.length; i++) {
+		const b = before[i];
+		const a = after[i];
+		cpu = cpu !== null && a !== null && b !== null ? cpu + a - b : null;
+	}
+	const latencies = results.map((r) => decodeHist(r.latencies));
+	for (const h of latencies.slice(1)) latencies[0].add(h);
+	const h = latencies[0];
+	const requests = results.reduce((n, r) => n + r.totalCompletedRequests, 0);
+	const duration = Math.max(...results.map((r) => r.duration));
+	return {
+		instances: targets.length,
+		connections: each * targets.length,
+		requests,
+		requestsPerSecond: Math.round((requests / duration) * 10) / 10,
+		latencyMs: {
+			p50: h.getValueAtPercentile(50),
+			p95: h.getValueAtPercentile(95),
+			p99: h.getValueAtPercentile(99),
+			max: h.maxValue
+		},
+		cpuMsPerRequest: cpu !== null && requests > 0 ? Math.round((cpu / requests) * 100) / 100 : null,
+		postgresCpuMsPerRequest:
+			pgBefore !== null && pgAfter !== null && requests > 0
+				? Math.round(((pgAfter - pgBefore) / requests) * 100) / 100
+				: null,
+		non2xx: results.reduce((n, r) => n + r.non2xx, 0),
+		errors: results.reduce((n, r) => n + r.errors, 0),
+		timeouts: results.reduce((n, r) => n + r.timeouts, 0),
 		saved: counter.saved
 	};
 }

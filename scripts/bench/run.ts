@@ -8,22 +8,37 @@
  * CB_BENCH_SECONDS (10 per load and server), CB_BENCH_ROUNDS (2 turns), CB_BENCH_CONNECTIONS (30);
  * the saves at a show's pace: CB_BENCH_PACED_JUDGES (30), CB_BENCH_PACED_INTERVAL_MS (3000, one
  * save per judge every 3 s), CB_BENCH_PACED_SECONDS (30 per server);
+ * the busy Saturday (see saturday.ts): CB_BENCH_SATURDAY_SHOWS (20), CB_BENCH_SATURDAY_JUDGES_PER_SHOW
+ * (30), CB_BENCH_SATURDAY_ENTRIES_PER_SHOW (300), CB_BENCH_SATURDAY_INTERVAL_MS (4000, one save per
+ * judge every 4 s), CB_BENCH_SATURDAY_BOARD_INTERVAL_MS (3000, as the board page polls),
+ * CB_BENCH_SATURDAY_READERS (10), CB_BENCH_SATURDAY_READER_INTERVAL_MS (2000),
+ * CB_BENCH_SATURDAY_SECONDS (30 per server), CB_BENCH_SECOND_APP_PORT (4892, the second instance);
+ * CB_BENCH_ONLY=saturday seeds and runs the busy Saturday alone (kept in .data/bench-saturday-last.json);
  * for profiling, CB_BENCH_ONLY=saves runs the two save loads alone and CB_BENCH_APP_NODE_ARGS passes
  * node flags to the app (e.g. "--cpu-prof --cpu-prof-dir=.data/prof"), CB_BENCH_BASELINE_NODE_ARGS
  * to the baseline.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { mkdirSync, writeFileSync } from 'node:fs';
-import { cpus, totalmem } from 'node:os';
-import { generateShow, type BenchShow } from './generate';
+import { cpus, loadavg, totalmem } from 'node:os';
+import { generateSaturday, generateShow, type BenchSaturday, type BenchShow } from './generate';
 import {
 	compareLoads,
 	pacedSaves,
 	pageAssetBytes,
+	savesSpread,
 	settle,
 	type LoadFigures,
-	type PacedFigures
+	type PacedFigures,
+	type SpreadFigures
 } from './loads';
+import {
+	busySaturdayTurn,
+	postgresCpuMs,
+	saturdayFigures,
+	type SaturdayFigures,
+	type SaturdayTurn
+} from './saturday';
 
 const dbUrl = process.env.CB_BENCH_DB_URL ?? 'postgres://postgres@127.0.0.1:54329/crownbench_bench';
 const appPort = Number(process.env.CB_BENCH_APP_PORT ?? 4890);
@@ -37,6 +52,18 @@ const paced = {
 	intervalMs: Number(process.env.CB_BENCH_PACED_INTERVAL_MS ?? 3000),
 	seconds: Number(process.env.CB_BENCH_PACED_SECONDS ?? 30)
 };
+const saturdaySettings = {
+	shows: Number(process.env.CB_BENCH_SATURDAY_SHOWS ?? 20),
+	judgesPerShow: Number(process.env.CB_BENCH_SATURDAY_JUDGES_PER_SHOW ?? 30),
+	entriesPerShow: Number(process.env.CB_BENCH_SATURDAY_ENTRIES_PER_SHOW ?? 300),
+	saveIntervalMs: Number(process.env.CB_BENCH_SATURDAY_INTERVAL_MS ?? 4000),
+	boardIntervalMs: Number(process.env.CB_BENCH_SATURDAY_BOARD_INTERVAL_MS ?? 3000),
+	readers: Number(process.env.CB_BENCH_SATURDAY_READERS ?? 10),
+	readerIntervalMs: Number(process.env.CB_BENCH_SATURDAY_READER_INTERVAL_MS ?? 2000),
+	seconds: Number(process.env.CB_BENCH_SATURDAY_SECONDS ?? 30)
+};
+const secondAppPort = Number(process.env.CB_BENCH_SECOND_APP_PORT ?? 4892);
+const dbDir = process.env.CB_DB_DIR ?? '.data/pg';
 const nodeArgs = (name: string) => (process.env[name] ?? '').split(/\s+/).filter(Boolean);
 const app = `http://127.0.0.1:${appPort}`;
 const base = `http://127.0.0.1:${basePort}`;
@@ -105,7 +132,7 @@ async function timeAwards(show: BenchShow) {
 }
 
 /** Publishes the show's results in one transaction, as the chair's publish button does. */
-async function publish(show: BenchShow): Promise<number> {
+async function publish(show: Pick<BenchShow, 'showId' | 'chairId'>): Promise<number> {
 	const { sequelize } = await import('../../src/lib/server/db');
 	const { publishResults } = await import('../../src/lib/server/results/results');
 	const t = performance.now();
@@ -187,12 +214,141 @@ async function pacedComparison(
 	};
 }
 
+const loadAverage = () => loadavg().map((l) => round(l));
+
+/** A Saturday figure passes when every save was answered with success within 50 ms at p95. */
+const savesMet = (f: SaturdayFigures) =>
+	f.saves.requests > 0 &&
+	f.saves.non2xx === 0 &&
+	f.saves.errors === 0 &&
+	f.saves.latencyMs.p95 < 50;
+
+/**
+ * The busy Saturday (see saturday.ts): publishes the show the public reads, starts a second
+ * instance of the app on the same database, then runs the load in `rounds` turns against the app,
+ * the bare baseline and the two instances of the app (each first 5 s of warm-up, not counted),
+ * and last the saves at saturation in turns against one instance and against two, for the
+ * throughput ratio two/one.
+ */
+async function saturdayReport(
+	saturday: BenchSaturday,
+	targets: { name: string; url: string; pid?: number }[],
+	startSecond: () => Promise<{ url: string; pid?: number; stop: () => Promise<void> }>
+): Promise<Record<string, unknown>> {
+	const publishMs = await publish(saturday.published);
+	const [appTarget, baseTarget] = targets;
+	log('a second instance of the app on the same database');
+	const second = await startSecond();
+	try {
+		const servers = [
+			{ name: 'app', on: [appTarget] },
+			{ name: 'baseline', on: [baseTarget] },
+			{ name: 'twoInstances', on: [appTarget, { url: second.url, pid: second.pid }] }
+		];
+		const turn = (on: { url: string; pid?: number }[], seconds: number) =>
+			busySaturdayTurn({
+				targets: on,
+				saturday,
+				dbUrl,
+				dbDir,
+				settings: { ...saturdaySettings, seconds }
+			});
+		log('busy Saturday: 5 s of warm-up each for the app, the baseline and the two instances');
+		for (const s of servers) {
+			await turn(s.on, 5);
+			await settle();
+		}
+		const turns = new Map(servers.map((s) => [s.name, [] as SaturdayTurn[]]));
+		for (let i = 0; i < rounds; i++) {
+			for (const s of servers) {
+				log(`busy Saturday, turn ${i + 1} of ${rounds}: ${s.name}`);
+				const t = await turn(s.on, saturdaySettings.seconds / rounds);
+				turns.get(s.name)!.push(t);
+				await settle();
+				log(`  saves p95 ${saturdayFigures([t]).saves.latencyMs.p95} ms, load ${loadAverage()[0]}`);
+			}
+		}
+		const [a, b, two] = servers.map((s) => saturdayFigures(turns.get(s.name)!));
+
+		const judges = { judges: saturday.shows.flatMap((s) => s.judges) };
+		const spread: Record<'one' | 'two', SpreadFigures[]> = { one: [], two: [] };
+		for (let i = 0; i < rounds; i++) {
+			for (const [name, on] of [
+				['one', servers[0].on],
+				['two', servers[2].on]
+			] as const) {
+				log(`saves at saturation, turn ${i + 1} of ${rounds}: ${name} instance(s)`);
+				spread[name].push(
+					await savesSpread({
+						targets: on,
+						judges,
+						dbUrl,
+						connections,
+						seconds: seconds / rounds,
+						postgresCpuMs: () => postgresCpuMs(dbDir)
+					})
+				);
+			}
+		}
+		const perSecond = (list: SpreadFigures[]) =>
+			round(list.reduce((n, f) => n + f.requestsPerSecond, 0) / list.length, 1);
+		const r = (x: number, y: number) => ratio(x, y);
+		return {
+			settings: { ...saturdaySettings, rounds, secondAppPort },
+			seeded: saturday.counts,
+			publishedShow: { slug: saturday.published.slug, publishMs },
+			app: a,
+			baseline: b,
+			ratio: {
+				savesP50: r(a.saves.latencyMs.p50, b.saves.latencyMs.p50),
+				savesP95: r(a.saves.latencyMs.p95, b.saves.latencyMs.p95),
+				boardsP95: r(a.boards.latencyMs.p95, b.boards.latencyMs.p95),
+				publicReadsP95: r(a.publicReads.latencyMs.p95, b.publicReads.latencyMs.p95),
+				cpuPerRequest:
+					a.cpuMsPerRequest !== null && b.cpuMsPerRequest !== null
+						? r(a.cpuMsPerRequest, b.cpuMsPerRequest)
+						: null
+			},
+			target: { savesP95Ms: 50 },
+			met: savesMet(a),
+			twoInstances: {
+				busySaturday: { ...two, met: savesMet(two) },
+				savesAtSaturation: {
+					connections,
+					one: spread.one,
+					two: spread.two,
+					oneRequestsPerSecond: perSecond(spread.one),
+					twoRequestsPerSecond: perSecond(spread.two),
+					throughputRatio: r(perSecond(spread.two), perSecond(spread.one)),
+					loadAverage: loadAverage()
+				},
+				cores: cpus().length
+			}
+		};
+	} finally {
+		await second.stop();
+	}
+}
+
 async function main(): Promise<void> {
 	process.env.DATABASE_URL = dbUrl;
 	const started = Date.now();
-	log('seeding the convention show');
-	const show = await generateShow(dbUrl);
-	log(`seeded ${JSON.stringify(show.counts)} in ${Date.now() - started} ms`);
+	let show: BenchShow | null = null;
+	let saturday: BenchSaturday | null = null;
+	const seedSaturday = async (reset: boolean) => {
+		log(
+			`seeding the busy Saturday: ${saturdaySettings.shows} shows of ${saturdaySettings.entriesPerShow} entries and ${saturdaySettings.judgesPerShow} judges, and one published`
+		);
+		const seeded = await generateSaturday(dbUrl, { ...saturdaySettings, reset });
+		log(`seeded ${JSON.stringify(seeded.counts)}`);
+		return seeded;
+	};
+	if (only === 'saturday') saturday = await seedSaturday(true);
+	else {
+		log('seeding the convention show');
+		show = await generateShow(dbUrl);
+		log(`seeded ${JSON.stringify(show.counts)} in ${Date.now() - started} ms`);
+	}
 
 	const env = {
 		DATABASE_URL: dbUrl,
@@ -220,6 +376,37 @@ async function main(): Promise<void> {
 		{ name: 'app', url: app, pid: appProcess.pid },
 		{ name: 'baseline', url: base, pid: baseProcess.pid }
 	];
+	/** Starts a second instance of the built app, on the same database. */
+	const startSecond = async () => {
+		const url = `http://127.0.0.1:${secondAppPort}`;
+		const child = start('app2', [...nodeArgs('CB_BENCH_APP_NODE_ARGS'), 'build'], {
+			...env,
+			PORT: String(secondAppPort),
+			ORIGIN: url
+		});
+		await waitFor(`${url}/`);
+		return {
+			url,
+			pid: child.pid,
+			stop: () => stopChild(child)
+		};
+	};
+	if (saturday) {
+		const report = {
+			date: new Date().toISOString(),
+			machine: { cores: cpus().length, memoryGb: round(totalmem() / 1024 ** 3, 1) },
+			loadAverageBefore: loadAverage(),
+			busySaturday: await saturdayReport(saturday, targets, startSecond),
+			loadAverageAfter: loadAverage(),
+			totalSeconds: round((Date.now() - started) / 1000, 0)
+		};
+		const text = `${JSON.stringify(report, null, 2)}\n`;
+		mkdirSync('.data', { recursive: true });
+		writeFileSync('.data/bench-saturday-last.json', text);
+		process.stdout.write(text);
+		return;
+	}
+	if (!show) throw new Error('no show seeded');
 	/** One load, taken in turns against the app and the baseline. */
 	const load = (kind: 'saves' | 'results') =>
 		compareLoads({ kind, targets, show, seconds, rounds, connections, dbUrl });
@@ -267,6 +454,11 @@ async function main(): Promise<void> {
 	log('award sheets PDF in a process of its own');
 	const pdf = await measurePdf(show);
 
+	saturday = await seedSaturday(false);
+	const loadBeforeSaturday = loadAverage();
+	const saturdayFigures = await saturdayReport(saturday, targets, startSecond);
+	const saturdayApp = saturdayFigures.app as SaturdayFigures;
+
 	const report = {
 		date: new Date().toISOString(),
 		machine: {
@@ -308,6 +500,17 @@ async function main(): Promise<void> {
 			target: { jsGzipBytes: 80 * 1024 },
 			met: judgePage.jsGzipBytes < 80 * 1024
 		},
+		busySaturday: { loadAverageBefore: loadBeforeSaturday, ...saturdayFigures },
+		// The save's two targets side by side: p95 under 50 ms with every save answered.
+		saveTargets: {
+			atShowPace: {
+				p95Ms: (atShowPace.app as PacedFigures).latencyMs.p95,
+				met: atShowPace.met
+			},
+			atBusySaturday: { p95Ms: saturdayApp.saves.latencyMs.p95, met: saturdayFigures.met },
+			targetP95Ms: 50
+		},
+		loadAverageAfter: loadAverage(),
 		totalSeconds: round((Date.now() - started) / 1000, 0)
 	};
 	const text = `${JSON.stringify(report, null, 2)}\n`;
@@ -316,18 +519,18 @@ async function main(): Promise<void> {
 	process.stdout.write(text);
 }
 
+/** Stops a child process: SIGTERM, then SIGKILL if it has not ended within 10 s. */
+function stopChild(c: ChildProcess): Promise<void> {
+	return new Promise<void>((resolve) => {
+		if (c.exitCode !== null || c.signalCode !== null) return resolve();
+		c.once('exit', () => resolve());
+		c.kill('SIGTERM');
+		setTimeout(() => c.kill('SIGKILL'), 10_000).unref();
+	});
+}
+
 function stopChildren(): Promise<void> {
-	return Promise.all(
-		children.map(
-			(c) =>
-				new Promise<void>((resolve) => {
-					if (c.exitCode !== null) return resolve();
-					c.once('exit', () => resolve());
-					c.kill('SIGTERM');
-					setTimeout(() => c.kill('SIGKILL'), 10_000).unref();
-				})
-		)
-	).then(() => undefined);
+	return Promise.all(children.map(stopChild)).then(() => undefined);
 }
 
 main()
