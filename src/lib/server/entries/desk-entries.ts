@@ -34,8 +34,8 @@ export async function deskWindowOf(
 	const [settings, stage, started] = await Promise.all([
 		loadSocietySettings(show.societyId, { transaction }),
 		stageOfShow(show, { transaction }),
-		sequelize.query('SELECT 1 FROM score_sheets WHERE show_id = $1 LIMIT 1', {
-			bind: [show.id],
+		sequelize.query('SELECT 1 FROM score_sheets WHERE show_id = :showId LIMIT 1', {
+			replacements: { showId: show.id },
 			type: QueryTypes.SELECT,
 			transaction
 		})
@@ -268,9 +268,9 @@ export interface DeskClass {
 export async function listDeskClasses(showId: string): Promise<DeskClass[]> {
 	const rows = await sequelize.query<{ id: string; code: string; name: string }>(
 		`SELECT c.id, c.code, c.name FROM classes c JOIN divisions d ON d.id = c.division_id
-		  WHERE c.show_id = $1 AND d.kind = 'horticulture'
+		  WHERE c.show_id = :showId AND d.kind = 'horticulture'
 		  ORDER BY d.position, c.position`,
-		{ bind: [showId], type: QueryTypes.SELECT }
+		{ replacements: { showId }, type: QueryTypes.SELECT }
 	);
 	return rows.map((r) => ({ id: r.id, label: `${r.code} ${r.name}` }));
 }
@@ -306,9 +306,9 @@ export async function listOwnEntries(userId: string): Promise<OwnEntry[]> {
 		   JOIN shows s ON s.id = e.show_id
 		   JOIN classes c ON c.id = e.class_id
 		   LEFT JOIN varieties v ON v.id = e.variety_id
-		  WHERE e.exhibitor_id = $1
+		  WHERE e.exhibitor_id = :userId
 		  ORDER BY s.judging_day DESC, e.number`,
-		{ bind: [userId], type: QueryTypes.SELECT }
+		{ replacements: { userId }, type: QueryTypes.SELECT }
 	);
 	return rows.map((r) => ({
 		id: r.id,

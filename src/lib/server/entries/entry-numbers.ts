@@ -49,8 +49,8 @@ export async function fixEntryNumbers(
 		);
 	}
 	const entries = await sequelize.query<{ id: string; class_id: string; number: number }>(
-		'SELECT id, class_id, number FROM entries WHERE show_id = $1 ORDER BY id',
-		{ bind: [show.id], type: QueryTypes.SELECT, transaction }
+		'SELECT id, class_id, number FROM entries WHERE show_id = :showId ORDER BY id',
+		{ replacements: { showId: show.id }, type: QueryTypes.SELECT, transaction }
 	);
 	const perClass = await classNumbers(show.id, transaction);
 	const seed = randomInt(1, 2 ** 31 - 1);
@@ -62,16 +62,20 @@ export async function fixEntryNumbers(
 	);
 	if (entries.length > 0) {
 		// Two steps, so the unique (show, number) never sees two entries on one number.
-		await sequelize.query('UPDATE entries SET number = -number WHERE show_id = $1', {
-			bind: [show.id],
+		await sequelize.query('UPDATE entries SET number = -number WHERE show_id = :showId', {
+			replacements: { showId: show.id },
 			transaction
 		});
 		await sequelize.query(
 			`UPDATE entries e SET number = v.number, updated_at = now()
-			   FROM unnest($2::uuid[], $3::int[]) AS v (id, number)
-			  WHERE e.id = v.id AND e.show_id = $1`,
+			   FROM unnest(CAST(ARRAY[:entryIds] AS uuid[]), CAST(ARRAY[:numbers] AS int[])) AS v (id, number)
+			  WHERE e.id = v.id AND e.show_id = :showId`,
 			{
-				bind: [show.id, entries.map((e) => e.id), entries.map((e) => numbers.get(e.id)!)],
+				replacements: {
+					showId: show.id,
+					entryIds: entries.map((e) => e.id),
+					numbers: entries.map((e) => numbers.get(e.id)!)
+				},
 				transaction
 			}
 		);
@@ -111,8 +115,8 @@ export async function numberForNewEntry(
 		return number;
 	}
 	const taken = await sequelize.query<{ number: number }>(
-		'SELECT number FROM entries WHERE show_id = $1',
-		{ bind: [show.id], type: QueryTypes.SELECT, transaction }
+		'SELECT number FROM entries WHERE show_id = :showId',
+		{ replacements: { showId: show.id }, type: QueryTypes.SELECT, transaction }
 	);
 	const classNumber = (await classNumbers(show.id, transaction)).get(classId) ?? 1;
 	const number = nextFreeEntryNumber(

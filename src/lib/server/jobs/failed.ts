@@ -63,13 +63,13 @@ export async function listFailedJobs(societyId: string): Promise<FailedJob[]> {
 		   LEFT JOIN outbox_messages o ON j.name = 'mail-send' AND o.id::text = j.data->>'messageId'
 		   LEFT JOIN refunds r ON j.name = 'refund-send' AND r.id::text = j.data->>'refundId'
 		   LEFT JOIN show_pdfs p ON j.name = 'show-pdf' AND p.id::text = j.data->>'pdfId'
-		  WHERE j.state = 'failed' AND j.name = ANY($2) AND j.data->>'societyId' = $1
+		  WHERE j.state = 'failed' AND j.name IN (:jobNames) AND j.data->>'societyId' = :societyId
 		    AND (o.status IS NULL OR o.status = 'failed')
 		    AND (r.status IS NULL OR r.status = 'requested')
 		    AND (p.status IS NULL OR p.status = 'failed')
 		  ORDER BY j.completed_on DESC
 		  LIMIT 200`,
-		{ bind: [societyId, JOB_NAMES], type: QueryTypes.SELECT }
+		{ replacements: { societyId, jobNames: JOB_NAMES }, type: QueryTypes.SELECT }
 	);
 	return rows.map((row) => ({
 		id: row.id,
@@ -94,21 +94,21 @@ export async function retryFailedJob(
 	const { transaction } = options;
 	const [job] = await sequelize.query<{ name: JobName; data: Record<string, string> }>(
 		`SELECT name, data FROM ${JOB_SCHEMA}.job
-		  WHERE id = $1 AND state = 'failed' AND data->>'societyId' = $2
+		  WHERE id = :jobId AND state = 'failed' AND data->>'societyId' = :societyId
 		  FOR UPDATE`,
-		{ bind: [jobId, societyId], type: QueryTypes.SELECT, transaction }
+		{ replacements: { jobId, societyId }, type: QueryTypes.SELECT, transaction }
 	);
 	if (!job) return false;
 	if (job.name === 'mail-send') {
 		await sequelize.query(
 			`UPDATE outbox_messages SET status = 'waiting', attempts = 0, last_error = NULL, locked_until = NULL
-			  WHERE id = $1 AND status = 'failed'`,
-			{ bind: [job.data.messageId], transaction }
+			  WHERE id = :messageId AND status = 'failed'`,
+			{ replacements: { messageId: job.data.messageId ?? null }, transaction }
 		);
 	} else if (job.name === 'show-pdf') {
 		await sequelize.query(
-			`UPDATE show_pdfs SET status = 'waiting', last_error = NULL WHERE id = $1 AND status = 'failed'`,
-			{ bind: [job.data.pdfId], transaction }
+			`UPDATE show_pdfs SET status = 'waiting', last_error = NULL WHERE id = :pdfId AND status = 'failed'`,
+			{ replacements: { pdfId: job.data.pdfId ?? null }, transaction }
 		);
 	}
 	// pg-boss's retry gives the job one more try.

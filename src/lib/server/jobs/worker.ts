@@ -57,9 +57,15 @@ const BATCH: Record<JobName, number> = {
 async function failForGood(name: string, id: string, error: Error): Promise<void> {
 	await sequelize.query(
 		`UPDATE ${JOB_SCHEMA}.job
-		    SET state = 'failed', completed_on = now(), output = $3::jsonb
-		  WHERE name = $1 AND id = $2 AND state = 'active'`,
-		{ bind: [name, id, JSON.stringify({ name: error.name, message: error.message })] }
+		    SET state = 'failed', completed_on = now(), output = CAST(:output AS jsonb)
+		  WHERE name = :name AND id = :id AND state = 'active'`,
+		{
+			replacements: {
+				name,
+				id,
+				output: JSON.stringify({ name: error.name, message: error.message })
+			}
+		}
 	);
 }
 
@@ -98,9 +104,9 @@ export async function runJobs(boss: PgBoss, name: JobName, jobs: Job[]): Promise
 
 async function beat(id: string): Promise<void> {
 	await sequelize.query(
-		`INSERT INTO worker_heartbeats (id) VALUES ($1)
+		`INSERT INTO worker_heartbeats (id) VALUES (:id)
 		 ON CONFLICT (id) DO UPDATE SET seen_at = now()`,
-		{ bind: [id] }
+		{ replacements: { id } }
 	);
 }
 
@@ -140,7 +146,7 @@ export async function startJobWorker(): Promise<() => Promise<void>> {
 		clearInterval(timer);
 		await boss.stop({ graceful: true, timeout: 10_000, close: false });
 		await sequelize
-			.query('DELETE FROM worker_heartbeats WHERE id = $1', { bind: [id] })
+			.query('DELETE FROM worker_heartbeats WHERE id = :id', { replacements: { id } })
 			.catch(() => undefined);
 	};
 }
@@ -148,8 +154,8 @@ export async function startJobWorker(): Promise<() => Promise<void>> {
 /** How many workers wrote a heartbeat lately (for /readyz). */
 export async function liveWorkers(): Promise<number> {
 	const [row] = await sequelize.query<{ n: string }>(
-		`SELECT count(*) AS n FROM worker_heartbeats WHERE seen_at > now() - make_interval(secs => $1)`,
-		{ bind: [HEARTBEAT_FRESH_SECONDS], type: 'SELECT' as never }
+		`SELECT count(*) AS n FROM worker_heartbeats WHERE seen_at > now() - make_interval(secs => :freshSeconds)`,
+		{ replacements: { freshSeconds: HEARTBEAT_FRESH_SECONDS }, type: 'SELECT' as never }
 	);
 	return Number(row?.n ?? 0);
 }

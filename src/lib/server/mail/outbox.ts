@@ -43,21 +43,21 @@ export async function queueMail(
 	for (let i = 0; i < deliverable.length; i += chunk) {
 		const part = deliverable.slice(i, i + chunk);
 		const values: string[] = [];
-		const bind: unknown[] = [];
-		for (const m of part) {
-			const n = bind.length;
-			values.push(`(${Array.from({ length: 9 }, (_, k) => `$${n + k + 1}`).join(', ')})`);
-			bind.push(
-				m.kind,
-				m.societyId ?? null,
-				m.showId ?? null,
-				m.recipientId ?? null,
-				m.to,
-				m.subject,
-				m.text,
-				m.html ?? null,
-				m.dedupeKey ?? null
-			);
+		const replacements: Record<string, unknown> = {};
+		for (const [k, m] of part.entries()) {
+			const columns = Object.entries({
+				kind: m.kind,
+				societyId: m.societyId ?? null,
+				showId: m.showId ?? null,
+				recipientId: m.recipientId ?? null,
+				to: m.to,
+				subject: m.subject,
+				text: m.text,
+				html: m.html ?? null,
+				dedupeKey: m.dedupeKey ?? null
+			});
+			values.push(`(${columns.map(([name]) => `:${name}${k}`).join(', ')})`);
+			for (const [name, value] of columns) replacements[`${name}${k}`] = value;
 		}
 		const rows = await sequelize.query(
 			`INSERT INTO outbox_messages
@@ -65,7 +65,7 @@ export async function queueMail(
 			 VALUES ${values.join(', ')}
 			 ON CONFLICT (dedupe_key) DO NOTHING
 			 RETURNING id, society_id`,
-			{ bind, type: QueryTypes.SELECT, transaction: options.transaction }
+			{ replacements, type: QueryTypes.SELECT, transaction: options.transaction }
 		);
 		await enqueueMany(
 			'mail-send',
@@ -119,10 +119,10 @@ export async function deliverMessage(
 	const [row] = await sequelize.query<ClaimedRow>(
 		`UPDATE outbox_messages
 		    SET status = 'sending', attempts = attempts + 1, locked_until = now() + interval '2 minutes'
-		  WHERE id = $1
+		  WHERE id = :messageId
 		    AND (status = 'waiting' OR (status = 'sending' AND locked_until < now()))
 		RETURNING id, to_address, subject, text_body, html_body`,
-		{ bind: [messageId], type: QueryTypes.SELECT }
+		{ replacements: { messageId }, type: QueryTypes.SELECT }
 	);
 	if (!row) return 'not-due';
 	try {
@@ -136,15 +136,22 @@ export async function deliverMessage(
 	} catch (error) {
 		const message = error instanceof Error ? error.message : String(error);
 		await sequelize.query(
-			`UPDATE outbox_messages SET status = $2, last_error = $3, locked_until = NULL WHERE id = $1`,
-			{ bind: [row.id, options.lastAttempt ? 'failed' : 'waiting', message.slice(0, 1000)] }
+			`UPDATE outbox_messages SET status = :status, last_error = :lastError, locked_until = NULL
+			  WHERE id = :messageId`,
+			{
+				replacements: {
+					messageId: row.id,
+					status: options.lastAttempt ? 'failed' : 'waiting',
+					lastError: message.slice(0, 1000)
+				}
+			}
 		);
 		throw error;
 	}
 	await sequelize.query(
 		`UPDATE outbox_messages SET status = 'sent', sent_at = now(), locked_until = NULL, last_error = NULL
-		  WHERE id = $1`,
-		{ bind: [row.id] }
+		  WHERE id = :messageId`,
+		{ replacements: { messageId: row.id } }
 	);
 	return 'sent';
 }
@@ -153,9 +160,9 @@ export async function deliverMessage(
 export async function mailProgress(showId: string, kind?: string): Promise<MailProgress> {
 	const rows = await sequelize.query<{ status: keyof MailProgress; n: string }>(
 		`SELECT status, count(*) AS n FROM outbox_messages
-		  WHERE show_id = $1 AND ($2::text IS NULL OR kind = $2)
+		  WHERE show_id = :showId AND (CAST(:kind AS text) IS NULL OR kind = :kind)
 		  GROUP BY status`,
-		{ bind: [showId, kind ?? null], type: QueryTypes.SELECT }
+		{ replacements: { showId, kind: kind ?? null }, type: QueryTypes.SELECT }
 	);
 	const progress: MailProgress = { waiting: 0, sending: 0, sent: 0, failed: 0 };
 	for (const r of rows) progress[r.status] = Number(r.n);
@@ -173,9 +180,9 @@ export async function resendMail(
 	const rows = await sequelize.query<{ id: string; society_id: string | null }>(
 		`UPDATE outbox_messages
 		    SET status = 'waiting', attempts = 0, next_attempt_at = now(), last_error = NULL, locked_until = NULL
-		  WHERE id = $1 AND status <> 'sending'
+		  WHERE id = :id AND status <> 'sending'
 		RETURNING id, society_id`,
-		{ bind: [id], type: QueryTypes.SELECT, transaction: options.transaction }
+		{ replacements: { id }, type: QueryTypes.SELECT, transaction: options.transaction }
 	);
 	if (rows.length === 0) return false;
 	await enqueue(

@@ -60,9 +60,9 @@ export async function receiveWebhook(
 /** Records the event id first: when it is already there, this is a replay and nothing happens. */
 async function applyEvent(event: Stripe.Event, transaction: Transaction): Promise<Handled> {
 	const fresh = await sequelize.query(
-		`INSERT INTO payment_events (event_id, type, outcome) VALUES ($1, $2, 'processing')
+		`INSERT INTO payment_events (event_id, type, outcome) VALUES (:eventId, :type, 'processing')
 		 ON CONFLICT (event_id) DO NOTHING RETURNING event_id`,
-		{ bind: [event.id, event.type], type: QueryTypes.SELECT, transaction }
+		{ replacements: { eventId: event.id, type: event.type }, type: QueryTypes.SELECT, transaction }
 	);
 	if (fresh.length === 0) return { outcome: 'already processed' };
 
@@ -86,8 +86,8 @@ async function applyEvent(event: Stripe.Event, transaction: Transaction): Promis
 		default:
 			handled = { outcome: 'ignored' };
 	}
-	await sequelize.query('UPDATE payment_events SET outcome = $2 WHERE event_id = $1', {
-		bind: [event.id, handled.outcome.slice(0, 240)],
+	await sequelize.query('UPDATE payment_events SET outcome = :outcome WHERE event_id = :eventId', {
+		replacements: { eventId: event.id, outcome: handled.outcome.slice(0, 240) },
 		transaction
 	});
 	return handled;
@@ -194,12 +194,19 @@ async function applyEntryFees(
 	payment: Payment,
 	transaction: Transaction
 ): Promise<{ note?: string; refund: boolean }> {
-	const moved = await sequelize.query<{ id: string }>(
-		`UPDATE entries SET fee_status = 'paid', fee_payment_id = $1, updated_at = now()
-		  WHERE id = ANY($2::uuid[]) AND fee_status = 'due' AND status NOT IN ('withdrawn', 'scratched')
-		RETURNING id`,
-		{ bind: [payment.id, payment.entryIds], type: QueryTypes.SELECT, transaction }
-	);
+	const moved =
+		payment.entryIds.length === 0
+			? []
+			: await sequelize.query<{ id: string }>(
+					`UPDATE entries SET fee_status = 'paid', fee_payment_id = :paymentId, updated_at = now()
+					  WHERE id IN (:entryIds) AND fee_status = 'due' AND status NOT IN ('withdrawn', 'scratched')
+					RETURNING id`,
+					{
+						replacements: { paymentId: payment.id, entryIds: payment.entryIds },
+						type: QueryTypes.SELECT,
+						transaction
+					}
+				);
 	const movedIds = new Set(moved.map((r) => r.id));
 	const notOwing = payment.entryIds.filter((id) => !movedIds.has(id));
 	for (const entryId of notOwing) {
@@ -346,8 +353,8 @@ async function recordRefundedCharge(
 	if (entryIds.length) {
 		await sequelize.query(
 			`UPDATE entries SET fee_status = 'refunded', updated_at = now()
-			  WHERE id = ANY($1::uuid[]) AND fee_payment_id = $2`,
-			{ bind: [entryIds, payment.id], transaction }
+			  WHERE id IN (:entryIds) AND fee_payment_id = :paymentId`,
+			{ replacements: { entryIds, paymentId: payment.id }, transaction }
 		);
 	}
 	if (succeeded.length) await queueRefundMessages(payment, succeeded, transaction);

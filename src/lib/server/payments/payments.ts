@@ -351,9 +351,9 @@ export async function entryFeesOfMember(userId: string): Promise<EntryFeeShow[]>
 		   JOIN shows s ON s.id = e.show_id
 		   JOIN societies so ON so.id = s.society_id
 		   LEFT JOIN varieties v ON v.id = e.variety_id
-		  WHERE e.exhibitor_id = $1 AND e.fee_status <> 'not_required'
+		  WHERE e.exhibitor_id = :userId AND e.fee_status <> 'not_required'
 		  ORDER BY s.judging_day DESC, e.number`,
-		{ bind: [userId], type: QueryTypes.SELECT }
+		{ replacements: { userId }, type: QueryTypes.SELECT }
 	);
 	const byShow = new Map<string, EntryFeeShow>();
 	for (const r of rows) {

@@ -75,8 +75,8 @@ export async function sendRefund(refundId: string): Promise<RefundOutcome> {
 	}>(
 		`SELECT r.id, r.amount_cents, p.payment_intent_id
 		   FROM refunds r JOIN payments p ON p.id = r.payment_id
-		  WHERE r.id = $1 AND r.status = 'requested'`,
-		{ bind: [refundId], type: QueryTypes.SELECT }
+		  WHERE r.id = :refundId AND r.status = 'requested'`,
+		{ replacements: { refundId }, type: QueryTypes.SELECT }
 	);
 	if (!row) return 'not-due';
 	try {

@@ -45,22 +45,22 @@ export async function listMembers(
 	today?: IsoDate
 ): Promise<MemberPage> {
 	today ??= await societyToday(societyId);
-	const where = ['m.society_id = $1'];
-	const bind: unknown[] = [societyId, today];
+	const where = ['m.society_id = :societyId'];
+	const replacements: Record<string, unknown> = { societyId, today };
 	if (query.q) {
-		bind.push(`%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`);
-		where.push(`(u.name ILIKE $${bind.length} OR u.email ILIKE $${bind.length})`);
+		replacements.like = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+		where.push('(u.name ILIKE :like OR u.email ILIKE :like)');
 	}
 	if (query.role) {
-		bind.push(query.role);
-		where.push(`$${bind.length} = ANY(m.roles)`);
+		replacements.role = query.role;
+		where.push(':role = ANY(m.roles)');
 	}
 	const standingSql = `CASE WHEN m.dues_paid_through IS NULL THEN 'none'
-	                          WHEN m.dues_paid_through >= $2::date THEN 'current' ELSE 'lapsed' END`;
+	                          WHEN m.dues_paid_through >= CAST(:today AS date) THEN 'current' ELSE 'lapsed' END`;
 	const filtered = [...where];
 	if (query.standing) {
-		bind.push(query.standing);
-		filtered.push(`${standingSql} = $${bind.length}`);
+		replacements.standing = query.standing;
+		filtered.push(`${standingSql} = :standing`);
 	}
 	const direction = query.dir === 'desc' ? 'DESC' : 'ASC';
 	const order = `${SORT_SQL[query.sort]} ${direction} NULLS LAST, lower(u.email) ASC`;
@@ -87,15 +87,14 @@ export async function listMembers(
 		  WHERE ${filtered.join(' AND ')}
 		  ORDER BY ${order}
 		  LIMIT ${query.pageSize} OFFSET ${offset}`,
-		{ bind, type: QueryTypes.SELECT }
+		{ replacements, type: QueryTypes.SELECT }
 	);
-	const countBind = bind.slice(0, bind.length - (query.standing ? 1 : 0));
 	const countRows = await sequelize.query<{ standing: DuesStanding; n: string }>(
 		`SELECT ${standingSql} AS standing, count(*) AS n
 		   FROM memberships m JOIN users u ON u.id = m.user_id
 		  WHERE ${where.join(' AND ')} AND 'member' = ANY(m.roles)
 		  GROUP BY 1`,
-		{ bind: countBind, type: QueryTypes.SELECT }
+		{ replacements, type: QueryTypes.SELECT }
 	);
 	const counts: Record<DuesStanding, number> = { current: 0, lapsed: 0, none: 0 };
 	for (const c of countRows) counts[c.standing] = Number(c.n);
@@ -217,8 +216,12 @@ export async function changeMemberRoles(
 	if (removed.includes('admin')) {
 		const [row] = await sequelize.query<{ n: string }>(
 			`SELECT count(*) AS n FROM memberships
-			  WHERE society_id = $1 AND 'admin' = ANY(roles) AND user_id <> $2`,
-			{ bind: [input.societyId, input.userId], type: QueryTypes.SELECT, transaction }
+			  WHERE society_id = :societyId AND 'admin' = ANY(roles) AND user_id <> :userId`,
+			{
+				replacements: { societyId: input.societyId, userId: input.userId },
+				type: QueryTypes.SELECT,
+				transaction
+			}
 		);
 		if (Number(row.n) === 0) {
 			throw new MemberChangeError(

@@ -34,11 +34,16 @@ export async function createEntryFromPlant(
 	}>(
 		`SELECT p.variety_id, p.obtained_on,
 		        (SELECT e.number FROM entries e
-		          WHERE e.plant_id = p.id AND e.show_id = $3 AND e.status <> ALL($4::varchar[])
+		          WHERE e.plant_id = p.id AND e.show_id = :showId AND e.status NOT IN (:inactiveStatuses)
 		          LIMIT 1) AS entered
-		   FROM plants p WHERE p.id = $1 AND p.owner_id = $2`,
+		   FROM plants p WHERE p.id = :plantId AND p.owner_id = :exhibitorId`,
 		{
-			bind: [input.plantId, exhibitorId, input.showId, [...INACTIVE_STATUSES]],
+			replacements: {
+				plantId: input.plantId,
+				exhibitorId,
+				showId: input.showId,
+				inactiveStatuses: [...INACTIVE_STATUSES]
+			},
 			type: QueryTypes.SELECT,
 			transaction
 		}
@@ -69,8 +74,8 @@ export async function createEntryFromPlant(
 			},
 			{ transaction }
 		);
-		await sequelize.query('UPDATE entries SET plant_id = $2 WHERE id = $1', {
-			bind: [entry.id, input.plantId],
+		await sequelize.query('UPDATE entries SET plant_id = :plantId WHERE id = :entryId', {
+			replacements: { entryId: entry.id, plantId: input.plantId },
 			transaction
 		});
 		return { id: entry.id, number: entry.number };

@@ -126,9 +126,9 @@ function toSummary(r: SummaryRow): PlantSummary {
 export async function listPlants(ownerId: string): Promise<PlantSummary[]> {
 	const rows = await sequelize.query<SummaryRow>(
 		`${SUMMARY_SQL}
-		  WHERE p.owner_id = $1
+		  WHERE p.owner_id = :ownerId
 		  ORDER BY (p.gone_on IS NOT NULL), v.name, p.obtained_on, p.id`,
-		{ bind: [ownerId], type: QueryTypes.SELECT }
+		{ replacements: { ownerId }, type: QueryTypes.SELECT }
 	);
 	return rows.map(toSummary);
 }
@@ -145,8 +145,8 @@ interface RelativeRow {
 /** One of the member's plants with its log, photos and offspring; null when it is not theirs. */
 export async function getPlant(ownerId: string, plantId: string): Promise<PlantDetail | null> {
 	const [row] = await sequelize.query<SummaryRow>(
-		`${SUMMARY_SQL} WHERE p.owner_id = $1 AND p.id = $2`,
-		{ bind: [ownerId, plantId], type: QueryTypes.SELECT }
+		`${SUMMARY_SQL} WHERE p.owner_id = :ownerId AND p.id = :plantId`,
+		{ replacements: { ownerId, plantId }, type: QueryTypes.SELECT }
 	);
 	if (!row) return null;
 	const [events, photos, children] = await Promise.all([
@@ -161,8 +161,8 @@ export async function getPlant(ownerId: string, plantId: string): Promise<PlantD
 		sequelize.query<RelativeRow>(
 			`SELECT p.id, v.name, p.label, p.obtained_how AS how, p.obtained_on AS on
 			   FROM plants p JOIN varieties v ON v.id = p.variety_id
-			  WHERE p.parent_id = $1 AND p.owner_id = $2 ORDER BY p.obtained_on, p.id`,
-			{ bind: [plantId, ownerId], type: QueryTypes.SELECT }
+			  WHERE p.parent_id = :plantId AND p.owner_id = :ownerId ORDER BY p.obtained_on, p.id`,
+			{ replacements: { plantId, ownerId }, type: QueryTypes.SELECT }
 		)
 	]);
 	return {
@@ -238,10 +238,10 @@ async function isSelfOrDescendant(
 ): Promise<boolean> {
 	const rows = await sequelize.query(
 		`WITH RECURSIVE down AS (
-		   SELECT id FROM plants WHERE id = $1
+		   SELECT id FROM plants WHERE id = :plantId
 		   UNION SELECT p.id FROM plants p JOIN down d ON p.parent_id = d.id)
-		 SELECT 1 FROM down WHERE id = $2`,
-		{ bind: [plantId, candidateId], type: QueryTypes.SELECT, transaction }
+		 SELECT 1 FROM down WHERE id = :candidateId`,
+		{ replacements: { plantId, candidateId }, type: QueryTypes.SELECT, transaction }
 	);
 	return rows.length > 0;
 }
@@ -454,22 +454,22 @@ export async function getLineage(
 			        t.generation
 			   FROM tree t JOIN plants p ON p.id = t.id JOIN varieties v ON v.id = p.variety_id
 			  ORDER BY abs(t.generation), p.obtained_on, p.id`,
-			{ bind: [plantId, ownerId], type: QueryTypes.SELECT }
+			{ replacements: { plantId, ownerId }, type: QueryTypes.SELECT }
 		);
 	const up = await query(
 		`tree(id, parent_id, generation) AS (
-		   SELECT id, parent_id, 0 FROM plants WHERE id = $1 AND owner_id = $2
+		   SELECT id, parent_id, 0 FROM plants WHERE id = :plantId AND owner_id = :ownerId
 		   UNION ALL
 		   SELECT p.id, p.parent_id, t.generation - 1 FROM plants p JOIN tree t ON p.id = t.parent_id
-		    WHERE p.owner_id = $2 AND t.generation > -50)`
+		    WHERE p.owner_id = :ownerId AND t.generation > -50)`
 	);
 	if (up.length === 0) return null;
 	const down = await query(
 		`tree(id, generation) AS (
-		   SELECT id, 0 FROM plants WHERE id = $1 AND owner_id = $2
+		   SELECT id, 0 FROM plants WHERE id = :plantId AND owner_id = :ownerId
 		   UNION ALL
 		   SELECT p.id, t.generation + 1 FROM plants p JOIN tree t ON p.parent_id = t.id
-		    WHERE p.owner_id = $2 AND t.generation < 50)`
+		    WHERE p.owner_id = :ownerId AND t.generation < 50)`
 	);
 	const toNode = (r: (typeof up)[number]): LineageNode => ({
 		id: r.id,

@@ -142,19 +142,19 @@ export async function assessCollections(
 	userIds: string[],
 	options: { onlyPlantIds?: string[]; transaction?: Transaction } = {}
 ): Promise<Map<string, PlantAssessment[]>> {
-	const { transaction } = options;
+	const { transaction, onlyPlantIds } = options;
 	const result = new Map<string, PlantAssessment[]>();
-	if (userIds.length === 0) return result;
+	if (userIds.length === 0 || onlyPlantIds?.length === 0) return result;
 	const plants = await sequelize.query<PlantRow>(
 		`SELECT p.id, p.owner_id, p.label, p.obtained_on, v.id AS variety_id, v.name, v.is_species,
 		        v.habit, v.size_class, v.blossom_type, v.blossom_colours, v.foliage,
 		        v.plant_group, v.growth_form
 		   FROM plants p JOIN varieties v ON v.id = p.variety_id
-		  WHERE p.owner_id = ANY($1::uuid[]) AND v.society_id = $2 AND p.gone_on IS NULL
-		    AND ($3::uuid[] IS NULL OR p.id = ANY($3::uuid[]))
+		  WHERE p.owner_id IN (:userIds) AND v.society_id = :societyId AND p.gone_on IS NULL
+		    ${onlyPlantIds ? 'AND p.id IN (:onlyPlantIds)' : ''}
 		  ORDER BY v.name, p.obtained_on, p.id`,
 		{
-			bind: [userIds, show.societyId, options.onlyPlantIds ?? null],
+			replacements: { userIds, societyId: show.societyId, onlyPlantIds },
 			type: QueryTypes.SELECT,
 			transaction
 		}
@@ -169,14 +169,14 @@ export async function assessCollections(
 			crowns: number | null;
 		}>(
 			`SELECT plant_id, kind, happened_on, diameter_in, crowns FROM plant_events
-			  WHERE plant_id = ANY($1::uuid[]) AND kind IN ('measured','sucker_removed','sucker_potted','in_bloom')
+			  WHERE plant_id IN (:plantIds) AND kind IN ('measured','sucker_removed','sucker_potted','in_bloom')
 			  ORDER BY happened_on, created_at`,
-			{ bind: [plants.map((p) => p.id)], type: QueryTypes.SELECT, transaction }
+			{ replacements: { plantIds: plants.map((p) => p.id) }, type: QueryTypes.SELECT, transaction }
 		),
 		sequelize.query<EntryRow>(
 			`SELECT exhibitor_id, class_id, variety_id, plant_id, number FROM entries
-			  WHERE show_id = $1 AND exhibitor_id = ANY($2::uuid[]) AND status NOT IN ('withdrawn','scratched')`,
-			{ bind: [show.id, userIds], type: QueryTypes.SELECT, transaction }
+			  WHERE show_id = :showId AND exhibitor_id IN (:userIds) AND status NOT IN ('withdrawn','scratched')`,
+			{ replacements: { showId: show.id, userIds }, type: QueryTypes.SELECT, transaction }
 		),
 		Membership.findAll({
 			where: { societyId: show.societyId, userId: userIds },

@@ -115,8 +115,8 @@ export async function queueEntryReminders(
 		`SELECT u.id, u.email, u.name FROM memberships m
 		   JOIN users u ON u.id = m.user_id
 		   LEFT JOIN mail_preferences mp ON mp.user_id = u.id
-		  WHERE m.society_id = $1 AND 'member' = ANY(m.roles) AND COALESCE(mp.reminders, true)`,
-		{ bind: [show.societyId], type: QueryTypes.SELECT, transaction }
+		  WHERE m.society_id = :societyId AND 'member' = ANY(m.roles) AND COALESCE(mp.reminders, true)`,
+		{ replacements: { societyId: show.societyId }, type: QueryTypes.SELECT, transaction }
 	);
 	const collections = await assessCollections(
 		show,

@@ -81,10 +81,13 @@ const ENTRY_COLUMNS = `e.id, e.number, e.status, coalesce(v.name, e.title, '') A
    JOIN classes c ON c.id = e.class_id
    LEFT JOIN varieties v ON v.id = e.variety_id`;
 
-async function entriesWhere(where: string, bind: unknown[]): Promise<EntryRow[]> {
+async function entriesWhere(
+	where: string,
+	replacements: Record<string, unknown>
+): Promise<EntryRow[]> {
 	return sequelize.query<EntryRow>(
 		`SELECT ${ENTRY_COLUMNS} WHERE ${where} ORDER BY s.judging_day DESC, s.name, e.number`,
-		{ bind, type: QueryTypes.SELECT }
+		{ replacements, type: QueryTypes.SELECT }
 	);
 }
 
@@ -150,7 +153,7 @@ async function withResults(rows: EntryRow[]): Promise<MyEntry[]> {
 
 /** Every entry of the exhibitor, newest show first, with results where they are published. */
 export async function listMyEntries(exhibitorId: string): Promise<MyEntry[]> {
-	return withResults(await entriesWhere('e.exhibitor_id = $1', [exhibitorId]));
+	return withResults(await entriesWhere('e.exhibitor_id = :exhibitorId', { exhibitorId }));
 }
 
 /** The exhibitor's entries as a record reads them: published, not withdrawn or scratched. */
@@ -180,9 +183,9 @@ export function toRecordEntries(entries: readonly MyEntry[]): RecordEntry[] {
 export async function loadMyRecord(exhibitorId: string): Promise<RecordEntry[]> {
 	return toRecordEntries(
 		await withResults(
-			await entriesWhere('e.exhibitor_id = $1 AND s.results_published_at IS NOT NULL', [
+			await entriesWhere('e.exhibitor_id = :exhibitorId AND s.results_published_at IS NOT NULL', {
 				exhibitorId
-			])
+			})
 		)
 	);
 }
@@ -213,9 +216,9 @@ async function loadPointsLost(entryIds: string[]): Promise<Map<string, PointsLos
 		   LEFT JOIN scales sc ON sc.id = c.scale_id
 		   LEFT JOIN score_sheets ss ON ss.entry_id = e.id AND ss.not_judged_reason IS NULL
 		        AND ss.kind = (CASE WHEN s.panel_score_method = 'consensus' THEN 'consensus' ELSE 'judge' END)
-		  WHERE e.id = ANY($1::uuid[]) AND s.share_points_lost AND s.results_published_at IS NOT NULL
+		  WHERE e.id IN (:entryIds) AND s.share_points_lost AND s.results_published_at IS NOT NULL
 		  GROUP BY e.id, sc.criteria`,
-		{ bind: [entryIds], type: QueryTypes.SELECT }
+		{ replacements: { entryIds }, type: QueryTypes.SELECT }
 	);
 	return new Map(rows.map((r) => [r.entry_id, pointsLost(r.criteria ?? [], r.deductions)]));
 }
@@ -226,7 +229,10 @@ export async function loadMyEntryResult(
 	entryId: string
 ): Promise<MyEntryResult | null> {
 	const [entry] = await withResults(
-		await entriesWhere('e.id = $1 AND e.exhibitor_id = $2', [entryId, exhibitorId])
+		await entriesWhere('e.id = :entryId AND e.exhibitor_id = :exhibitorId', {
+			entryId,
+			exhibitorId
+		})
 	);
 	if (!entry?.result) return null;
 	const lost = await loadPointsLost([entry.id]);
@@ -237,8 +243,8 @@ export async function loadMyEntryResult(
 export async function loadPlantHistory(ownerId: string, plantId: string): Promise<MyEntry[]> {
 	return withResults(
 		await entriesWhere(
-			`e.plant_id = $1 AND e.exhibitor_id = $2 AND e.status NOT IN ('withdrawn', 'scratched')`,
-			[plantId, ownerId]
+			`e.plant_id = :plantId AND e.exhibitor_id = :ownerId AND e.status NOT IN ('withdrawn', 'scratched')`,
+			{ plantId, ownerId }
 		)
 	);
 }
@@ -261,9 +267,9 @@ export async function loadLastTimes(
 ): Promise<Map<string, LastTime>> {
 	if (plantIds.length === 0) return new Map();
 	const rows = await entriesWhere(
-		`e.exhibitor_id = $1 AND e.plant_id = ANY($2::uuid[]) AND s.results_published_at IS NOT NULL
+		`e.exhibitor_id = :ownerId AND e.plant_id IN (:plantIds) AND s.results_published_at IS NOT NULL
 		 AND e.status NOT IN ('withdrawn', 'scratched')`,
-		[ownerId, plantIds]
+		{ ownerId, plantIds }
 	);
 	const latest = new Map<string, EntryRow>();
 	for (const r of rows) if (r.plant_id && !latest.has(r.plant_id)) latest.set(r.plant_id, r);
@@ -291,9 +297,9 @@ export async function loadLastTimes(
  */
 export async function loadSocietyRecord(societyId: string): Promise<RecordEntry[]> {
 	const rows = await entriesWhere(
-		`s.society_id = $1 AND s.results_published_at IS NOT NULL
+		`s.society_id = :societyId AND s.results_published_at IS NOT NULL
 		 AND e.status NOT IN ('withdrawn', 'scratched')`,
-		[societyId]
+		{ societyId }
 	);
 	return toRecordEntries(await withResults(rows));
 }
@@ -327,7 +333,7 @@ export async function setSharePointsLost(
 	options: { transaction: Transaction }
 ): Promise<void> {
 	await sequelize.query(
-		'UPDATE shows SET share_points_lost = $2, updated_at = now() WHERE id = $1',
-		{ bind: [showId, share], transaction: options.transaction }
+		'UPDATE shows SET share_points_lost = :share, updated_at = now() WHERE id = :showId',
+		{ replacements: { showId, share }, transaction: options.transaction }
 	);
 }

@@ -49,8 +49,8 @@ async function publicationOf(
 	transaction?: Transaction
 ): Promise<Publication | null> {
 	const [show] = await sequelize.query<{ society_id: string; results_published_at: Date | null }>(
-		'SELECT society_id, results_published_at FROM shows WHERE id = $1',
-		{ bind: [showId], type: QueryTypes.SELECT, transaction }
+		'SELECT society_id, results_published_at FROM shows WHERE id = :showId',
+		{ replacements: { showId }, type: QueryTypes.SELECT, transaction }
 	);
 	if (!show?.results_published_at) return null;
 	const settings = await loadSocietySettings(show.society_id, { transaction });
@@ -78,19 +78,19 @@ export async function requestShowPdfs(
 	for (const document of options.documents ?? SHOW_DOCUMENTS) {
 		const rows = await sequelize.query<{ id: string }>(
 			`INSERT INTO show_pdfs (show_id, document, published_at, paper_size)
-			 VALUES ($1, $2, $3, $4)
+			 VALUES (:showId, :document, :publishedAt, :paperSize)
 			 ON CONFLICT (show_id, document, published_at, paper_size)
 			 DO UPDATE SET status = 'waiting', last_error = NULL, requested_at = now()
-			    WHERE show_pdfs.status = 'failed' AND $5::boolean
+			    WHERE show_pdfs.status = 'failed' AND CAST(:again AS boolean)
 			 RETURNING id`,
 			{
-				bind: [
+				replacements: {
 					showId,
 					document,
-					publication.publishedAt,
-					publication.paperSize,
-					options.again ?? false
-				],
+					publishedAt: publication.publishedAt,
+					paperSize: publication.paperSize,
+					again: options.again ?? false
+				},
 				type: QueryTypes.SELECT,
 				transaction
 			}
@@ -118,9 +118,13 @@ export async function showPdfStates(showId: string): Promise<ShowPdfState[]> {
 		built_at: Date | null;
 	}>(
 		`SELECT document, status, bytes, last_error, built_at FROM show_pdfs
-		  WHERE show_id = $1 AND published_at = $2 AND paper_size = $3`,
+		  WHERE show_id = :showId AND published_at = :publishedAt AND paper_size = :paperSize`,
 		{
-			bind: [showId, publication.publishedAt, publication.paperSize],
+			replacements: {
+				showId,
+				publishedAt: publication.publishedAt,
+				paperSize: publication.paperSize
+			},
 			type: QueryTypes.SELECT
 		}
 	);
@@ -142,10 +146,15 @@ export async function keptShowPdf(showId: string, document: ShowDocument): Promi
 	if (!publication) return null;
 	const [row] = await sequelize.query<{ content: Buffer }>(
 		`SELECT content FROM show_pdfs
-		  WHERE show_id = $1 AND document = $2 AND published_at = $3 AND paper_size = $4
-		    AND status = 'ready'`,
+		  WHERE show_id = :showId AND document = :document AND published_at = :publishedAt
+		    AND paper_size = :paperSize AND status = 'ready'`,
 		{
-			bind: [showId, document, publication.publishedAt, publication.paperSize],
+			replacements: {
+				showId,
+				document,
+				publishedAt: publication.publishedAt,
+				paperSize: publication.paperSize
+			},
 			type: QueryTypes.SELECT
 		}
 	);
@@ -169,9 +178,9 @@ export async function buildShowPdfJob(
 		paper_size: PaperSize;
 	}>(
 		`UPDATE show_pdfs SET status = 'building'
-		  WHERE id = $1 AND status IN ('waiting', 'building', 'failed')
+		  WHERE id = :pdfId AND status IN ('waiting', 'building', 'failed')
 		RETURNING show_id, document, published_at, paper_size`,
-		{ bind: [pdfId], type: QueryTypes.SELECT }
+		{ replacements: { pdfId }, type: QueryTypes.SELECT }
 	);
 	if (!row) return 'not-due';
 	try {
@@ -183,16 +192,24 @@ export async function buildShowPdfJob(
 		if (!results) throw new Error('The show has no published results.');
 		const pdf = await SHOW_PDF_RENDERERS[row.document](results, row.paper_size);
 		await sequelize.query(
-			`UPDATE show_pdfs SET status = 'ready', content = $2, bytes = $3, built_at = now(), last_error = NULL
-			  WHERE id = $1`,
-			{ bind: [pdfId, pdf, pdf.length] }
+			`UPDATE show_pdfs SET status = 'ready', content = :content, bytes = :bytes, built_at = now(),
+			        last_error = NULL
+			  WHERE id = :pdfId`,
+			{ replacements: { pdfId, content: pdf, bytes: pdf.length } }
 		);
 		return `built ${pdf.length} bytes`;
 	} catch (error) {
 		const message = error instanceof Error ? error.message : String(error);
-		await sequelize.query(`UPDATE show_pdfs SET status = $3, last_error = $2 WHERE id = $1`, {
-			bind: [pdfId, message.slice(0, 1000), options.lastAttempt ? 'failed' : 'waiting']
-		});
+		await sequelize.query(
+			'UPDATE show_pdfs SET status = :status, last_error = :lastError WHERE id = :pdfId',
+			{
+				replacements: {
+					pdfId,
+					lastError: message.slice(0, 1000),
+					status: options.lastAttempt ? 'failed' : 'waiting'
+				}
+			}
+		);
 		throw error;
 	}
 }
