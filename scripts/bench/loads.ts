@@ -402,6 +402,22 @@ export function percentile(sorted: number[], p: number): number {
 	return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
 }
 
+/** p50, p95, p99 and max of times sorted ascending, to a tenth of a millisecond. */
+export function latencyOf(sorted: number[]): {
+	p50: number;
+	p95: number;
+	p99: number;
+	max: number;
+} {
+	const ms = (v: number) => Math.round(v * 10) / 10;
+	return {
+		p50: ms(percentile(sorted, 50)),
+		p95: ms(percentile(sorted, 95)),
+		p99: ms(percentile(sorted, 99)),
+		max: ms(sorted.at(-1) ?? 0)
+	};
+}
+
 /** What one server did under the paced load. */
 export interface PacedFigures {
 	judges: number;
@@ -459,18 +475,12 @@ export async function pacedSaves(input: {
 	await Promise.all(Array.from({ length: judges }, (_, j) => judge(j)));
 	agent.destroy();
 	const sorted = [...times].sort((a, b) => a - b);
-	const ms = (v: number) => Math.round(v * 10) / 10;
 	return {
 		judges,
 		intervalMs,
 		requests: times.length,
 		requestsPerSecond: Math.round((times.length / seconds) * 10) / 10,
-		latencyMs: {
-			p50: ms(percentile(sorted, 50)),
-			p95: ms(percentile(sorted, 95)),
-			p99: ms(percentile(sorted, 99)),
-			max: ms(sorted.at(-1) ?? 0)
-		},
+		latencyMs: latencyOf(sorted),
 		non2xx,
 		errors,
 		saved: counter.saved

@@ -17,7 +17,7 @@ import { readFileSync, readdirSync } from 'node:fs';
 import http from 'node:http';
 import { loadavg } from 'node:os';
 import type { BenchSaturday } from './generate';
-import { cpuMs, percentile, saveMaker, timedRequest } from './loads';
+import { cpuMs, latencyOf, saveMaker, timedRequest } from './loads';
 
 /** One kind of request of the load. */
 export interface KindFigures {
@@ -118,18 +118,12 @@ export interface SaturdayTurn {
 
 function figuresOf(tallies: Tally[], seconds: number): KindFigures {
 	const sorted = tallies.flatMap((t) => t.times).sort((a, b) => a - b);
-	const ms = (v: number) => Math.round(v * 10) / 10;
 	return {
 		clients: tallies[0].clients,
 		intervalMs: tallies[0].intervalMs,
 		requests: sorted.length,
 		requestsPerSecond: Math.round((sorted.length / seconds) * 10) / 10,
-		latencyMs: {
-			p50: ms(percentile(sorted, 50)),
-			p95: ms(percentile(sorted, 95)),
-			p99: ms(percentile(sorted, 99)),
-			max: ms(sorted.at(-1) ?? 0)
-		},
+		latencyMs: latencyOf(sorted),
 		non2xx: tallies.reduce((n, t) => n + t.non2xx, 0),
 		errors: tallies.reduce((n, t) => n + t.errors, 0)
 	};
