@@ -251,3 +251,33 @@ test('the chair decides until when the desk takes new entries, and the desk says
 	await chairContext.close();
 	await clerkContext.close();
 });
+
+test('a choice the chair taps before the page’s scripts have started is kept when they start', async ({
+	browser
+}) => {
+	const { slug } = await createEntryDayShow();
+	const context = await browser.newContext();
+	const chair = await context.newPage();
+	await signIn(chair, 'chair@crownbench.test');
+	// Hold the page's scripts back, as a slow hall network does, while the chair taps a choice.
+	let release: () => void = () => {};
+	const held = new Promise<void>((resolve) => (release = resolve));
+	await chair.route('**/_app/immutable/**/*.js', async (route) => {
+		await held;
+		await route.continue();
+	});
+	await chair.goto(`/chair/shows/${slug}`, { waitUntil: 'commit' });
+	const card = chair.getByRole('group', { name: /the desk enters plants never entered online/ });
+	await card.getByLabel('The desk takes no new entries').check();
+	release();
+	await chair.waitForLoadState('networkidle');
+	await expect(card.getByLabel('The desk takes no new entries')).toBeChecked();
+	await chair
+		.locator('form[action="?/deskEntries"]')
+		.getByRole('button', { name: 'Save the desk’s choice' })
+		.click();
+	await expect(
+		chair.getByText('New entries at the desk: The desk takes no new entries.')
+	).toBeVisible();
+	await context.close();
+});
