@@ -170,7 +170,7 @@ export const settle = () => new Promise((r) => setTimeout(r, 1500));
 export interface LoadFigures {
 	requests: number;
 	requestsPerSecond: number;
-	latencyMs: { p50: number; p95: number; p99: number; max: number };
+	latencyMs: Latency;
 	/**
 	 * CPU time the server's process spent per answered request (user + system, from /proc): less
 	 * sensitive to a busy machine than the times, since waiting for a core costs no CPU time.
@@ -402,6 +402,14 @@ export function percentile(sorted: number[], p: number): number {
 	return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
 }
 
+/** Times of a load, in milliseconds. */
+export interface Latency {
+	p50: number;
+	p95: number;
+	p99: number;
+	max: number;
+}
+
 /** p50, p95, p99 and max of times sorted ascending, to a tenth of a millisecond. */
 export function latencyOf(sorted: number[]): {
 	p50: number;
@@ -424,7 +432,7 @@ export interface PacedFigures {
 	intervalMs: number;
 	requests: number;
 	requestsPerSecond: number;
-	latencyMs: { p50: number; p95: number; p99: number; max: number };
+	latencyMs: Latency;
 	non2xx: number;
 	errors: number;
 	saved: number;
@@ -493,7 +501,7 @@ export interface SpreadFigures {
 	connections: number;
 	requests: number;
 	requestsPerSecond: number;
-	latencyMs: { p50: number; p95: number; p99: number; max: number };
+	latencyMs: Latency;
 	cpuMsPerRequest: number | null;
 	/** PostgreSQL's CPU time per request, when the caller can read it (postgresCpuMs). */
 	postgresCpuMsPerRequest: number | null;

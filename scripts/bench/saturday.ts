@@ -17,7 +17,7 @@ import { readFileSync, readdirSync } from 'node:fs';
 import http from 'node:http';
 import { loadavg } from 'node:os';
 import type { BenchSaturday } from './generate';
-import { cpuMs, latencyOf, saveMaker, timedRequest } from './loads';
+import { cpuMs, latencyOf, saveMaker, timedRequest, type Latency } from './loads';
 
 /** One kind of request of the load. */
 export interface KindFigures {
@@ -25,7 +25,7 @@ export interface KindFigures {
 	intervalMs: number;
 	requests: number;
 	requestsPerSecond: number;
-	latencyMs: { p50: number; p95: number; p99: number; max: number };
+	latencyMs: Latency;
 	non2xx: number;
 	errors: number;
 }

@@ -1,11 +1,20 @@
 import { randomUUID } from 'node:crypto';
-import { expect, test } from '@playwright/test';
+import { expect, test, type Page } from '@playwright/test';
 import { expectAccessible } from './support/axe';
 import { withDb } from './support/judging-fixture';
 import { signIn } from './support/session';
 
 // A tablet held in landscape at the desk.
 test.use({ viewport: { width: 1024, height: 768 } });
+
+/** Saves the chair's choice of the desk's new entries and waits for the page to say it. */
+async function saveDeskChoice(chair: Page, saidAs: string): Promise<void> {
+	await chair
+		.locator('form[action="?/deskEntries"]')
+		.getByRole('button', { name: 'Save the desk’s choice' })
+		.click();
+	await expect(chair.getByText(`New entries at the desk: ${saidAs}`)).toBeVisible();
+}
 
 /**
  * A show of the demo society on its entry day (judging tomorrow), open to non-members, with
@@ -220,13 +229,7 @@ test('the chair decides until when the desk takes new entries, and the desk says
 			await expect(card.getByLabel(label)).toBeChecked();
 		}).toPass();
 	await choose('The desk takes no new entries');
-	await chair
-		.locator('form[action="?/deskEntries"]')
-		.getByRole('button', { name: 'Save the desk’s choice' })
-		.click();
-	await expect(
-		chair.getByText('New entries at the desk: The desk takes no new entries.')
-	).toBeVisible();
+	await saveDeskChoice(chair, 'The desk takes no new entries.');
 	await expectAccessible(chair);
 
 	const clerkContext = await browser.newContext();
@@ -239,13 +242,7 @@ test('the chair decides until when the desk takes new entries, and the desk says
 	// Until the end of entry day (today): the desk takes entries again.
 	await chair.reload();
 	await choose('Until the end of entry day');
-	await chair
-		.locator('form[action="?/deskEntries"]')
-		.getByRole('button', { name: 'Save the desk’s choice' })
-		.click();
-	await expect(
-		chair.getByText('New entries at the desk: Until the end of entry day.')
-	).toBeVisible();
+	await saveDeskChoice(chair, 'Until the end of entry day.');
 	await clerk.reload();
 	await expect(clerk.getByLabel('Find a member by name')).toBeVisible();
 	await chairContext.close();
@@ -272,12 +269,6 @@ test('a choice the chair taps before the page’s scripts have started is kept w
 	release();
 	await chair.waitForLoadState('networkidle');
 	await expect(card.getByLabel('The desk takes no new entries')).toBeChecked();
-	await chair
-		.locator('form[action="?/deskEntries"]')
-		.getByRole('button', { name: 'Save the desk’s choice' })
-		.click();
-	await expect(
-		chair.getByText('New entries at the desk: The desk takes no new entries.')
-	).toBeVisible();
+	await saveDeskChoice(chair, 'The desk takes no new entries.');
 	await context.close();
 });
